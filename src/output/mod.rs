@@ -1,0 +1,5 @@
+//! Writing results: atomic file writes and the documented output schemas.
+
+pub mod atomic;
+
+pub use atomic::write_atomically;

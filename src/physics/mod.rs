@@ -1,0 +1,104 @@
+//! Local microphysics: composition, equation of state, opacity, nuclear energy generation and
+//! convection. One trait per kind of law, one type per law; a [`PhysicsSet`] bundles one law of
+//! each kind and is what the structure equations evaluate.
+
+pub mod composition;
+pub mod convection;
+pub mod eos;
+pub mod nuclear;
+pub mod opacity;
+pub mod spec;
+
+use std::sync::Arc;
+
+pub use composition::Composition;
+pub use convection::{Convection, ConvectionPoint};
+pub use eos::{EosState, EquationOfState};
+pub use nuclear::{EnergyGeneration, EnergyRate};
+pub use opacity::Opacity;
+pub use spec::PhysicsOptions;
+
+use serde::Serialize;
+
+/// How the outer boundary of a model is set.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum Atmosphere {
+    /// T = T_eff and P = (2/3) G M / (R^2 kappa) at the photosphere (one-point Eddington closure).
+    Photosphere,
+    /// Grey Eddington atmosphere T^4 = (3/4) T_eff^4 (tau + 2/3), integrated in optical depth from
+    /// tau ~ 0 to tau = 2/3 for the photospheric pressure.
+    Grey,
+}
+
+impl Atmosphere {
+    /// Name as a user selects it.
+    pub fn name(&self) -> &'static str {
+        match self {
+            Atmosphere::Photosphere => "photosphere",
+            Atmosphere::Grey => "grey",
+        }
+    }
+}
+
+/// One law of each kind: everything local that a stellar model needs.
+#[derive(Debug, Clone)]
+pub struct PhysicsSet {
+    /// Name of the preset the set started from (`analytic` or `refined`).
+    pub preset: String,
+    /// Equation of state.
+    pub eos: Arc<dyn EquationOfState>,
+    /// Rosseland-mean opacity.
+    pub opacity: Arc<dyn Opacity>,
+    /// Nuclear energy generation.
+    pub rates: Arc<dyn EnergyGeneration>,
+    /// Convection law.
+    pub convection: Arc<dyn Convection>,
+    /// Outer boundary condition.
+    pub atmosphere: Atmosphere,
+}
+
+/// The laws of a [`PhysicsSet`] by name, for output (JSON `physics` object).
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct PhysicsDescription {
+    /// Preset the set started from.
+    pub preset: String,
+    /// Equation of state, with parameters.
+    pub eos: String,
+    /// Opacity law, with parameters.
+    pub opacity: String,
+    /// Energy generation law, with parameters.
+    pub rates: String,
+    /// Convection law, with parameters.
+    pub convection: String,
+    /// Outer boundary condition.
+    pub atmosphere: String,
+}
+
+impl PhysicsSet {
+    /// The `analytic` set, exactly: ideal gas + radiation, kappa = 0.2(1+X) + Kramers
+    /// (4.34e25 Z + 3.68e22 (1-Z))(1+X) rho T^-3.5, the textbook pp and CNO rates without
+    /// screening, adiabatic convection, and the one-point photosphere.
+    pub fn analytic() -> Self {
+        Self {
+            preset: "analytic".to_string(),
+            eos: Arc::new(eos::IdealGas),
+            opacity: Arc::new(opacity::AnalyticOpacity::default()),
+            rates: Arc::new(nuclear::AnalyticRates::default()),
+            convection: Arc::new(convection::Adiabatic),
+            atmosphere: Atmosphere::Photosphere,
+        }
+    }
+
+    /// Every law by name with its parameters.
+    pub fn describe(&self) -> PhysicsDescription {
+        PhysicsDescription {
+            preset: self.preset.clone(),
+            eos: self.eos.name().to_string(),
+            opacity: self.opacity.name(),
+            rates: self.rates.name(),
+            convection: self.convection.name(),
+            atmosphere: self.atmosphere.name().to_string(),
+        }
+    }
+}

@@ -1,0 +1,38 @@
+//! Rosseland-mean opacity laws, kappa(rho, T, X, Z) in cm^2 g^-1.
+
+use super::composition::Composition;
+use crate::error::PhysicsError;
+
+pub mod analytic;
+
+pub use analytic::AnalyticOpacity;
+
+/// An opacity law.
+pub trait Opacity: Send + Sync + std::fmt::Debug {
+    /// The law's name as a user selects it, with its parameters (e.g. `kramers:guillotine=1`).
+    fn name(&self) -> String;
+
+    /// Rosseland-mean opacity kappa, cm^2 g^-1, at density `rho_g_cm3` and temperature
+    /// `temperature_k`. Errors (never NaN) outside the law's domain.
+    fn kappa(
+        &self,
+        rho_g_cm3: f64,
+        temperature_k: f64,
+        comp: &Composition,
+    ) -> Result<f64, PhysicsError>;
+}
+
+/// Check that (rho, T) is finite and positive; every law starts with this.
+pub fn check_point(law: &str, rho_g_cm3: f64, temperature_k: f64) -> Result<(), PhysicsError> {
+    if rho_g_cm3.is_finite() && temperature_k.is_finite() && rho_g_cm3 > 0.0 && temperature_k > 0.0
+    {
+        Ok(())
+    } else {
+        Err(PhysicsError::new(
+            law,
+            "density and temperature must be finite and positive",
+            rho_g_cm3,
+            temperature_k,
+        ))
+    }
+}

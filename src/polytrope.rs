@@ -1,0 +1,1 @@
+//! Lane–Emden polytropes (placeholder module; filled in by the polytrope work).

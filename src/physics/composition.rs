@@ -25,14 +25,14 @@ impl Composition {
     ///
     /// Errors unless 0 <= X, 0 <= Z and X + Z <= 1 (all finite).
     pub fn new(x: f64, z: f64) -> Result<Self> {
-        if !x.is_finite() || x < 0.0 || x > 1.0 {
+        if !(0.0..=1.0).contains(&x) {
             return Err(Error::invalid(
                 "--x",
                 x,
                 "hydrogen mass fraction X must be in [0, 1], e.g. --x 0.70",
             ));
         }
-        if !z.is_finite() || z < 0.0 || z > 1.0 {
+        if !(0.0..=1.0).contains(&z) {
             return Err(Error::invalid(
                 "--z",
                 z,

@@ -7,8 +7,11 @@
 
 pub mod constants;
 pub mod error;
+pub mod numerics;
 pub mod output;
 pub mod physics;
 pub mod polytrope;
+pub mod reference;
+pub mod structure;
 
 pub use error::{Error, Result};

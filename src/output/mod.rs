@@ -3,3 +3,4 @@
 pub mod atomic;
 
 pub use atomic::write_atomically;
+pub mod zams;

@@ -1,0 +1,4 @@
+//! General numerical tools that know nothing about stars.
+
+pub mod newton;
+pub mod scalar;

@@ -1,0 +1,258 @@
+//! A damped Newton iteration for small square nonlinear systems F(u) = 0.
+//!
+//! The driver knows nothing about what F means: a [`NewtonProblem`] supplies the residual and
+//! its Jacobian; the driver takes the Newton step J du = -F, limits it to a trust length, and
+//! halves it (backtracking line search) until the residual's max-norm decreases. It records the
+//! history of every iteration so that a caller can show why a solve failed.
+
+use crate::error::Error;
+use nalgebra::{SMatrix, SVector};
+
+/// A square system F(u) = 0 of dimension `N`.
+pub trait NewtonProblem<const N: usize> {
+    /// F(u). May fail (for a trial outside where F is defined).
+    fn residual(&mut self, u: &SVector<f64, N>) -> Result<SVector<f64, N>, Error>;
+    /// dF/du at `u`, where F(u) = `f`.
+    fn jacobian(
+        &mut self,
+        u: &SVector<f64, N>,
+        f: &SVector<f64, N>,
+    ) -> Result<SMatrix<f64, N, N>, Error>;
+    /// Told the current residual norm before each iteration, so that a problem can tighten its
+    /// own accuracy as the iteration converges. Returns true if it changed how F is computed
+    /// (the driver then evaluates F again at the current point).
+    fn adapt_to_residual(&mut self, _norm: f64) -> bool {
+        false
+    }
+}
+
+/// Settings of the iteration. Defaults: tolerance 1e-8 on the max-norm of F, 60 iterations,
+/// trust length 0.5 (max-norm of a step), 12 halvings.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct NewtonSettings {
+    /// Converged when max |F_i| is below this.
+    pub tolerance: f64,
+    /// Maximum number of Newton iterations.
+    pub max_iterations: usize,
+    /// Largest max-norm of one step.
+    pub max_step: f64,
+    /// Maximum halvings of a step in the line search.
+    pub max_halvings: usize,
+}
+
+impl Default for NewtonSettings {
+    fn default() -> Self {
+        Self {
+            tolerance: 1e-8,
+            max_iterations: 60,
+            max_step: 0.5,
+            max_halvings: 12,
+        }
+    }
+}
+
+/// One iteration of the history.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct IterationRecord {
+    /// Max-norm of F at the start of the iteration.
+    pub residual_norm: f64,
+    /// Fraction of the (trust-limited) Newton step taken.
+    pub step_length: f64,
+}
+
+/// What the iteration did.
+#[derive(Debug, Clone, PartialEq)]
+pub struct NewtonReport<const N: usize> {
+    /// The last accepted point (the solution when `converged`).
+    pub solution: SVector<f64, N>,
+    /// Max-norm of F there.
+    pub residual_norm: f64,
+    /// Iterations done.
+    pub iterations: usize,
+    /// Whether the tolerance was met.
+    pub converged: bool,
+    /// Why it stopped, when not converged.
+    pub failure: Option<String>,
+    /// Every iteration.
+    pub history: Vec<IterationRecord>,
+}
+
+fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
+    v.iter().fold(0.0f64, |a, x| {
+        if x.is_nan() {
+            f64::INFINITY
+        } else {
+            a.max(x.abs())
+        }
+    })
+}
+
+/// Run the damped Newton iteration from `u0`.
+pub fn solve<const N: usize, P: NewtonProblem<N>>(
+    problem: &mut P,
+    u0: SVector<f64, N>,
+    settings: &NewtonSettings,
+) -> NewtonReport<N> {
+    let mut report = NewtonReport {
+        solution: u0,
+        residual_norm: f64::INFINITY,
+        iterations: 0,
+        converged: false,
+        failure: None,
+        history: Vec::new(),
+    };
+    let mut u = u0;
+    let mut f = match problem.residual(&u) {
+        Ok(f) => f,
+        Err(e) => {
+            report.failure = Some(format!("the starting guess cannot be integrated: {e}"));
+            return report;
+        }
+    };
+    let mut norm = max_norm(&f);
+    report.residual_norm = norm;
+    while report.iterations < settings.max_iterations {
+        if problem.adapt_to_residual(norm) {
+            match problem.residual(&u) {
+                Ok(g) => {
+                    f = g;
+                    norm = max_norm(&f);
+                    report.residual_norm = norm;
+                }
+                Err(e) => {
+                    report.failure = Some(format!("re-evaluation at higher accuracy failed: {e}"));
+                    return report;
+                }
+            }
+        }
+        if norm < settings.tolerance {
+            report.converged = true;
+            return report;
+        }
+        report.iterations += 1;
+        let jac = match problem.jacobian(&u, &f) {
+            Ok(j) => j,
+            Err(e) => {
+                report.failure = Some(format!("Jacobian failed: {e}"));
+                return report;
+            }
+        };
+        // Solved as a dynamic matrix: once per iteration, so the allocation does not matter.
+        let dense = nalgebra::DMatrix::from_fn(N, N, |i, j| jac[(i, j)]);
+        let rhs = nalgebra::DVector::from_fn(N, |i, _| -f[i]);
+        let Some(solution) = dense.lu().solve(&rhs) else {
+            report.failure = Some("singular Jacobian".to_string());
+            return report;
+        };
+        let mut du = SVector::<f64, N>::from_fn(|i, _| solution[i]);
+        let step_norm = max_norm(&du);
+        if !step_norm.is_finite() {
+            report.failure = Some("non-finite Newton step".to_string());
+            return report;
+        }
+        if step_norm > settings.max_step {
+            du *= settings.max_step / step_norm;
+        }
+        let mut lambda = 1.0;
+        let mut accepted = None;
+        for _ in 0..=settings.max_halvings {
+            let trial = u + du * lambda;
+            if let Ok(ft) = problem.residual(&trial) {
+                let nt = max_norm(&ft);
+                if nt < norm {
+                    accepted = Some((trial, ft, nt));
+                    break;
+                }
+            }
+            lambda *= 0.5;
+        }
+        report.history.push(IterationRecord {
+            residual_norm: norm,
+            step_length: if accepted.is_some() { lambda } else { 0.0 },
+        });
+        match accepted {
+            Some((trial, ft, nt)) => {
+                u = trial;
+                f = ft;
+                norm = nt;
+                report.solution = u;
+                report.residual_norm = norm;
+            }
+            None => {
+                report.failure = Some(format!(
+                    "stalled: no step along the Newton direction reduces the mismatch {norm:.3e}"
+                ));
+                return report;
+            }
+        }
+    }
+    if norm < settings.tolerance {
+        report.converged = true;
+    } else {
+        report.failure = Some(format!(
+            "reached the limit of {} iterations",
+            settings.max_iterations
+        ));
+    }
+    report
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// Rosenbrock-like 2-D system with root (1, 1): F = (10 (u1 - u0^2), 1 - u0).
+    struct Banana;
+    impl NewtonProblem<2> for Banana {
+        fn residual(&mut self, u: &SVector<f64, 2>) -> Result<SVector<f64, 2>, Error> {
+            Ok(SVector::<f64, 2>::new(
+                10.0 * (u[1] - u[0] * u[0]),
+                1.0 - u[0],
+            ))
+        }
+        fn jacobian(
+            &mut self,
+            u: &SVector<f64, 2>,
+            _f: &SVector<f64, 2>,
+        ) -> Result<SMatrix<f64, 2, 2>, Error> {
+            Ok(SMatrix::<f64, 2, 2>::new(-20.0 * u[0], 10.0, -1.0, 0.0))
+        }
+    }
+
+    #[test]
+    fn converges_on_a_curved_valley() {
+        let settings = NewtonSettings {
+            max_step: 10.0,
+            ..Default::default()
+        };
+        let r = solve(&mut Banana, SVector::<f64, 2>::new(-1.2, 1.0), &settings);
+        assert!(r.converged, "{r:?}");
+        assert!((r.solution[0] - 1.0).abs() < 1e-8 && (r.solution[1] - 1.0).abs() < 1e-8);
+    }
+
+    /// F(u) = u^2 + 1 has no real root: the driver must stop and say so, not loop.
+    struct NoRoot;
+    impl NewtonProblem<1> for NoRoot {
+        fn residual(&mut self, u: &SVector<f64, 1>) -> Result<SVector<f64, 1>, Error> {
+            Ok(SVector::<f64, 1>::new(u[0] * u[0] + 1.0))
+        }
+        fn jacobian(
+            &mut self,
+            u: &SVector<f64, 1>,
+            _f: &SVector<f64, 1>,
+        ) -> Result<SMatrix<f64, 1, 1>, Error> {
+            Ok(SMatrix::<f64, 1, 1>::new(2.0 * u[0]))
+        }
+    }
+
+    #[test]
+    fn reports_failure_without_a_root() {
+        let r = solve(
+            &mut NoRoot,
+            SVector::<f64, 1>::new(0.5),
+            &NewtonSettings::default(),
+        );
+        assert!(!r.converged);
+        assert!(r.failure.is_some());
+    }
+}

@@ -1,0 +1,212 @@
+//! A converged model: the profile on a mesh and the summary quantities with their checks.
+
+use super::equations::{
+    local_physics, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL, LN_P, LN_R, LN_T, LUM,
+};
+use super::legs::{integrate_through, step_points, Leg, LegContext, LegMonitor};
+use super::{centre, surface, ZamsSettings};
+use crate::constants::{G_CGS, L_SUN_ERG_S, R_SUN_CM, YEAR_S};
+use crate::error::Result;
+use crate::numerics::newton::{IterationRecord, NewtonReport};
+use crate::output::zams::{ProfileRow, ZamsSummary};
+use crate::structure::Unknowns;
+
+/// A converged ZAMS model.
+#[derive(Debug, Clone)]
+pub struct ZamsModel {
+    /// Summary quantities.
+    pub summary: ZamsSummary,
+    /// Profile rows, centre first.
+    pub profile: Vec<ProfileRow>,
+    /// The converged unknowns (ln P_c, ln T_c, ln R, ln L).
+    pub unknowns: Unknowns,
+    /// Newton history.
+    pub history: Vec<IterationRecord>,
+}
+
+/// Points at which to record a leg: `count` values of x spread like the integrator's own steps
+/// (dense where the solution changes fast), always including both ends.
+fn mesh_like_steps(steps: &[f64], count: usize) -> Vec<f64> {
+    let n = steps.len();
+    if n < 2 || count < 2 {
+        return steps.to_vec();
+    }
+    (0..count)
+        .map(|j| {
+            let s = j as f64 * (n - 1) as f64 / (count - 1) as f64;
+            let i = (s.floor() as usize).min(n - 2);
+            let f = s - i as f64;
+            steps[i] + f * (steps[i + 1] - steps[i])
+        })
+        .collect()
+}
+
+fn row(ctx: &LegContext, leg: Leg, x: f64, y: &State, radius_cm: f64) -> Result<ProfileRow> {
+    let (m, _) = leg.mass_and_jacobian(x, ctx.total_mass_g);
+    let r = y[LN_R].exp();
+    let p = y[LN_P].exp();
+    let t = y[LN_T].exp();
+    let l = leg.luminosity_form(ctx).luminosity_erg_s(y[LUM]);
+    let local = local_physics(ctx.physics, ctx.composition, m, r, p, t, l / m)?;
+    let rho = local.eos.density_g_cm3;
+    let g = G_CGS * m / (r * r);
+    let cs = (local.eos.gamma1 * p / rho).sqrt();
+    Ok(ProfileRow {
+        mass_g: m,
+        m_over_m: m / ctx.total_mass_g,
+        radius_cm: r,
+        r_over_r: r / radius_cm,
+        pressure_dyn_cm2: p,
+        temperature_k: t,
+        density_g_cm3: rho,
+        luminosity_erg_s: l,
+        eps_pp_erg_g_s: local.rate.eps_pp_erg_g_s,
+        eps_cno_erg_g_s: local.rate.eps_cno_erg_g_s,
+        opacity_cm2_g: local.opacity_cm2_g,
+        nabla_rad: local.nabla_rad,
+        nabla_ad: local.eos.nabla_ad,
+        nabla: local.nabla,
+        convective: u8::from(local.convective()),
+        mu: local.eos.mu,
+        gamma1: local.eos.gamma1,
+        brunt_n2_rad2_s2: g * g * rho * local.eos.delta * (local.eos.nabla_ad - local.nabla) / p,
+        lamb_l1_rad_s: 2f64.sqrt() * cs / r,
+        lamb_l2_rad_s: 6f64.sqrt() * cs / r,
+    })
+}
+
+/// Mass fractions of the convective core and of the convective envelope from the profile;
+/// boundaries are placed by linear interpolation of nabla_rad - nabla_ad between rows.
+pub fn convective_extent(profile: &[ProfileRow]) -> (f64, f64) {
+    let excess = |r: &ProfileRow| r.nabla_rad - r.nabla_ad;
+    let boundary = |a: &ProfileRow, b: &ProfileRow| {
+        let (ea, eb) = (excess(a), excess(b));
+        let f = if ea != eb { ea / (ea - eb) } else { 0.5 };
+        a.m_over_m + f.clamp(0.0, 1.0) * (b.m_over_m - a.m_over_m)
+    };
+    let Some(first) = profile.first() else {
+        return (0.0, 0.0);
+    };
+    let core = if first.convective == 1 {
+        profile
+            .windows(2)
+            .find(|w| w[0].convective == 1 && w[1].convective == 0)
+            .map(|w| boundary(&w[0], &w[1]))
+            .unwrap_or(1.0)
+    } else {
+        0.0
+    };
+    // The outermost convective zone, if its top lies within 1e-3 M of the surface.
+    let mut envelope = 0.0;
+    if let Some(top) = profile.iter().rposition(|r| r.convective == 1) {
+        let top_m = if top + 1 < profile.len() {
+            boundary(&profile[top], &profile[top + 1])
+        } else {
+            1.0
+        };
+        if top_m > 1.0 - 1e-3 {
+            let base = profile[..=top]
+                .windows(2)
+                .rposition(|w| w[0].convective == 0 && w[1].convective == 1)
+                .map(|i| boundary(&profile[i], &profile[i + 1]))
+                .unwrap_or(0.0);
+            envelope = 1.0 - base;
+        }
+    }
+    (core, envelope)
+}
+
+/// Integrate the converged legs once more on the output mesh and assemble the model.
+pub fn build(
+    settings: &ZamsSettings,
+    ctx: &LegContext,
+    report: &NewtonReport<4>,
+    rhs_before: u64,
+) -> Result<ZamsModel> {
+    let u = report.solution;
+    let monitor = LegMonitor::default();
+    let q = settings.fit_mass_fraction();
+    let start = centre::start(ctx, u[0], u[1])?;
+    let top = surface::start(ctx, u[2], u[3])?;
+    let x_fit_out = q.ln();
+    let x_fit_in = (1.0 - q).ln();
+    let steps_out = step_points(ctx, Leg::Outward, start.x0, x_fit_out, start.y0, &monitor)?;
+    let steps_in = step_points(ctx, Leg::Inward, top.x0, x_fit_in, top.y0, &monitor)?;
+    let total = settings.profile_points();
+    let n_out = ((total as f64 * steps_out.len() as f64 / (steps_out.len() + steps_in.len()) as f64).round() as usize)
+        .clamp(3, total - 3);
+    // The fitting point appears once (from the outward leg), so the inward leg gets one extra.
+    let n_in = total - n_out + 1;
+    let xs_out = mesh_like_steps(&steps_out, n_out);
+    let xs_in = mesh_like_steps(&steps_in, n_in);
+    let ys_out = integrate_through(ctx, Leg::Outward, &xs_out, start.y0, &monitor)?;
+    let ys_in = integrate_through(ctx, Leg::Inward, &xs_in, top.y0, &monitor)?;
+    let radius_cm = u[2].exp();
+    let luminosity = u[3].exp();
+    let mut profile = Vec::with_capacity(total);
+    for (x, y) in xs_out.iter().zip(&ys_out) {
+        profile.push(row(ctx, Leg::Outward, *x, y, radius_cm)?);
+    }
+    for (x, y) in xs_in.iter().zip(&ys_in).rev().skip(1) {
+        profile.push(row(ctx, Leg::Inward, *x, y, radius_cm)?);
+    }
+    let (out_end, in_end) = match (ys_out.last(), ys_in.last()) {
+        (Some(o), Some(i)) => (*o, *i),
+        _ => unreachable_profile()?,
+    };
+    // The inward leg accumulates its integrals with dm < 0: the star's total is out - in.
+    let integral = |k: usize| out_end[k] - in_end[k];
+    let eps_total = integral(INT_EPS) * ctx.scales.luminosity_erg_s;
+    let cno_total = integral(INT_CNO) * ctx.scales.luminosity_erg_s;
+    let thermal = integral(INT_THERMAL);
+    let gravity = integral(INT_GRAVITY);
+    let (core, envelope) = convective_extent(&profile);
+    let m = ctx.total_mass_g;
+    let comp = ctx.composition;
+    let centre_eos = start.centre.eos;
+    let summary = ZamsSummary {
+        mass_msun: settings.mass_msun(),
+        x: comp.x(),
+        z: comp.z(),
+        physics: ctx.physics.describe(),
+        converged: true,
+        iterations: report.iterations,
+        fit_mismatch: report.residual_norm,
+        fit_mass_fraction: q,
+        radius_rsun: Some(radius_cm / R_SUN_CM),
+        luminosity_lsun: Some(luminosity / L_SUN_ERG_S),
+        teff_k: Some(top.teff_k),
+        log_g_cgs: Some((G_CGS * m / (radius_cm * radius_cm)).log10()),
+        central_temperature_k: Some(u[1].exp()),
+        central_density_g_cm3: Some(centre_eos.density_g_cm3),
+        central_pressure_dyn_cm2: Some(u[0].exp()),
+        central_degeneracy: centre_eos
+            .degeneracy_psi
+            .is_finite()
+            .then_some(centre_eos.degeneracy_psi),
+        convective_core_mass_fraction: Some(core),
+        convective_envelope_mass_fraction: Some(envelope),
+        cno_luminosity_fraction: Some(cno_total / eps_total),
+        eddington_ratio: Some(luminosity / super::eddington_luminosity_erg_s(m, comp.x())),
+        kelvin_helmholtz_time_yr: Some(G_CGS * m * m / (radius_cm * luminosity) / YEAR_S),
+        dynamical_time_s: Some((radius_cm.powi(3) / (G_CGS * m)).sqrt()),
+        nuclear_time_yr: Some(super::nuclear_time_yr(m, comp.x(), luminosity)),
+        virial_residual: Some((thermal / gravity - 1.0).abs()),
+        luminosity_residual: Some((eps_total / luminosity - 1.0).abs()),
+        rhs_evaluations: rhs_before + monitor.evaluations.get(),
+    };
+    Ok(ZamsModel {
+        summary,
+        profile,
+        unknowns: u,
+        history: report.history.clone(),
+    })
+}
+
+fn unreachable_profile<T>() -> Result<T> {
+    Err(crate::error::Error::Integration {
+        leg: "profile",
+        mass_g: f64::NAN,
+        reason: "empty profile mesh".to_string(),
+    })
+}

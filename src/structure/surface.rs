@@ -1,0 +1,223 @@
+//! The outer boundary: photospheric pressure and temperature for a trial radius and luminosity.
+//!
+//! T_eff follows from L = 4 pi R^2 sigma T_eff^4. Two closures:
+//! - [`Atmosphere::Photosphere`]: T = T_eff and P = (2/3) G M / (R^2 kappa) at the photosphere,
+//!   with rho from the equation of state (the one-point Eddington closure, e.g. Kippenhahn &
+//!   Weigert 1990, §11.2; literally as written, without a radiation-pressure term).
+//! - [`Atmosphere::Grey`]: the grey Eddington atmosphere T^4 = (3/4) T_eff^4 (tau + 2/3), with
+//!   hydrostatic equilibrium dP/dtau = g / kappa integrated from tau0 = 1e-6 to tau = 2/3. At
+//!   tau0 the total pressure is P_rad(tau0) + tau0 (g / kappa - F / c), since in this atmosphere
+//!   dP_rad/dtau = F/c with F = sigma T_eff^4, and P_gas vanishes at tau = 0.
+//!
+//! The mass above the photosphere, (P - P_rad(0)) 4 pi R^2 / g, starts the inward leg at
+//! D0 = 1 - m/M; it is about 1e-11 of M for the Sun.
+
+use super::equations::{State, LN_P, LN_R, LN_T, LUM};
+use super::legs::LegContext;
+use crate::constants::{A_RAD_CGS, C_CM_S, G_CGS, SIGMA_SB_CGS};
+use crate::error::{Error, PhysicsError, Result};
+use crate::numerics::scalar::newton_1d;
+use crate::physics::Atmosphere;
+use ode_solvers::dop853::Dop853;
+use ode_solvers::dop_shared::OutputType;
+use ode_solvers::{System, Vector2};
+use std::cell::RefCell;
+use std::f64::consts::PI;
+
+/// Optical depth of the photosphere.
+pub const PHOTOSPHERE_TAU: f64 = 2.0 / 3.0;
+/// Optical depth where the grey atmosphere integration starts.
+pub const ATMOSPHERE_TOP_TAU: f64 = 1e-6;
+
+/// The start of the inward leg.
+#[derive(Debug, Clone, Copy)]
+pub struct SurfaceStart {
+    /// x0 = ln D0 = ln(1 - m_ph / M).
+    pub x0: f64,
+    /// State at the photosphere.
+    pub y0: State,
+    /// Effective temperature, K.
+    pub teff_k: f64,
+    /// Photospheric pressure, dyn cm^-2.
+    pub pressure_dyn_cm2: f64,
+}
+
+/// Effective temperature from L = 4 pi R^2 sigma T_eff^4, K.
+pub fn effective_temperature_k(radius_cm: f64, luminosity_erg_s: f64) -> f64 {
+    (luminosity_erg_s / (4.0 * PI * radius_cm * radius_cm * SIGMA_SB_CGS)).powf(0.25)
+}
+
+/// Total pressure at optical depth `tau` and temperature `t` where the layers above have the
+/// opacity found at that point: solves ln P = ln(p_rad + tau (g / kappa(rho(P, T), T) - flux/c)).
+fn column_pressure(
+    ctx: &LegContext,
+    tau: f64,
+    t: f64,
+    gravity: f64,
+    p_rad: f64,
+    flux_over_c: f64,
+) -> Result<f64> {
+    let comp = ctx.composition;
+    let physics = ctx.physics;
+    let residual = |ln_p: f64| -> std::result::Result<f64, PhysicsError> {
+        let p = ln_p.exp();
+        let eos = physics.eos.state_at_pressure(p, t, comp)?;
+        let kappa = physics.opacity.kappa(eos.density_g_cm3, t, comp)?;
+        let support = gravity / kappa - flux_over_c;
+        if support <= 0.0 {
+            return Err(PhysicsError::new(
+                "atmosphere",
+                format!(
+                    "radiative force exceeds gravity (kappa {kappa:.3e} cm^2/g, g {gravity:.3e})"
+                ),
+                eos.density_g_cm3,
+                t,
+            ));
+        }
+        Ok(ln_p - (p_rad + tau * support).ln())
+    };
+    // Start from electron-scattering-like support: kappa ~ 0.3 cm^2/g.
+    let s0 = (p_rad + tau * (gravity / 0.3).max(1e-30)).ln() + 0.5;
+    newton_1d(residual, s0, 1e-12, 80)
+        .map(f64::exp)
+        .map_err(|e| match e {
+            Some(pe) => Error::Physics(pe),
+            None => Error::Integration {
+                leg: "atmosphere",
+                mass_g: ctx.total_mass_g,
+                reason: format!(
+                    "no photospheric pressure found at T = {t:.1} K, g = {gravity:.3e} cm/s^2"
+                ),
+            },
+        })
+}
+
+struct GreyAtmosphere<'a> {
+    ctx: LegContext<'a>,
+    teff_k: f64,
+    gravity: f64,
+    error: RefCell<Option<PhysicsError>>,
+}
+
+impl GreyAtmosphere<'_> {
+    fn temperature(&self, tau: f64) -> f64 {
+        (0.75 * self.teff_k.powi(4) * (tau + 2.0 / 3.0)).powf(0.25)
+    }
+}
+
+impl System<f64, Vector2<f64>> for GreyAtmosphere<'_> {
+    /// x = ln tau, y = (ln P, ln tau): dln P / dln tau = tau g / (kappa P). ln tau is carried as
+    /// a state component because `Dop853` of ode_solvers 0.6.2 hands its twelfth stage the wrong
+    /// abscissa (see [`super::equations::X_COPY`]).
+    fn system(&self, _x: f64, y: &Vector2<f64>, dy: &mut Vector2<f64>) {
+        dy[1] = 1.0;
+        let tau = y[1].exp();
+        let p = y[0].exp();
+        let t = self.temperature(tau);
+        let kappa = self
+            .ctx
+            .physics
+            .eos
+            .state_at_pressure(p, t, self.ctx.composition)
+            .and_then(|s| {
+                self.ctx
+                    .physics
+                    .opacity
+                    .kappa(s.density_g_cm3, t, self.ctx.composition)
+            });
+        match kappa {
+            Ok(k) => dy[0] = tau * self.gravity / (k * p),
+            Err(e) => {
+                *self.error.borrow_mut() = Some(e);
+                dy[0] = 1e30;
+            }
+        }
+    }
+}
+
+/// Photospheric state for trial ln R, ln L: the start of the inward leg.
+pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
+    let r = ln_r.exp();
+    let l = ln_l.exp();
+    let teff = effective_temperature_k(r, l);
+    let gravity = G_CGS * ctx.total_mass_g / (r * r);
+    let (pressure, column_g_cm2) = match ctx.physics.atmosphere {
+        Atmosphere::Photosphere => {
+            let p = column_pressure(ctx, PHOTOSPHERE_TAU, teff, gravity, 0.0, 0.0)?;
+            (p, p / gravity)
+        }
+        Atmosphere::Grey => {
+            let flux_over_c = SIGMA_SB_CGS * teff.powi(4) / C_CM_S;
+            let atmosphere = GreyAtmosphere {
+                ctx: *ctx,
+                teff_k: teff,
+                gravity,
+                error: RefCell::new(None),
+            };
+            let p_rad = |tau: f64| A_RAD_CGS * atmosphere.temperature(tau).powi(4) / 3.0;
+            let t_top = atmosphere.temperature(ATMOSPHERE_TOP_TAU);
+            let p_top = column_pressure(
+                ctx,
+                ATMOSPHERE_TOP_TAU,
+                t_top,
+                gravity,
+                p_rad(ATMOSPHERE_TOP_TAU),
+                flux_over_c,
+            )?;
+            let p_rad_zero = p_rad(0.0);
+            let x0 = ATMOSPHERE_TOP_TAU.ln();
+            let x1 = PHOTOSPHERE_TAU.ln();
+            let mut stepper = Dop853::new(
+                atmosphere,
+                x0,
+                x1,
+                x1 - x0,
+                Vector2::new(p_top.ln(), x0),
+                ctx.tolerance,
+                ctx.tolerance,
+            );
+            stepper.set_output(OutputType::Sparse);
+            let result = stepper.integrate();
+            let end = stepper.y_out().last().map(|v| v[0]);
+            match (result, end) {
+                (Ok(_), Some(ln_p)) if ln_p.is_finite() => {
+                    let p = ln_p.exp();
+                    (p, (p - p_rad_zero).max(0.0) / gravity)
+                }
+                (r, _) => {
+                    return Err(Error::Integration {
+                        leg: "atmosphere",
+                        mass_g: ctx.total_mass_g,
+                        reason: format!("grey atmosphere failed at T_eff = {teff:.1} K ({r:?})"),
+                    })
+                }
+            }
+        }
+    };
+    let d0 = 4.0 * PI * r * r * column_g_cm2 / ctx.total_mass_g;
+    if !(d0 > 0.0 && d0 < 1e-2) {
+        return Err(Error::Integration {
+            leg: "atmosphere",
+            mass_g: ctx.total_mass_g,
+            reason: format!("implausible atmosphere mass fraction {d0:.3e}"),
+        });
+    }
+    let mut y0 = State::zeros();
+    y0[LN_R] = ln_r;
+    y0[LN_P] = pressure.ln();
+    y0[LN_T] = teff.ln();
+    y0[LUM] = ctx_luminosity_component(ctx, ln_l);
+    Ok(SurfaceStart {
+        x0: d0.ln(),
+        y0,
+        teff_k: teff,
+        pressure_dyn_cm2: pressure,
+    })
+}
+
+/// The inward leg's luminosity component at the photosphere.
+fn ctx_luminosity_component(ctx: &LegContext, ln_l: f64) -> f64 {
+    super::legs::Leg::Inward
+        .luminosity_form(ctx)
+        .component(ln_l.exp())
+}

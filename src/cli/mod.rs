@@ -1,6 +1,9 @@
 //! The command line: clap argument structs turned into validated library inputs.
 //! The library itself never depends on clap.
 
+pub mod common;
+pub mod zams;
+
 use clap::{Parser, Subcommand, ValueEnum};
 use starpoise::Result;
 
@@ -13,7 +16,10 @@ pub struct Cli {
 }
 
 #[derive(Debug, Subcommand)]
-enum Command {}
+enum Command {
+    /// Build one zero-age main-sequence model of the given mass.
+    Zams(zams::ZamsArgs),
+}
 
 /// Output format of a summary.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum, Default)]
@@ -27,7 +33,9 @@ pub enum Format {
 
 /// Run one parsed command line.
 pub fn run(cli: Cli) -> Result<()> {
-    match cli.command {}
+    match cli.command {
+        Command::Zams(args) => zams::run(args),
+    }
 }
 
 #[cfg(test)]

@@ -210,3 +210,42 @@ fn unreachable_profile<T>() -> Result<T> {
         reason: "empty profile mesh".to_string(),
     })
 }
+
+impl ZamsSummary {
+    /// The summary of a model that did not converge: identification and the iteration count,
+    /// with every physical field `None` (a non-converged model is never shown as a result).
+    pub fn not_converged(
+        settings: &ZamsSettings,
+        report: &NewtonReport<4>,
+        rhs_evaluations: u64,
+    ) -> Self {
+        ZamsSummary {
+            mass_msun: settings.mass_msun(),
+            x: settings.composition().x(),
+            z: settings.composition().z(),
+            physics: settings.physics().describe(),
+            converged: false,
+            iterations: report.iterations,
+            fit_mismatch: report.residual_norm,
+            fit_mass_fraction: settings.fit_mass_fraction(),
+            radius_rsun: None,
+            luminosity_lsun: None,
+            teff_k: None,
+            log_g_cgs: None,
+            central_temperature_k: None,
+            central_density_g_cm3: None,
+            central_pressure_dyn_cm2: None,
+            central_degeneracy: None,
+            convective_core_mass_fraction: None,
+            convective_envelope_mass_fraction: None,
+            cno_luminosity_fraction: None,
+            eddington_ratio: None,
+            kelvin_helmholtz_time_yr: None,
+            dynamical_time_s: None,
+            nuclear_time_yr: None,
+            virial_residual: None,
+            luminosity_residual: None,
+            rhs_evaluations,
+        }
+    }
+}

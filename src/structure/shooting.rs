@@ -104,7 +104,11 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
 
     /// Block structure: the outward end depends only on (ln P_c, ln T_c), the inward end only on
     /// (ln R, ln L), so each column costs one leg. Forward differences.
-    fn jacobian(&mut self, u: &Unknowns, _f: &SVector<f64, 4>) -> Result<SMatrix<f64, 4, 4>, Error> {
+    fn jacobian(
+        &mut self,
+        u: &Unknowns,
+        _f: &SVector<f64, 4>,
+    ) -> Result<SMatrix<f64, 4, 4>, Error> {
         let h = self.difference_step();
         let (out0, in0) = match self.last {
             Some((v, tol, o, i)) if v == *u && tol == self.ctx.tolerance => (o, i),

@@ -1,0 +1,366 @@
+//! `starpoise zams`: one zero-age main-sequence model.
+
+use super::common::{CompositionFlags, PhysicsFlags};
+use super::Format;
+use clap::{Args, ValueEnum};
+use serde::Deserialize;
+use starpoise::output::write_atomically;
+use starpoise::output::zams::{ProfileRow, ZamsSummary};
+use starpoise::physics::PhysicsOptions;
+use starpoise::structure::{solve_detailed, ZamsOutcome, ZamsSettings};
+use starpoise::{Error, Result};
+use std::path::{Path, PathBuf};
+
+/// Arguments of `starpoise zams`.
+#[derive(Debug, Args)]
+pub struct ZamsArgs {
+    /// Stellar mass in solar masses (0.05–150).
+    #[arg(long, value_name = "MSUN")]
+    mass: Option<f64>,
+    #[command(flatten)]
+    composition: CompositionFlags,
+    #[command(flatten)]
+    physics: PhysicsFlags,
+    /// Fitting mass as a fraction of M [default: 0.4].
+    #[arg(long, value_name = "FRACTION")]
+    fit_mass: Option<f64>,
+    /// Finest integrator tolerance [default: 1e-10].
+    #[arg(long, value_name = "TOL")]
+    tolerance: Option<f64>,
+    /// Output format of the summary.
+    #[arg(long, value_enum, default_value_t = Format::Text)]
+    format: Format,
+    /// Write the profile to this file (atomically).
+    #[arg(long, value_name = "FILE")]
+    profile: Option<PathBuf>,
+    /// Format of the profile file.
+    #[arg(long, value_enum, default_value_t = ProfileFormat::Csv)]
+    profile_format: ProfileFormat,
+    /// Number of profile rows [default: 400].
+    #[arg(long, value_name = "K")]
+    points: Option<usize>,
+    /// Read the model's settings from this JSON model file; flags override it.
+    #[arg(long, value_name = "FILE")]
+    model: Option<PathBuf>,
+    /// Starting guesses: central pressure (dyn/cm^2), central temperature (K), radius (R_sun),
+    /// luminosity (L_sun); all four together.
+    #[arg(long, value_names = ["PC", "TC", "RSUN", "LSUN"], num_args = 4)]
+    guess: Option<Vec<f64>>,
+}
+
+/// Profile file format.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum ProfileFormat {
+    /// Comma-separated values with a header row.
+    Csv,
+    /// A JSON array of row objects.
+    Json,
+}
+
+/// A model file: every setting `zams` takes, as JSON keys (all optional except `mass_msun`
+/// unless `--mass` is given). Unknown keys are refused.
+#[derive(Debug, Default, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct ModelFile {
+    /// Free-text name of the star (informational; accepted so files can label themselves).
+    #[allow(dead_code)]
+    pub name: Option<String>,
+    /// Free-text note (informational).
+    #[allow(dead_code)]
+    pub note: Option<String>,
+    /// Mass, M_sun.
+    pub mass_msun: Option<f64>,
+    /// Hydrogen mass fraction.
+    pub x: Option<f64>,
+    /// Metal mass fraction.
+    pub z: Option<f64>,
+    /// Preset: analytic or refined.
+    pub physics: Option<String>,
+    /// Equation of state law.
+    pub eos: Option<String>,
+    /// Opacity law.
+    pub opacity: Option<String>,
+    /// Energy generation law.
+    pub rates: Option<String>,
+    /// Convection law.
+    pub convection: Option<String>,
+    /// Mixing-length parameter.
+    pub alpha: Option<f64>,
+    /// Opacity factor.
+    pub opacity_factor: Option<f64>,
+    /// Rates factor.
+    pub rates_factor: Option<f64>,
+    /// Outer boundary.
+    pub atmosphere: Option<String>,
+    /// Fitting mass fraction.
+    pub fit_mass: Option<f64>,
+    /// Profile rows.
+    pub points: Option<usize>,
+}
+
+impl ModelFile {
+    /// Read and parse a model file; errors name the file and what is wrong.
+    pub fn read(path: &Path) -> Result<Self> {
+        let text = std::fs::read_to_string(path).map_err(|e| Error::BadFile {
+            path: path.display().to_string(),
+            reason: format!("cannot read the model file: {e}"),
+        })?;
+        serde_json::from_str(&text).map_err(|e| Error::BadFile {
+            path: path.display().to_string(),
+            reason: format!("not a valid model file (JSON object with keys such as mass_msun, x, z, physics): {e}"),
+        })
+    }
+
+    fn physics_options(&self) -> PhysicsOptions {
+        PhysicsOptions {
+            physics: self.physics.clone(),
+            eos: self.eos.clone(),
+            opacity: self.opacity.clone(),
+            rates: self.rates.clone(),
+            convection: self.convection.clone(),
+            alpha: self.alpha,
+            opacity_factor: self.opacity_factor,
+            rates_factor: self.rates_factor,
+            atmosphere: self.atmosphere.clone(),
+        }
+    }
+}
+
+impl ZamsArgs {
+    /// Validated settings: model file first, flags over it.
+    fn settings(&self) -> Result<ZamsSettings> {
+        let file = match &self.model {
+            Some(p) => ModelFile::read(p)?,
+            None => ModelFile::default(),
+        };
+        let mass = self.mass.or(file.mass_msun).ok_or_else(|| {
+            Error::invalid(
+                "--mass",
+                "(missing)",
+                "give the stellar mass in solar masses, e.g. --mass 1",
+            )
+        })?;
+        let comp = self.composition.composition(file.x, file.z)?;
+        let physics = file
+            .physics_options()
+            .overridden_by(&self.physics.options())
+            .build()?;
+        let mut settings = ZamsSettings::new(mass, comp, physics)?;
+        if let Some(q) = self.fit_mass.or(file.fit_mass) {
+            settings = settings.with_fit_mass_fraction(q)?;
+        }
+        if let Some(t) = self.tolerance {
+            settings = settings.with_tolerance(t)?;
+        }
+        if let Some(k) = self.points.or(file.points) {
+            settings = settings.with_profile_points(k)?;
+        }
+        if let Some(g) = &self.guess {
+            settings = settings.with_guess(g[0], g[1], g[2], g[3])?;
+        }
+        Ok(settings)
+    }
+}
+
+/// Run `starpoise zams`.
+pub fn run(args: ZamsArgs) -> Result<()> {
+    let settings = args.settings()?;
+    if let Some(p) = &args.profile {
+        check_writable(p)?;
+    }
+    match solve_detailed(&settings)? {
+        ZamsOutcome::Converged(model) => {
+            if let Some(path) = &args.profile {
+                write_profile(path, &model.profile, args.profile_format)?;
+            }
+            match args.format {
+                Format::Json => println!("{}", to_json(&model.summary)?),
+                Format::Text => print!("{}", text_summary(&model.summary)),
+            }
+            Ok(())
+        }
+        ZamsOutcome::NotConverged {
+            report,
+            rhs_evaluations,
+        } => {
+            eprintln!(
+                "starpoise: the {} M_sun model did not converge: {}",
+                settings.mass_msun(),
+                report.failure.clone().unwrap_or_default()
+            );
+            eprintln!("  iteration  mismatch      step");
+            for (i, h) in report.history.iter().enumerate() {
+                eprintln!(
+                    "  {:>9}  {:<12.4e}  {:.4}",
+                    i + 1,
+                    h.residual_norm,
+                    h.step_length
+                );
+            }
+            let u = report.solution;
+            eprintln!(
+                "  last guesses: P_c = {:.6e} dyn/cm^2, T_c = {:.6e} K, R = {:.6} R_sun, L = {:.6e} L_sun",
+                u[0].exp(),
+                u[1].exp(),
+                u[2].exp() / starpoise::constants::R_SUN_CM,
+                u[3].exp() / starpoise::constants::L_SUN_ERG_S
+            );
+            if args.format == Format::Json {
+                let failed = ZamsSummary::not_converged(&settings, &report, rhs_evaluations);
+                println!("{}", to_json(&failed)?);
+            }
+            Err(Error::NoConvergence {
+                iterations: report.iterations,
+                residual: report.residual_norm,
+                reason: report.failure.unwrap_or_default(),
+            })
+        }
+    }
+}
+
+/// Refuse an output path whose directory does not exist before spending time on the model.
+pub fn check_writable(path: &Path) -> Result<()> {
+    let dir = path
+        .parent()
+        .filter(|d| !d.as_os_str().is_empty())
+        .unwrap_or(Path::new("."));
+    if dir.is_dir() {
+        Ok(())
+    } else {
+        Err(Error::invalid(
+            "--profile",
+            path.display(),
+            "the directory of the output file must exist",
+        ))
+    }
+}
+
+fn to_json<T: serde::Serialize>(v: &T) -> Result<String> {
+    serde_json::to_string_pretty(v).map_err(|e| Error::Io {
+        path: "stdout".to_string(),
+        reason: e.to_string(),
+    })
+}
+
+/// Write profile rows as CSV (header from the field names) or JSON, atomically.
+pub fn write_profile(path: &Path, rows: &[ProfileRow], format: ProfileFormat) -> Result<()> {
+    write_atomically(path, |w| match format {
+        ProfileFormat::Csv => {
+            let mut csv = csv::Writer::from_writer(w);
+            for r in rows {
+                csv.serialize(r).map_err(std::io::Error::other)?;
+            }
+            csv.flush()
+        }
+        ProfileFormat::Json => {
+            serde_json::to_writer(&mut *w, rows).map_err(std::io::Error::other)?;
+            w.write_all(b"\n")
+        }
+    })
+}
+
+/// The summary as aligned text with units.
+pub fn text_summary(s: &ZamsSummary) -> String {
+    let f = |v: Option<f64>| v.unwrap_or(f64::NAN);
+    let mut out = String::new();
+    let mut line = |label: &str, value: String, unit: &str| {
+        out.push_str(&format!("{label:<34} {value:>14} {unit}\n"));
+    };
+    line("mass", format!("{:.4}", s.mass_msun), "M_sun");
+    line("X, Z", format!("{:.4}, {:.4}", s.x, s.z), "");
+    line(
+        "physics",
+        s.physics.preset.clone(),
+        &format!(
+            "(eos {}, opacity {}, rates {}, convection {}, atmosphere {})",
+            s.physics.eos,
+            s.physics.opacity,
+            s.physics.rates,
+            s.physics.convection,
+            s.physics.atmosphere
+        ),
+    );
+    line(
+        "converged",
+        format!("{}", s.converged),
+        &format!(
+            "({} Newton iterations, mismatch {:.1e}, fit at m/M = {})",
+            s.iterations, s.fit_mismatch, s.fit_mass_fraction
+        ),
+    );
+    line("radius", format!("{:.6}", f(s.radius_rsun)), "R_sun");
+    line(
+        "luminosity",
+        format!("{:.6e}", f(s.luminosity_lsun)),
+        "L_sun",
+    );
+    line("effective temperature", format!("{:.1}", f(s.teff_k)), "K");
+    line("log g", format!("{:.4}", f(s.log_g_cgs)), "(cgs)");
+    line(
+        "central temperature",
+        format!("{:.6e}", f(s.central_temperature_k)),
+        "K",
+    );
+    line(
+        "central density",
+        format!("{:.6e}", f(s.central_density_g_cm3)),
+        "g/cm^3",
+    );
+    line(
+        "central pressure",
+        format!("{:.6e}", f(s.central_pressure_dyn_cm2)),
+        "dyn/cm^2",
+    );
+    line(
+        "central degeneracy psi",
+        s.central_degeneracy
+            .map_or("n/a".to_string(), |v| format!("{v:.3}")),
+        "",
+    );
+    line(
+        "convective core",
+        format!("{:.4}", f(s.convective_core_mass_fraction)),
+        "of M",
+    );
+    line(
+        "convective envelope",
+        format!("{:.4}", f(s.convective_envelope_mass_fraction)),
+        "of M",
+    );
+    line(
+        "CNO share of L",
+        format!("{:.4}", f(s.cno_luminosity_fraction)),
+        "",
+    );
+    line(
+        "L / L_Edd (electron scattering)",
+        format!("{:.4e}", f(s.eddington_ratio)),
+        "",
+    );
+    line(
+        "Kelvin-Helmholtz time",
+        format!("{:.4e}", f(s.kelvin_helmholtz_time_yr)),
+        "yr",
+    );
+    line(
+        "dynamical time",
+        format!("{:.4e}", f(s.dynamical_time_s)),
+        "s",
+    );
+    line(
+        "nuclear (main-sequence) time",
+        format!("{:.4e}", f(s.nuclear_time_yr)),
+        "yr",
+    );
+    line(
+        "virial residual",
+        format!("{:.2e}", f(s.virial_residual)),
+        "",
+    );
+    line(
+        "luminosity residual",
+        format!("{:.2e}", f(s.luminosity_residual)),
+        "",
+    );
+    out
+}

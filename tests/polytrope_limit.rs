@@ -13,7 +13,8 @@ use starpoise::constants::{G_CGS, L_SUN_ERG_S, M_SUN_G, R_SUN_CM};
 use starpoise::error::PhysicsError;
 use starpoise::physics::convection::Adiabatic;
 use starpoise::physics::{
-    Atmosphere, Composition, EnergyGeneration, EnergyRate, EosState, EquationOfState, Opacity, PhysicsSet,
+    Atmosphere, Composition, EnergyGeneration, EnergyRate, EosState, EquationOfState, Opacity,
+    PhysicsSet,
 };
 use starpoise::structure::{solve, ZamsSettings};
 use std::f64::consts::PI;
@@ -57,7 +58,12 @@ impl EquationOfState for Polytropic {
     fn state(&self, rho: f64, t: f64, _c: &Composition) -> Result<EosState, PhysicsError> {
         Ok(self.at(rho, t))
     }
-    fn state_at_pressure(&self, p: f64, t: f64, _c: &Composition) -> Result<EosState, PhysicsError> {
+    fn state_at_pressure(
+        &self,
+        p: f64,
+        t: f64,
+        _c: &Composition,
+    ) -> Result<EosState, PhysicsError> {
         Ok(self.at((p / self.k).powf(self.n / (self.n + 1.0)), t))
     }
 }
@@ -84,7 +90,12 @@ impl EnergyGeneration for Uniform {
         "uniform".into()
     }
     fn rate(&self, _rho: f64, _t: f64, _c: &Composition) -> Result<EnergyRate, PhysicsError> {
-        Ok(EnergyRate { eps_pp_erg_g_s: 1.0, eps_cno_erg_g_s: 0.0, nu_pp: 0.0, nu_cno: 0.0 })
+        Ok(EnergyRate {
+            eps_pp_erg_g_s: 1.0,
+            eps_cno_erg_g_s: 0.0,
+            nu_pp: 0.0,
+            nu_cno: 0.0,
+        })
     }
 }
 
@@ -114,7 +125,10 @@ fn solve_polytrope(n: f64, xi1: f64, rho_ratio: f64) -> (f64, f64) {
     let model = solve(&settings).expect("polytrope converges");
     let radius = model.summary.radius_rsun.unwrap() * R_SUN_CM;
     let rho_c_model = model.summary.central_density_g_cm3.unwrap();
-    (radius / r, rho_c_model * 4.0 * PI * radius.powi(3) / (3.0 * m))
+    (
+        radius / r,
+        rho_c_model * 4.0 * PI * radius.powi(3) / (3.0 * m),
+    )
 }
 
 /// 1e-6: the tolerance asked of this limit; the finite photospheric pressure and the integrator
@@ -123,8 +137,15 @@ const LIMIT_TOLERANCE: f64 = 1e-6;
 
 fn check(n: f64, xi1: f64, rho_ratio: f64) {
     let (radius_ratio, ratio) = solve_polytrope(n, xi1, rho_ratio);
-    assert!((radius_ratio - 1.0).abs() < LIMIT_TOLERANCE, "n = {n}: R/R_LE - 1 = {:e}", radius_ratio - 1.0);
-    assert!((ratio / rho_ratio - 1.0).abs() < LIMIT_TOLERANCE, "n = {n}: rho_c/rho_mean = {ratio}, expected {rho_ratio}");
+    assert!(
+        (radius_ratio - 1.0).abs() < LIMIT_TOLERANCE,
+        "n = {n}: R/R_LE - 1 = {:e}",
+        radius_ratio - 1.0
+    );
+    assert!(
+        (ratio / rho_ratio - 1.0).abs() < LIMIT_TOLERANCE,
+        "n = {n}: rho_c/rho_mean = {ratio}, expected {rho_ratio}"
+    );
 }
 
 // n = 3 is left out on purpose: its mass does not depend on its radius (M ~ K^(3/2)), so for

@@ -18,6 +18,7 @@ pub struct Cli {
 #[derive(Debug, Subcommand)]
 enum Command {
     /// Build one zero-age main-sequence model of the given mass.
+    #[command(allow_negative_numbers = true)]
     Zams(zams::ZamsArgs),
 }
 

@@ -27,6 +27,9 @@ pub struct ZamsArgs {
     /// Finest integrator tolerance [default: 1e-10].
     #[arg(long, value_name = "TOL")]
     tolerance: Option<f64>,
+    /// Maximum Newton iterations [default: 60].
+    #[arg(long, value_name = "N")]
+    max_iterations: Option<usize>,
     /// Output format of the summary.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     format: Format,
@@ -154,6 +157,9 @@ impl ZamsArgs {
         }
         if let Some(k) = self.points.or(file.points) {
             settings = settings.with_profile_points(k)?;
+        }
+        if let Some(n) = self.max_iterations {
+            settings = settings.with_max_iterations(n)?;
         }
         if let Some(g) = &self.guess {
             settings = settings.with_guess(g[0], g[1], g[2], g[3])?;

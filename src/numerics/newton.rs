@@ -2,7 +2,8 @@
 //!
 //! The driver knows nothing about what F means: a [`NewtonProblem`] supplies the residual and
 //! its Jacobian; the driver takes the Newton step J du = -F, limits it to a trust length, and
-//! halves it (backtracking line search) until the residual's max-norm decreases. It records the
+//! halves it (backtracking line search) until the residual's max-norm decreases, or failing
+//! that its 2-norm (the Newton direction is a descent direction of |F|^2). It records the
 //! history of every iteration so that a caller can show why a solve failed.
 
 use crate::error::Error;
@@ -22,6 +23,12 @@ pub trait NewtonProblem<const N: usize> {
     /// own accuracy as the iteration converges. Returns true if it changed how F is computed
     /// (the driver then evaluates F again at the current point).
     fn adapt_to_residual(&mut self, _norm: f64) -> bool {
+        false
+    }
+    /// Asked when no step along the Newton direction helps: a problem that can compute F more
+    /// accurately (and so get a better Jacobian) does so and returns true; the driver then tries
+    /// again from the same point.
+    fn sharpen(&mut self) -> bool {
         false
     }
 }
@@ -75,6 +82,15 @@ pub struct NewtonReport<const N: usize> {
     pub failure: Option<String>,
     /// Every iteration.
     pub history: Vec<IterationRecord>,
+}
+
+fn two_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
+    let n = v.norm();
+    if n.is_nan() {
+        f64::INFINITY
+    } else {
+        n
+    }
 }
 
 fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
@@ -153,18 +169,30 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
         if step_norm > settings.max_step {
             du *= settings.max_step / step_norm;
         }
-        let mut lambda = 1.0;
+        // Backtracking: accept the first step length that lowers the max-norm of F; failing
+        // that, the first that lowers its 2-norm (the Newton direction always descends |F|^2,
+        // while the max-norm can stall on a curved valley).
+        let norm2 = two_norm(&f);
         let mut accepted = None;
-        for _ in 0..=settings.max_halvings {
-            let trial = u + du * lambda;
-            if let Ok(ft) = problem.residual(&trial) {
-                let nt = max_norm(&ft);
-                if nt < norm {
-                    accepted = Some((trial, ft, nt));
-                    break;
+        let mut lambda = 1.0;
+        'criteria: for use_two_norm in [false, true] {
+            lambda = 1.0;
+            for _ in 0..=settings.max_halvings {
+                let trial = u + du * lambda;
+                if let Ok(ft) = problem.residual(&trial) {
+                    let nt = max_norm(&ft);
+                    let better = if use_two_norm {
+                        two_norm(&ft) < norm2
+                    } else {
+                        nt < norm
+                    };
+                    if better {
+                        accepted = Some((trial, ft, nt));
+                        break 'criteria;
+                    }
                 }
+                lambda *= 0.5;
             }
-            lambda *= 0.5;
         }
         report.history.push(IterationRecord {
             residual_norm: norm,
@@ -178,6 +206,17 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
                 report.solution = u;
                 report.residual_norm = norm;
             }
+            None if problem.sharpen() => match problem.residual(&u) {
+                Ok(g) => {
+                    f = g;
+                    norm = max_norm(&f);
+                    report.residual_norm = norm;
+                }
+                Err(e) => {
+                    report.failure = Some(format!("re-evaluation at higher accuracy failed: {e}"));
+                    return report;
+                }
+            },
             None => {
                 report.failure = Some(format!(
                     "stalled: no step along the Newton direction reduces the mismatch {norm:.3e}"

@@ -59,6 +59,18 @@ impl PhysicsOptions {
                 ));
             }
         };
+        for (flag, value, allowed) in [
+            ("--eos", &self.eos, "ideal"),
+            ("--opacity", &self.opacity, "analytic"),
+            ("--rates", &self.rates, "analytic"),
+            ("--convection", &self.convection, "adiabatic"),
+        ] {
+            if let Some(v) = value {
+                if v != allowed {
+                    return Err(Error::invalid(flag, v, &format!("allowed: {allowed}")));
+                }
+            }
+        }
         if let Some(a) = &self.atmosphere {
             set.atmosphere = match a.as_str() {
                 "photosphere" => Atmosphere::Photosphere,

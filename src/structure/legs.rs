@@ -89,6 +89,39 @@ struct LegSystem<'a, 'b> {
     ctx: LegContext<'a>,
     leg: Leg,
     monitor: &'b LegMonitor,
+    watch: Option<&'b BoundaryWatch>,
+}
+
+/// Watches the Schwarzschild criterion at every accepted step and stops the integration at the
+/// first step across which nabla_rad - nabla_ad changes sign.
+#[derive(Debug, Default)]
+struct BoundaryWatch {
+    /// The last accepted step point and whether it was convective.
+    previous: Cell<Option<(State, bool)>>,
+    /// Set when a sign change was seen: the step point before it.
+    crossed_after: Cell<Option<State>>,
+}
+
+/// At most this many convective boundaries are located on one leg; past them (a noisy,
+/// marginally convective layer) the integrator carries on through.
+const MAX_BOUNDARIES_PER_LEG: usize = 16;
+
+impl LegSystem<'_, '_> {
+    /// nabla_rad - nabla_ad at state `y` (positive: convective), if the physics can be evaluated.
+    fn convective_excess(&self, y: &State) -> Option<f64> {
+        let (m, _) = self.leg.mass_and_jacobian(y[X_COPY], self.ctx.total_mass_g);
+        let form = self.leg.luminosity_form(&self.ctx);
+        derivatives_in_mass(
+            self.ctx.physics,
+            self.ctx.composition,
+            &self.ctx.scales,
+            m,
+            y,
+            form,
+        )
+        .ok()
+        .map(|(_, local)| local.nabla_rad - local.eos.nabla_ad)
+    }
 }
 
 impl System<f64, State> for LegSystem<'_, '_> {
@@ -126,26 +159,44 @@ impl System<f64, State> for LegSystem<'_, '_> {
             }
         }
     }
+
+    fn solout(&mut self, _x: f64, y: &State, _dy: &State) -> bool {
+        let Some(watch) = self.watch else {
+            return false;
+        };
+        let Some(excess) = self.convective_excess(y) else {
+            return false;
+        };
+        let convective = excess > 0.0;
+        let previous = watch.previous.replace(Some((*y, convective)));
+        match previous {
+            Some((before, was)) if was != convective => {
+                watch.crossed_after.set(Some(before));
+                true
+            }
+            _ => false,
+        }
+    }
 }
 
-/// Integrate `leg` from `x0` to `x1` starting at `y0`; return the end state.
-pub fn integrate(
+/// One run of the integrator from `x0` to `x1`; with a `watch` it may stop early at a
+/// convective boundary. Returns the last state reached.
+fn run(
     ctx: &LegContext,
     leg: Leg,
     x0: f64,
     x1: f64,
     y0: State,
     monitor: &LegMonitor,
+    watch: Option<&BoundaryWatch>,
 ) -> Result<State> {
-    if x1 <= x0 {
-        return Ok(y0);
-    }
     let mut y0 = y0;
     y0[X_COPY] = x0;
     let system = LegSystem {
         ctx: *ctx,
         leg,
         monitor,
+        watch,
     };
     let mut stepper = Dop853::new(system, x0, x1, x1 - x0, y0, ctx.tolerance, ctx.tolerance);
     // Sparse output: dense output of ode_solvers 0.6 compares |x|, which breaks for the negative
@@ -169,13 +220,105 @@ pub fn integrate(
         .last()
         .copied()
         .ok_or_else(|| failure("integrator produced no output".to_string()))?;
-    let x_end = stepper.x_out().last().copied().unwrap_or(x0);
-    if (x_end - x1).abs() > 1e-9 * (1.0 + x1.abs()) || !end.iter().all(|v| v.is_finite()) {
-        return Err(failure(format!(
-            "stopped at x = {x_end} before reaching {x1}"
-        )));
+    if !end.iter().all(|v| v.is_finite()) {
+        return Err(failure("non-finite state".to_string()));
     }
     Ok(end)
+}
+
+/// Integrate `leg` from `x0` to `x1` starting at `y0`; return the end state.
+///
+/// Convective boundaries (nabla_rad = nabla_ad) put a kink in nabla. The integration stops at
+/// the first step across one, locates the boundary by regula falsi (Illinois variant) on
+/// nabla_rad - nabla_ad of short re-integrations from the last step point, and restarts there,
+/// so that no step straddles a kink.
+pub fn integrate(
+    ctx: &LegContext,
+    leg: Leg,
+    x0: f64,
+    x1: f64,
+    y0: State,
+    monitor: &LegMonitor,
+) -> Result<State> {
+    if x1 <= x0 {
+        return Ok(y0);
+    }
+    let mut x = x0;
+    let mut y = y0;
+    for boundaries in 0..=MAX_BOUNDARIES_PER_LEG {
+        let watch = BoundaryWatch::default();
+        let watching = (boundaries < MAX_BOUNDARIES_PER_LEG).then_some(&watch);
+        let end = run(ctx, leg, x, x1, y, monitor, watching)?;
+        let Some(before) = watch.crossed_after.take() else {
+            if (end[X_COPY] - x1).abs() > 1e-9 * (1.0 + x1.abs()) {
+                return Err(Error::Integration {
+                    leg: leg.name(),
+                    mass_g: leg.mass_and_jacobian(end[X_COPY], ctx.total_mass_g).0,
+                    reason: format!("stopped at x = {} before reaching {x1}", end[X_COPY]),
+                });
+            }
+            return Ok(end);
+        };
+        y = locate_boundary(ctx, leg, &before, &end, monitor)?;
+        x = y[X_COPY];
+    }
+    run(ctx, leg, x, x1, y, monitor, None)
+}
+
+/// The state just past the convective boundary between step points `a` and `b` (where
+/// nabla_rad - nabla_ad has opposite signs), to 1e-10 in x.
+fn locate_boundary(
+    ctx: &LegContext,
+    leg: Leg,
+    a: &State,
+    b: &State,
+    monitor: &LegMonitor,
+) -> Result<State> {
+    let probe = LegSystem {
+        ctx: *ctx,
+        leg,
+        monitor,
+        watch: None,
+    };
+    let excess = |y: &State| probe.convective_excess(y).unwrap_or(f64::NAN);
+    let (xa, xb) = (a[X_COPY], b[X_COPY]);
+    let (mut lo, mut f_lo) = (xa, excess(a));
+    let (mut hi, mut y_hi, mut f_hi) = (xb, *b, excess(b));
+    if !(f_lo.is_finite() && f_hi.is_finite()) || f_lo.signum() == f_hi.signum() {
+        return Ok(*b);
+    }
+    let mut side = 0i8;
+    for _ in 0..60 {
+        if hi - lo <= 1e-10 * (1.0 + hi.abs()) {
+            break;
+        }
+        let mut x = (lo * f_hi - hi * f_lo) / (f_hi - f_lo);
+        if !(x > lo && x < hi) {
+            x = 0.5 * (lo + hi);
+        }
+        let y = run(ctx, leg, xa, x, *a, monitor, None)?;
+        let f = excess(&y);
+        if !f.is_finite() {
+            break;
+        }
+        if f.signum() == f_hi.signum() {
+            hi = x;
+            y_hi = y;
+            f_hi = f;
+            if side == 1 {
+                f_lo *= 0.5;
+            }
+            side = 1;
+        } else {
+            lo = x;
+            f_lo = f;
+            if side == -1 {
+                f_hi *= 0.5;
+            }
+            side = -1;
+        }
+    }
+    Ok(y_hi)
 }
 
 /// Integrate `leg` through the increasing points `xs` (the first is the start `x0` with state
@@ -218,6 +361,7 @@ pub fn step_points(
         ctx: *ctx,
         leg,
         monitor,
+        watch: None,
     };
     let mut stepper = Dop853::new(system, x0, x1, x1 - x0, y0, ctx.tolerance, ctx.tolerance);
     stepper.set_output(OutputType::Sparse);

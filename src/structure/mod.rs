@@ -23,6 +23,9 @@ pub use shooting::Unknowns;
 
 /// Smallest and largest mass accepted, M_sun.
 pub const MASS_RANGE_MSUN: (f64, f64) = (0.05, 150.0);
+/// Smallest mass for the `analytic` preset, M_sun: below it the photosphere is cooler than about
+/// 1900 K, where that set's full ionisation and Kramers opacity have no meaning.
+pub const ANALYTIC_MIN_MASS_MSUN: f64 = 0.7;
 /// Default fitting mass, as a fraction of M.
 pub const DEFAULT_FIT_MASS_FRACTION: f64 = 0.4;
 /// Default (finest) integrator tolerance, relative and absolute on the logarithmic variables.
@@ -56,6 +59,15 @@ impl ZamsSettings {
                 mass_msun,
                 &format!(
                     "the stellar mass must be between {lo} and {hi} solar masses, e.g. --mass 1"
+                ),
+            ));
+        }
+        if physics.preset == "analytic" && mass_msun < ANALYTIC_MIN_MASS_MSUN {
+            return Err(Error::invalid(
+                "--mass",
+                mass_msun,
+                &format!(
+                    "the analytic physics set (full ionisation, no H-minus opacity) covers {ANALYTIC_MIN_MASS_MSUN}–{hi} solar masses; use --physics refined below that"
                 ),
             ));
         }
@@ -146,6 +158,19 @@ impl ZamsSettings {
     pub fn with_unknowns_guess(mut self, u: Unknowns) -> Self {
         self.guess = Some(u);
         self
+    }
+
+    /// Maximum number of Newton iterations, in [1, 500].
+    pub fn with_max_iterations(mut self, n: usize) -> Result<Self> {
+        if !(1..=500).contains(&n) {
+            return Err(Error::invalid(
+                "--max-iterations",
+                n,
+                "the Newton iteration limit must be in [1, 500], e.g. 60",
+            ));
+        }
+        self.newton.max_iterations = n;
+        Ok(self)
     }
 
     /// Newton settings.

@@ -132,6 +132,16 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
 
     /// Integrate coarsely while far from the solution and tighten as the mismatch falls:
     /// tolerance = clamp(1e-3 x mismatch, floor, 1e-7).
+    /// Tighten the integrator 100x (down to the floor) so that the Jacobian is less noisy.
+    fn sharpen(&mut self) -> bool {
+        if self.ctx.tolerance > self.tolerance_floor {
+            self.ctx.tolerance = (self.ctx.tolerance * 1e-2).max(self.tolerance_floor);
+            true
+        } else {
+            false
+        }
+    }
+
     fn adapt_to_residual(&mut self, norm: f64) -> bool {
         let wanted = (1e-3 * norm).clamp(self.tolerance_floor, 1e-7);
         if wanted < 0.5 * self.ctx.tolerance {

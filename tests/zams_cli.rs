@@ -1,0 +1,249 @@
+//! The `zams` command as a user runs it: output keys, profile files, exit codes.
+
+mod common;
+use common::{json, scratch_dir, starpoise, stderr};
+
+/// Keys the summary must carry (issue "ZAMS models by fitting-point shooting").
+const SUMMARY_KEYS: [&str; 23] = [
+    "mass_msun",
+    "x",
+    "z",
+    "physics",
+    "converged",
+    "iterations",
+    "radius_rsun",
+    "luminosity_lsun",
+    "teff_k",
+    "log_g_cgs",
+    "central_temperature_k",
+    "central_density_g_cm3",
+    "central_pressure_dyn_cm2",
+    "central_degeneracy",
+    "convective_core_mass_fraction",
+    "convective_envelope_mass_fraction",
+    "cno_luminosity_fraction",
+    "eddington_ratio",
+    "kelvin_helmholtz_time_yr",
+    "dynamical_time_s",
+    "nuclear_time_yr",
+    "virial_residual",
+    "luminosity_residual",
+];
+
+#[test]
+fn json_summary_has_every_key_and_a_consistent_teff() {
+    let out = starpoise(&[
+        "zams",
+        "--mass",
+        "3",
+        "--physics",
+        "analytic",
+        "--format",
+        "json",
+    ]);
+    assert!(out.status.success(), "{}", stderr(&out));
+    let v = json(&out);
+    for k in SUMMARY_KEYS {
+        assert!(v.get(k).is_some(), "missing key {k}");
+    }
+    assert_eq!(v["converged"], true);
+    assert_eq!(v["physics"]["preset"], "analytic");
+    // T_eff printed must satisfy L = 4 pi R^2 sigma T^4 with the IAU nominal solar values:
+    // T_eff = 5772 K (L/L_sun)^(1/4) (R/R_sun)^(-1/2) (Prša et al. 2016, IAU 2015 B3).
+    let l = v["luminosity_lsun"].as_f64().unwrap();
+    let r = v["radius_rsun"].as_f64().unwrap();
+    let t = v["teff_k"].as_f64().unwrap();
+    let expected = 5772.0 * l.powf(0.25) / r.sqrt();
+    // The nominal 5772 K is itself rounded to 1 K from L_sun and R_sun: allow 2e-4.
+    assert!((t / expected - 1.0).abs() < 2e-4, "T_eff {t} vs {expected}");
+}
+
+#[test]
+fn text_summary_names_units() {
+    let out = starpoise(&["zams", "--mass", "2", "--physics", "analytic"]);
+    assert!(out.status.success(), "{}", stderr(&out));
+    let text = String::from_utf8_lossy(&out.stdout);
+    for needle in ["R_sun", "L_sun", "K", "g/cm^3", "dyn/cm^2", "converged"] {
+        assert!(text.contains(needle), "text output lacks {needle}:\n{text}");
+    }
+}
+
+#[test]
+fn profile_csv_has_the_documented_columns_and_rows() {
+    let dir = scratch_dir("zams-profile");
+    let path = dir.join("star.csv");
+    let out = starpoise(&[
+        "zams",
+        "--mass",
+        "1.5",
+        "--physics",
+        "analytic",
+        "--profile",
+        path.to_str().unwrap(),
+        "--points",
+        "120",
+    ]);
+    assert!(out.status.success(), "{}", stderr(&out));
+    let mut reader = csv::Reader::from_path(&path).unwrap();
+    let header: Vec<String> = reader
+        .headers()
+        .unwrap()
+        .iter()
+        .map(str::to_string)
+        .collect();
+    assert_eq!(header, starpoise::output::zams::PROFILE_COLUMNS.to_vec());
+    let rows: Vec<csv::StringRecord> = reader.records().map(|r| r.unwrap()).collect();
+    assert_eq!(rows.len(), 120);
+    let col = |name: &str| header.iter().position(|h| h == name).unwrap();
+    let m: Vec<f64> = rows
+        .iter()
+        .map(|r| r[col("m_over_M")].parse().unwrap())
+        .collect();
+    let p: Vec<f64> = rows
+        .iter()
+        .map(|r| r[col("pressure_dyn_cm2")].parse().unwrap())
+        .collect();
+    // Centre first, mass increasing, pressure decreasing (hydrostatic equilibrium).
+    assert!(m.windows(2).all(|w| w[1] > w[0]), "m/M not increasing");
+    assert!(p.windows(2).all(|w| w[1] < w[0]), "P not decreasing");
+    assert!(m[0] < 1e-6 && m[m.len() - 1] > 0.999_999);
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn profile_json_is_an_array_of_rows() {
+    let dir = scratch_dir("zams-profile-json");
+    let path = dir.join("star.json");
+    let out = starpoise(&[
+        "zams",
+        "--mass",
+        "4",
+        "--physics",
+        "analytic",
+        "--profile",
+        path.to_str().unwrap(),
+        "--profile-format",
+        "json",
+        "--points",
+        "50",
+    ]);
+    assert!(out.status.success(), "{}", stderr(&out));
+    let v: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(&path).unwrap()).unwrap();
+    let rows = v.as_array().unwrap();
+    assert_eq!(rows.len(), 50);
+    assert!(rows[0].get("brunt_n2_rad2_s2").is_some() && rows[0].get("m_over_M").is_some());
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// Every bad value exits 2, names the value, and writes no file.
+#[test]
+fn bad_input_exits_2_names_the_value_and_writes_nothing() {
+    let dir = scratch_dir("zams-bad");
+    let profile = dir.join("p.csv");
+    let missing_model = dir.join("none.json");
+    let bad_model = dir.join("bad.json");
+    std::fs::write(&bad_model, "{\"mass_msun\": 1, \"colour\": \"red\"}").unwrap();
+    let cases: Vec<(Vec<&str>, &str)> = vec![
+        (vec!["--mass", "0"], "--mass"),
+        (vec!["--mass", "-1"], "--mass"),
+        (vec!["--mass", "NaN"], "--mass"),
+        (vec!["--mass", "0.01"], "--mass"),
+        (vec!["--mass", "200"], "--mass"),
+        (vec!["--mass", "1", "--x", "0.9", "--z", "0.2"], "X + Z"),
+        (
+            vec!["--mass", "1", "--opacity", "no-such-law"],
+            "no-such-law",
+        ),
+        (vec!["--mass", "1", "--physics", "fancy"], "fancy"),
+        (vec!["--mass", "1", "--fit-mass", "1.5"], "--fit-mass"),
+        (vec!["--mass", "1", "--points", "3"], "--points"),
+        (
+            vec!["--model", missing_model.to_str().unwrap()],
+            "none.json",
+        ),
+        (vec!["--model", bad_model.to_str().unwrap()], "colour"),
+        (vec!["--mass", "0.5", "--physics", "analytic"], "analytic"),
+    ];
+    for (args, needle) in cases {
+        let mut all = vec!["zams"];
+        all.extend(args.iter().copied());
+        all.extend(["--profile", profile.to_str().unwrap()]);
+        let out = starpoise(&all);
+        assert_eq!(out.status.code(), Some(2), "{all:?}: {}", stderr(&out));
+        assert!(
+            stderr(&out).contains(needle),
+            "{all:?}: message lacks {needle}: {}",
+            stderr(&out)
+        );
+        assert!(!profile.exists(), "{all:?} wrote a file");
+    }
+    assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 1, "stray files");
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn model_file_is_read_and_flags_override_it() {
+    let dir = scratch_dir("zams-model");
+    let model = dir.join("star.json");
+    std::fs::write(
+        &model,
+        r#"{"name": "test star", "mass_msun": 2.0, "physics": "analytic", "x": 0.7, "z": 0.02}"#,
+    )
+    .unwrap();
+    let from_file = json(&starpoise(&[
+        "zams",
+        "--model",
+        model.to_str().unwrap(),
+        "--format",
+        "json",
+    ]));
+    assert_eq!(from_file["mass_msun"], 2.0);
+    let overridden = json(&starpoise(&[
+        "zams",
+        "--model",
+        model.to_str().unwrap(),
+        "--mass",
+        "3",
+        "--format",
+        "json",
+    ]));
+    assert_eq!(overridden["mass_msun"], 3.0);
+    assert_eq!(overridden["physics"]["preset"], "analytic");
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// A model that cannot converge exits 3, prints its history, never a result, and says
+/// `converged: false` in JSON.
+#[test]
+fn non_convergence_exits_3_with_history_and_no_result() {
+    let dir = scratch_dir("zams-noconv");
+    let profile = dir.join("p.csv");
+    // Two Newton iterations cannot converge from the default guess.
+    let out = starpoise(&[
+        "zams",
+        "--mass",
+        "1",
+        "--physics",
+        "analytic",
+        "--max-iterations",
+        "2",
+        "--format",
+        "json",
+        "--profile",
+        profile.to_str().unwrap(),
+    ]);
+    assert_eq!(out.status.code(), Some(3), "{}", stderr(&out));
+    let err = stderr(&out);
+    assert!(
+        err.contains("did not converge")
+            && err.contains("mismatch")
+            && err.contains("last guesses"),
+        "{err}"
+    );
+    let v = json(&out);
+    assert_eq!(v["converged"], false);
+    assert!(v["radius_rsun"].is_null() && v["luminosity_lsun"].is_null());
+    assert!(!profile.exists());
+    let _ = std::fs::remove_dir_all(&dir);
+}

@@ -1,6 +1,8 @@
 //! The command line: clap argument structs turned into validated library inputs.
 //! The library itself never depends on clap.
 
+mod polytrope;
+
 use clap::{Parser, Subcommand, ValueEnum};
 use starpoise::Result;
 
@@ -13,7 +15,10 @@ pub struct Cli {
 }
 
 #[derive(Debug, Subcommand)]
-enum Command {}
+enum Command {
+    /// Solve a Lane–Emden polytrope of index n, optionally scaled to a star.
+    Polytrope(polytrope::PolytropeArgs),
+}
 
 /// Output format of a summary.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum, Default)]
@@ -27,7 +32,9 @@ pub enum Format {
 
 /// Run one parsed command line.
 pub fn run(cli: Cli) -> Result<()> {
-    match cli.command {}
+    match cli.command {
+        Command::Polytrope(args) => polytrope::run(args),
+    }
 }
 
 #[cfg(test)]

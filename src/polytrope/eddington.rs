@@ -10,6 +10,7 @@
 //! (Eddington's quartic; Chandrasekhar 1939, *An Introduction to the Study of Stellar
 //! Structure*, ch. VI). With CODATA 2018 constants C = 2.990e-3.
 
+use super::star::{check_mass_msun, check_mu};
 use crate::constants::{A_RAD_CGS, G_CGS, K_B_ERG_K, M_SUN_G, M_U_G};
 use crate::error::{Error, Result};
 use std::f64::consts::PI;
@@ -32,22 +33,9 @@ pub fn eddington_constant(omega_3: f64) -> f64 {
 /// Errors: mass, mu or omega_3 not positive and finite ([`Error::InvalidInput`] naming
 /// `--mass`, `--mu` or `omega_3`).
 pub fn eddington_beta(mass_msun: f64, mu: f64, omega_3: f64) -> Result<f64> {
-    let positive = |x: f64| x.is_finite() && x > 0.0;
-    if !positive(mass_msun) {
-        return Err(Error::invalid(
-            "--mass",
-            mass_msun,
-            "the mass must be a positive number of solar masses",
-        ));
-    }
-    if !positive(mu) {
-        return Err(Error::invalid(
-            "--mu",
-            mu,
-            "the mean molecular weight must be a positive number, e.g. --mu 0.61",
-        ));
-    }
-    if !positive(omega_3) {
+    let mass_msun = check_mass_msun(mass_msun)?;
+    let mu = check_mu(mu)?;
+    if !(omega_3.is_finite() && omega_3 > 0.0) {
         return Err(Error::invalid(
             "omega_3",
             omega_3,

@@ -21,7 +21,9 @@ pub use series::LaneEmdenSeries;
 pub use solver::{
     first_zero, solve_lane_emden, FirstZero, LaneEmdenSettings, LaneEmdenSolution, ProfilePoint,
 };
-pub use star::{scale_to_star, PhysicalPoint, ScaledPolytrope, StarParameters, DEFAULT_MU};
+pub use star::{
+    scale_to_star, validate_scaling, PhysicalPoint, ScaledPolytrope, StarParameters, DEFAULT_MU,
+};
 
 use crate::error::{Error, Result};
 

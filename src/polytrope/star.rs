@@ -32,32 +32,14 @@ impl StarParameters {
     /// solar radii, `mu` the mean molecular weight in units of m_u. Each must be positive and
     /// finite, else [`Error::InvalidInput`] naming `--mass`, `--radius` or `--mu`.
     pub fn new(mass_msun: f64, radius_rsun: f64, mu: f64) -> Result<Self> {
-        let positive = |x: f64| x.is_finite() && x > 0.0;
-        if !positive(mass_msun) {
-            return Err(Error::invalid(
-                "--mass",
-                mass_msun,
-                "the mass must be a positive number of solar masses, e.g. --mass 1",
-            ));
-        }
-        if !positive(radius_rsun) {
-            return Err(Error::invalid(
+        Ok(Self {
+            mass_msun: check_mass_msun(mass_msun)?,
+            radius_rsun: check_positive(
                 "--radius",
                 radius_rsun,
                 "the radius must be a positive number of solar radii, e.g. --radius 1",
-            ));
-        }
-        if !positive(mu) {
-            return Err(Error::invalid(
-                "--mu",
-                mu,
-                "the mean molecular weight must be a positive number, e.g. --mu 0.61",
-            ));
-        }
-        Ok(Self {
-            mass_msun,
-            radius_rsun,
-            mu,
+            )?,
+            mu: check_mu(mu)?,
         })
     }
 
@@ -81,6 +63,54 @@ impl StarParameters {
     pub fn radius_cm(&self) -> f64 {
         self.radius_rsun * R_SUN_CM
     }
+}
+
+fn check_positive(name: &str, x: f64, allowed: &str) -> Result<f64> {
+    if x.is_finite() && x > 0.0 {
+        Ok(x)
+    } else {
+        Err(Error::invalid(name, x, allowed))
+    }
+}
+
+/// A mass in solar masses: positive and finite, else an error naming `--mass`.
+pub(crate) fn check_mass_msun(mass_msun: f64) -> Result<f64> {
+    check_positive(
+        "--mass",
+        mass_msun,
+        "the mass must be a positive number of solar masses, e.g. --mass 1",
+    )
+}
+
+/// A mean molecular weight: positive and finite, else an error naming `--mu`.
+pub(crate) fn check_mu(mu: f64) -> Result<f64> {
+    check_positive(
+        "--mu",
+        mu,
+        "the mean molecular weight must be a positive number, e.g. --mu 0.61",
+    )
+}
+
+/// Check that index `n` can be scaled to a star, with Eddington's standard model if
+/// `radiation`: with `radiation`, n = 3 (error names `--radiation`); and n < 5 (n = 5 has no
+/// finite radius; error names `--index`).
+pub fn validate_scaling(n: f64, radiation: bool) -> Result<()> {
+    if radiation && n != 3.0 {
+        return Err(Error::invalid(
+            "--radiation",
+            format!("with --index {n}"),
+            "Eddington's standard model is the n = 3 polytrope; use --index 3 or drop --radiation",
+        ));
+    }
+    if n.is_nan() || n >= 5.0 {
+        return Err(Error::invalid(
+            "--index",
+            n,
+            "a star of finite radius needs an index below 5 (n = 5 has no surface); \
+             choose n < 5 or drop --mass and --radius",
+        ));
+    }
+    Ok(())
 }
 
 /// One point of the physical profile, matching one [`super::ProfilePoint`].
@@ -137,6 +167,7 @@ pub fn scale_to_star(
     radiation: bool,
 ) -> Result<ScaledPolytrope> {
     let n = solution.index;
+    validate_scaling(n, radiation)?;
     let (Some(xi1), Some(slope1), Some(density_ratio), Some(w_n), Some(theta_n), Some(pe)) = (
         solution.xi1,
         solution.dtheta_dxi_at_xi1,
@@ -148,17 +179,9 @@ pub fn scale_to_star(
         return Err(Error::invalid(
             "--index",
             n,
-            "a star of finite radius needs an index below 5 (n = 5 has no surface); \
-             choose n < 5 or drop --mass and --radius",
+            "a star of finite radius needs an index below 5",
         ));
     };
-    if radiation && n != 3.0 {
-        return Err(Error::invalid(
-            "--radiation",
-            format!("with --index {n}"),
-            "Eddington's standard model is the n = 3 polytrope; use --index 3 or drop --radiation",
-        ));
-    }
     let star = StarParameters::new(star.mass_msun, star.radius_rsun, star.mu)?;
     let (m, r) = (star.mass_g(), star.radius_cm());
     let rho_c = density_ratio * 3.0 * m / (4.0 * PI * r.powi(3));

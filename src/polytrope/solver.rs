@@ -47,8 +47,9 @@ pub const MAX_POINTS: usize = 1_000_000;
 pub const DEFAULT_POINTS: usize = 200;
 /// Default outer end of the profile for n = 5, which has no zero.
 pub const DEFAULT_UNBOUNDED_XI_MAX: f64 = 20.0;
-/// The search for the first zero gives up beyond this xi (reached only for n within about
-/// 1e-3 of 5, where xi_1 grows without bound).
+/// The search for the first zero gives up beyond this xi. Near n = 5 the solver finds
+/// xi_1 ~ 17.6/(5 - n) (1758 at n = 4.99, 1.76e8 at n = 5 - 1e-7), so only indices within about
+/// 2e-8 of 5 reach it; they get an [`Error::Integration`] saying so.
 pub const XI_SEARCH_LIMIT: f64 = 1e9;
 /// Step limit of one integration leg.
 const MAX_STEPS: u32 = 1_000_000;

@@ -1,8 +1,9 @@
 //! The command line: clap argument structs turned into validated library inputs.
 //! The library itself never depends on clap.
 
-pub mod common;
-pub mod zams;
+mod common;
+mod polytrope;
+mod zams;
 
 use clap::{Parser, Subcommand, ValueEnum};
 use starpoise::Result;
@@ -19,7 +20,9 @@ pub struct Cli {
 enum Command {
     /// Build one zero-age main-sequence model of the given mass.
     #[command(allow_negative_numbers = true)]
-    Zams(zams::ZamsArgs),
+    Zams(Box<zams::ZamsArgs>),
+    /// Solve a Lane–Emden polytrope of index n, optionally scaled to a star.
+    Polytrope(polytrope::PolytropeArgs),
 }
 
 /// Output format of a summary.
@@ -35,7 +38,8 @@ pub enum Format {
 /// Run one parsed command line.
 pub fn run(cli: Cli) -> Result<()> {
     match cli.command {
-        Command::Zams(args) => zams::run(args),
+        Command::Zams(args) => zams::run(*args),
+        Command::Polytrope(args) => polytrope::run(args),
     }
 }
 

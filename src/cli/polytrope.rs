@@ -1,0 +1,128 @@
+//! `starpoise polytrope`: a Lane–Emden polytrope, optionally scaled to a star.
+
+use super::Format;
+use clap::Args;
+use starpoise::error::{Error, Result};
+use starpoise::output::polytrope::{write_profile_csv, PolytropeSummary};
+use starpoise::polytrope::{
+    scale_to_star, solve_lane_emden, validate_index, validate_scaling, LaneEmdenSettings,
+    StarParameters, DEFAULT_MU,
+};
+use std::path::PathBuf;
+
+/// Arguments of `starpoise polytrope`, as parsed.
+#[derive(Debug, Args)]
+pub struct PolytropeArgs {
+    /// Polytropic index n, a number in [0, 5].
+    #[arg(long, allow_negative_numbers = true)]
+    index: f64,
+    /// Scale to a star of this mass, in solar masses (needs --radius).
+    #[arg(long, requires = "radius", allow_negative_numbers = true)]
+    mass: Option<f64>,
+    /// Radius of the star, in nominal solar radii (needs --mass).
+    #[arg(long, requires = "mass", allow_negative_numbers = true)]
+    radius: Option<f64>,
+    /// Mean molecular weight for the central temperature [default: 0.61, fully ionised gas of
+    /// roughly solar composition] (needs --mass and --radius).
+    #[arg(long, requires = "mass", allow_negative_numbers = true)]
+    mu: Option<f64>,
+    /// Eddington's standard model: include radiation pressure with constant
+    /// beta = P_gas/P (n = 3 only; needs --mass and --radius).
+    #[arg(long)]
+    radiation: bool,
+    /// Output format of the summary on stdout.
+    #[arg(long, value_enum, default_value_t)]
+    format: Format,
+    /// Also write the profile as CSV to this file (written atomically).
+    #[arg(long, value_name = "FILE.csv")]
+    profile: Option<PathBuf>,
+    /// Number of profile points from the centre to the surface inclusive (2 to 1000000).
+    #[arg(long, default_value_t = 200)]
+    points: usize,
+}
+
+/// A checked `polytrope` request: every value validated before anything is computed or
+/// written.
+#[derive(Debug)]
+struct PolytropeRequest {
+    index: f64,
+    settings: LaneEmdenSettings,
+    star: Option<StarParameters>,
+    radiation: bool,
+    format: Format,
+    profile: Option<PathBuf>,
+}
+
+impl TryFrom<PolytropeArgs> for PolytropeRequest {
+    type Error = Error;
+
+    fn try_from(args: PolytropeArgs) -> Result<Self> {
+        let index = validate_index(args.index)?;
+        let settings = LaneEmdenSettings::default().with_points(args.points)?;
+        let star = match (args.mass, args.radius) {
+            (Some(mass), Some(radius)) => Some(StarParameters::new(
+                mass,
+                radius,
+                args.mu.unwrap_or(DEFAULT_MU),
+            )?),
+            (None, None) => None,
+            (Some(_), None) => {
+                return Err(Error::invalid(
+                    "--radius",
+                    "(missing)",
+                    "--mass needs --radius, e.g. --mass 1 --radius 1",
+                ))
+            }
+            (None, Some(_)) => {
+                return Err(Error::invalid(
+                    "--mass",
+                    "(missing)",
+                    "--radius needs --mass, e.g. --mass 1 --radius 1",
+                ))
+            }
+        };
+        if star.is_some() || args.radiation {
+            validate_scaling(index, args.radiation)?;
+        }
+        if args.radiation && star.is_none() {
+            return Err(Error::invalid(
+                "--radiation",
+                "without --mass and --radius",
+                "Eddington's standard model needs the star: add --mass and --radius",
+            ));
+        }
+        Ok(Self {
+            index,
+            settings,
+            star,
+            radiation: args.radiation,
+            format: args.format,
+            profile: args.profile,
+        })
+    }
+}
+
+/// Run `starpoise polytrope`: validate, solve, write the profile if asked, print the summary.
+pub fn run(args: PolytropeArgs) -> Result<()> {
+    let request = PolytropeRequest::try_from(args)?;
+    let solution = solve_lane_emden(request.index, &request.settings)?;
+    let scaled = match &request.star {
+        Some(star) => Some(scale_to_star(&solution, star, request.radiation)?),
+        None => None,
+    };
+    if let Some(path) = &request.profile {
+        write_profile_csv(path, &solution, scaled.as_ref())?;
+    }
+    let summary = PolytropeSummary::new(&solution, scaled.as_ref());
+    match request.format {
+        Format::Text => print!("{}", summary.to_text()),
+        Format::Json => {
+            let json = serde_json::to_string_pretty(&summary).map_err(|e| Error::Io {
+                path: "stdout".to_string(),
+                reason: e.to_string(),
+            })?;
+            println!("{json}");
+        }
+    }
+    Ok(())
+}

@@ -1,1 +1,0 @@
-//! Lane–Emden polytropes (placeholder module; filled in by the polytrope work).

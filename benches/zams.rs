@@ -5,22 +5,35 @@ use starpoise::physics::{Composition, PhysicsOptions};
 use starpoise::structure::{solve, ZamsSettings};
 
 fn settings(mass: f64, preset: &str) -> ZamsSettings {
-    let physics = PhysicsOptions { physics: Some(preset.to_string()), ..Default::default() }
-        .build()
-        .expect("preset exists");
-    ZamsSettings::new(mass, Composition::new(0.70, 0.02).expect("valid composition"), physics).expect("valid mass")
+    let physics = PhysicsOptions {
+        physics: Some(preset.to_string()),
+        ..Default::default()
+    }
+    .build()
+    .expect("preset exists");
+    ZamsSettings::new(
+        mass,
+        Composition::new(0.70, 0.02).expect("valid composition"),
+        physics,
+    )
+    .expect("valid mass")
 }
 
 fn zams_models(c: &mut Criterion) {
     let mut group = c.benchmark_group("zams");
     group.sample_size(20);
-    for (name, mass, preset) in [("analytic_10msun", 10.0, "analytic"), ("refined_1msun", 1.0, "refined")] {
+    for (name, mass, preset) in [
+        ("analytic_10msun", 10.0, "analytic"),
+        ("refined_1msun", 1.0, "refined"),
+    ] {
         let s = settings(mass, preset);
         if solve(&s).is_err() {
             eprintln!("skipping {name}: the model does not converge with this build");
             continue;
         }
-        group.bench_function(name, |b| b.iter(|| solve(black_box(&s)).expect("converges")));
+        group.bench_function(name, |b| {
+            b.iter(|| solve(black_box(&s)).expect("converges"))
+        });
     }
     group.finish();
 }

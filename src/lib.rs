@@ -7,6 +7,7 @@
 
 pub mod constants;
 pub mod error;
+pub mod grid;
 pub mod numerics;
 pub mod output;
 pub mod physics;

@@ -3,6 +3,7 @@
 
 mod common;
 mod polytrope;
+mod sequence;
 mod zams;
 
 use clap::{Parser, Subcommand, ValueEnum};
@@ -21,6 +22,11 @@ enum Command {
     /// Build one zero-age main-sequence model of the given mass.
     #[command(allow_negative_numbers = true)]
     Zams(Box<zams::ZamsArgs>),
+    /// Solve a grid of ZAMS models (masses x compositions x physics variants) in parallel.
+    #[command(allow_negative_numbers = true)]
+    Sequence(Box<sequence::SequenceArgs>),
+    /// Join the outputs of the shards of one grid into one table.
+    Merge(sequence::MergeArgs),
     /// Solve a Lane–Emden polytrope of index n, optionally scaled to a star.
     Polytrope(polytrope::PolytropeArgs),
 }
@@ -40,6 +46,8 @@ pub fn run(cli: Cli) -> Result<()> {
     match cli.command {
         Command::Zams(args) => zams::run(*args),
         Command::Polytrope(args) => polytrope::run(args),
+        Command::Sequence(args) => sequence::run(*args),
+        Command::Merge(args) => sequence::run_merge(args),
     }
 }
 

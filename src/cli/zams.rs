@@ -172,7 +172,7 @@ impl ZamsArgs {
 pub fn run(args: ZamsArgs) -> Result<()> {
     let settings = args.settings()?;
     if let Some(p) = &args.profile {
-        check_writable(p)?;
+        check_writable("--profile", p)?;
     }
     match solve_detailed(&settings)? {
         ZamsOutcome::Converged(model) => {
@@ -225,7 +225,7 @@ pub fn run(args: ZamsArgs) -> Result<()> {
 }
 
 /// Refuse an output path whose directory does not exist before spending time on the model.
-pub fn check_writable(path: &Path) -> Result<()> {
+pub fn check_writable(flag: &str, path: &Path) -> Result<()> {
     let dir = path
         .parent()
         .filter(|d| !d.as_os_str().is_empty())
@@ -234,7 +234,7 @@ pub fn check_writable(path: &Path) -> Result<()> {
         Ok(())
     } else {
         Err(Error::invalid(
-            "--profile",
+            flag,
             path.display(),
             "the directory of the output file must exist",
         ))

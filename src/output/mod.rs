@@ -4,4 +4,5 @@ pub mod atomic;
 pub mod polytrope;
 
 pub use atomic::write_atomically;
+pub mod sequence;
 pub mod zams;

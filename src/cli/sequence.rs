@@ -1,0 +1,266 @@
+//! `starpoise sequence`: a grid of ZAMS models (masses x compositions x variants), in parallel,
+//! optionally one deterministic shard of it; and `starpoise merge` for the shards.
+
+use super::common::PhysicsFlags;
+use clap::Args;
+use indicatif::{ProgressBar, ProgressStyle};
+use starpoise::grid::fits::{parse_ranges, power_law_fits, DEFAULT_FIT_RANGES};
+use starpoise::grid::merge::merge_shards;
+use starpoise::grid::run::{solve_points, RunSettings};
+use starpoise::grid::{parse_value_list, Grid, Shard, Variant};
+use starpoise::output::sequence::{read_rows, write_table, FitGroup, SequenceRow, SequenceTable};
+use starpoise::structure::DEFAULT_FIT_MASS_FRACTION;
+use starpoise::{Error, Result};
+use std::io::IsTerminal;
+use std::path::PathBuf;
+
+/// Arguments of `starpoise sequence`.
+#[derive(Debug, Args)]
+pub struct SequenceArgs {
+    /// Masses in M_sun: a list `0.5,1,2` or a range `FROM:TO:COUNT[:log|lin]`.
+    #[arg(long, value_name = "LIST")]
+    masses: String,
+    /// Hydrogen mass fractions (list or range) [default: 0.70].
+    #[arg(long, value_name = "LIST")]
+    x: Option<String>,
+    /// Metal mass fractions (list or range) [default: 0.02].
+    #[arg(long, value_name = "LIST")]
+    z: Option<String>,
+    #[command(flatten)]
+    physics: PhysicsFlags,
+    /// A physics variant NAME=SPEC (repeatable), e.g. hot=opacity-factor:2. Without any, the
+    /// base set alone, named `base`.
+    #[arg(long = "variant", value_name = "NAME=SPEC")]
+    variants: Vec<String>,
+    /// Fitting mass as a fraction of M [default: 0.4].
+    #[arg(long, value_name = "FRACTION")]
+    fit_mass: Option<f64>,
+    /// Write the table here: CSV, or JSON if the name ends in .json (atomically).
+    #[arg(long, value_name = "FILE")]
+    out: Option<PathBuf>,
+    /// Run only the K-th of N deterministic slices of the grid.
+    #[arg(long, value_name = "K/N")]
+    shard: Option<String>,
+    /// Worker threads [default: one per core].
+    #[arg(long, value_name = "T", default_value_t = 0)]
+    threads: usize,
+    /// Mass ranges of the power-law fits [default: 0.1-0.5,0.5-2,2-20,20-100].
+    #[arg(long, value_name = "RANGES")]
+    fit_ranges: Option<String>,
+    /// No progress bar.
+    #[arg(long)]
+    quiet: bool,
+}
+
+/// Parse the variants; none given means the base set.
+pub fn parse_variants(texts: &[String]) -> Result<Vec<Variant>> {
+    if texts.is_empty() {
+        return Ok(vec![Variant::base()]);
+    }
+    let variants = texts
+        .iter()
+        .map(|t| Variant::parse(t))
+        .collect::<Result<Vec<_>>>()?;
+    for (i, v) in variants.iter().enumerate() {
+        if variants[..i].iter().any(|w| w.name == v.name) {
+            return Err(Error::invalid("--variant", &v.name, "each variant needs its own name, e.g. --variant base= --variant hot=opacity-factor:2"));
+        }
+    }
+    Ok(variants)
+}
+
+fn progress(total: usize, quiet: bool) -> ProgressBar {
+    if quiet || !std::io::stderr().is_terminal() {
+        return ProgressBar::hidden();
+    }
+    let bar = ProgressBar::new(total as u64);
+    if let Ok(style) =
+        ProgressStyle::with_template("{bar:40} {pos}/{len} models  {elapsed_precise} (eta {eta})")
+    {
+        bar.set_style(style);
+    }
+    bar
+}
+
+/// Run `starpoise sequence`.
+pub fn run(args: SequenceArgs) -> Result<()> {
+    let masses = parse_value_list("--masses", &args.masses)?;
+    let xs = parse_value_list("--x", args.x.as_deref().unwrap_or("0.70"))?;
+    let zs = parse_value_list("--z", args.z.as_deref().unwrap_or("0.02"))?;
+    let variants = parse_variants(&args.variants)?;
+    let shard = args.shard.as_deref().map(Shard::parse).transpose()?;
+    let ranges = match &args.fit_ranges {
+        Some(t) => parse_ranges(t)?,
+        None => DEFAULT_FIT_RANGES.to_vec(),
+    };
+    let fit = args.fit_mass.unwrap_or(DEFAULT_FIT_MASS_FRACTION);
+    if let Some(path) = &args.out {
+        super::zams::check_writable("--out", path)?;
+    }
+    let grid = Grid::product(&args.physics.options(), variants, &masses, &xs, &zs, fit)?;
+    let points = grid.select(shard);
+    let bar = progress(points.len(), args.quiet);
+    let tick = || bar.inc(1);
+    let results = solve_points(
+        &grid,
+        &points,
+        &RunSettings {
+            threads: args.threads,
+            tolerance: None,
+        },
+        &tick,
+    )?;
+    bar.finish_and_clear();
+    let fingerprint = grid.fingerprint();
+    let rows: Vec<SequenceRow> = results
+        .iter()
+        .map(|r| SequenceRow::new(&grid, &fingerprint, r))
+        .collect();
+    let fits = if shard.is_none() {
+        fit_groups(&rows, &ranges)
+    } else {
+        Vec::new()
+    };
+    let table = SequenceTable {
+        grid_fingerprint: fingerprint,
+        shard: args.shard.clone(),
+        fits,
+        rows,
+    };
+    if let Some(path) = &args.out {
+        write_table(path, &table)?;
+    }
+    print!("{}", text_table(&table));
+    let failed = table.rows.iter().filter(|r| !r.converged()).count();
+    if failed > 0 {
+        eprintln!(
+            "starpoise: {failed} of {} models did not converge (see their status)",
+            table.rows.len()
+        );
+        return Err(Error::NoConvergence {
+            iterations: 0,
+            residual: f64::NAN,
+            reason: format!("{failed} models of the grid did not converge"),
+        });
+    }
+    Ok(())
+}
+
+/// Fits of L(M) and R(M) for each variant and composition, from the converged rows.
+fn fit_groups(rows: &[SequenceRow], ranges: &[(f64, f64)]) -> Vec<FitGroup> {
+    let mut groups: Vec<FitGroup> = Vec::new();
+    for r in rows {
+        if groups
+            .iter()
+            .any(|g| g.variant == r.variant && g.x == r.x && g.z == r.z)
+        {
+            continue;
+        }
+        let models: Vec<(f64, f64, f64)> = rows
+            .iter()
+            .filter(|s| s.variant == r.variant && s.x == r.x && s.z == r.z && s.converged())
+            .filter_map(|s| Some((s.mass_msun, s.luminosity_lsun?, s.radius_rsun?)))
+            .collect();
+        groups.push(FitGroup {
+            variant: r.variant.clone(),
+            x: r.x,
+            z: r.z,
+            ranges: power_law_fits(&models, ranges)
+                .into_iter()
+                .map(Into::into)
+                .collect(),
+        });
+    }
+    groups
+}
+
+fn opt(v: Option<f64>, width: usize, prec: usize) -> String {
+    v.map_or_else(
+        || format!("{:>width$}", "-"),
+        |x| format!("{x:>width$.prec$e}"),
+    )
+}
+
+/// The table for people: one line per model, then the fits.
+pub fn text_table(t: &SequenceTable) -> String {
+    let mut out = format!(
+        "{:<10} {:>6} {:>6} {:>9} {:>11} {:>10} {:>9} {:>10} {:>10} {:>6}  status\n",
+        "variant", "X", "Z", "M/M_sun", "L/L_sun", "R/R_sun", "Teff/K", "T_c/K", "rho_c", "M_cc"
+    );
+    for r in &t.rows {
+        out.push_str(&format!(
+            "{:<10} {:>6.4} {:>6.4} {:>9.4} {} {} {:>9} {} {} {:>6}  {}\n",
+            r.variant,
+            r.x,
+            r.z,
+            r.mass_msun,
+            opt(r.luminosity_lsun, 11, 4),
+            opt(r.radius_rsun, 10, 4),
+            r.teff_k.map_or("-".to_string(), |v| format!("{v:.0}")),
+            opt(r.central_temperature_k, 10, 4),
+            opt(r.central_density_g_cm3, 10, 3),
+            r.convective_core_mass_fraction
+                .map_or("-".to_string(), |v| format!("{v:.3}")),
+            r.status
+        ));
+    }
+    for g in &t.fits {
+        out.push_str(&format!(
+            "\npower-law fits, variant {} (X = {}, Z = {}): L ~ M^a, R ~ M^b\n",
+            g.variant, g.x, g.z
+        ));
+        for f in &g.ranges {
+            let e = |v: Option<f64>| v.map_or("-".to_string(), |v| format!("{v:.3}"));
+            out.push_str(&format!(
+                "  {:>7} - {:<7} M_sun  ({:>3} models)  a = {:>7}  b = {:>7}\n",
+                f.from_msun,
+                f.to_msun,
+                f.models,
+                e(f.luminosity_exponent),
+                e(f.radius_exponent)
+            ));
+        }
+    }
+    out
+}
+
+/// Arguments of `starpoise merge`.
+#[derive(Debug, Args)]
+pub struct MergeArgs {
+    /// Shard outputs of one grid (CSV or JSON, by extension).
+    #[arg(required = true, value_name = "FILES")]
+    files: Vec<PathBuf>,
+    /// The merged table (CSV, or JSON if it ends in .json), written atomically.
+    #[arg(long, value_name = "FILE")]
+    out: PathBuf,
+}
+
+/// Run `starpoise merge`.
+pub fn run_merge(args: MergeArgs) -> Result<()> {
+    super::zams::check_writable("--out", &args.out)?;
+    let files = args
+        .files
+        .iter()
+        .map(|p| Ok((p.display().to_string(), read_rows(p)?)))
+        .collect::<Result<Vec<_>>>()?;
+    let rows = merge_shards(files)?;
+    let fingerprint = rows
+        .first()
+        .map(|r| r.grid_fingerprint.clone())
+        .unwrap_or_default();
+    let fits = fit_groups(&rows, &DEFAULT_FIT_RANGES);
+    let table = SequenceTable {
+        grid_fingerprint: fingerprint,
+        shard: None,
+        fits,
+        rows,
+    };
+    write_table(&args.out, &table)?;
+    eprintln!(
+        "starpoise: merged {} grid points from {} files into {}",
+        table.rows.len(),
+        args.files.len(),
+        args.out.display()
+    );
+    Ok(())
+}

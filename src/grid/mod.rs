@@ -1,0 +1,118 @@
+//! Grids of models: mass x composition x physics variant, solved in parallel, sliced into
+//! deterministic shards for batch clusters.
+
+pub mod fits;
+pub mod masses;
+pub mod merge;
+pub mod run;
+pub mod shard;
+pub mod variant;
+
+use crate::error::Result;
+use crate::physics::{Composition, PhysicsOptions, PhysicsSet};
+pub use masses::parse_value_list;
+pub use shard::Shard;
+pub use variant::Variant;
+
+/// One model of a grid.
+#[derive(Debug, Clone)]
+pub struct GridPoint {
+    /// Position in the whole grid's canonical order (variant, Z, X, mass, each as given).
+    pub index: usize,
+    /// Index of the variant in [`Grid::variants`].
+    pub variant: usize,
+    /// Mass, M_sun.
+    pub mass_msun: f64,
+    /// Composition.
+    pub composition: Composition,
+}
+
+impl GridPoint {
+    /// The canonical key of the point, independent of where it stands in the input lists.
+    pub fn key(&self, grid: &Grid) -> String {
+        format!(
+            "{}|{:.15e}|{:.15e}|{:.15e}",
+            grid.variants[self.variant].name,
+            self.composition.z(),
+            self.composition.x(),
+            self.mass_msun
+        )
+    }
+}
+
+/// A product grid with the physics of each variant built.
+#[derive(Debug, Clone)]
+pub struct Grid {
+    /// The variants; the first is the reference for comparisons.
+    pub variants: Vec<Variant>,
+    /// The laws of each variant.
+    pub physics: Vec<PhysicsSet>,
+    /// Every point, in canonical order.
+    pub points: Vec<GridPoint>,
+    /// Fitting mass fraction used for every model.
+    pub fit_mass_fraction: f64,
+}
+
+impl Grid {
+    /// The product grid variants x Z x X x masses, in that nesting order. Builds every variant's
+    /// physics (so that a bad law name is reported before any model is solved) and every
+    /// composition.
+    pub fn product(
+        base: &PhysicsOptions,
+        variants: Vec<Variant>,
+        masses: &[f64],
+        xs: &[f64],
+        zs: &[f64],
+        fit_mass_fraction: f64,
+    ) -> Result<Self> {
+        let physics = variants
+            .iter()
+            .map(|v| base.overridden_by(&v.overrides).build())
+            .collect::<Result<Vec<_>>>()?;
+        let mut points = Vec::new();
+        for v in 0..variants.len() {
+            for &z in zs {
+                for &x in xs {
+                    let composition = Composition::new(x, z)?;
+                    for &mass_msun in masses {
+                        points.push(GridPoint {
+                            index: points.len(),
+                            variant: v,
+                            mass_msun,
+                            composition,
+                        });
+                    }
+                }
+            }
+        }
+        Ok(Self {
+            variants,
+            physics,
+            points,
+            fit_mass_fraction,
+        })
+    }
+
+    /// A fingerprint of the grid's definition (points, laws, fitting mass), the same for every
+    /// shard of one grid: FNV-1a of a canonical description, as 16 hex digits.
+    pub fn fingerprint(&self) -> String {
+        let mut text = format!("fit={:.6e};", self.fit_mass_fraction);
+        for (v, p) in self.variants.iter().zip(&self.physics) {
+            text.push_str(&format!("{}={:?};", v.name, p.describe()));
+        }
+        for p in &self.points {
+            text.push_str(&p.key(self));
+            text.push(';');
+        }
+        format!("{:016x}", shard::fnv1a(text.as_bytes()))
+    }
+
+    /// The points of shard `shard` (all points if `None`).
+    pub fn select(&self, shard: Option<Shard>) -> Vec<GridPoint> {
+        self.points
+            .iter()
+            .filter(|p| shard.is_none_or(|s| s.contains(&p.key(self))))
+            .cloned()
+            .collect()
+    }
+}

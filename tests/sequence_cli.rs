@@ -1,0 +1,169 @@
+//! `sequence` and `merge` as a user runs them: shards, threads, order, and bad input.
+
+mod common;
+use common::{scratch_dir, starpoise, stderr};
+
+const GRID: [&str; 6] = [
+    "--masses",
+    "1,2,4,8,16",
+    "--z",
+    "0.01,0.02",
+    "--physics",
+    "analytic",
+];
+
+fn run_to(path: &std::path::Path, extra: &[&str]) -> std::process::Output {
+    let mut args = vec!["sequence", "--quiet"];
+    args.extend(GRID);
+    args.extend(extra);
+    args.extend(["--out", path.to_str().unwrap()]);
+    starpoise(&args)
+}
+
+/// Three shards merged give exactly (byte for byte) the single run's table.
+#[test]
+fn three_shards_merge_to_the_single_run() {
+    let dir = scratch_dir("shards");
+    let whole = dir.join("whole.csv");
+    assert!(run_to(&whole, &[]).status.success());
+    let mut parts = Vec::new();
+    for k in 1..=3 {
+        let part = dir.join(format!("part-{k}.csv"));
+        let shard = format!("{k}/3");
+        let out = run_to(&part, &["--shard", &shard]);
+        assert!(out.status.success(), "{}", stderr(&out));
+        parts.push(part);
+    }
+    let merged = dir.join("merged.csv");
+    let mut args = vec!["merge"];
+    let names: Vec<String> = parts.iter().map(|p| p.display().to_string()).collect();
+    args.extend(names.iter().map(String::as_str));
+    args.extend(["--out", merged.to_str().unwrap()]);
+    let out = starpoise(&args);
+    assert!(out.status.success(), "{}", stderr(&out));
+    assert_eq!(
+        std::fs::read(&merged).unwrap(),
+        std::fs::read(&whole).unwrap()
+    );
+    // A missing shard, a repeated shard and a foreign grid are refused with exit 2.
+    let foreign = dir.join("foreign.csv");
+    assert!(starpoise(&[
+        "sequence",
+        "--quiet",
+        "--masses",
+        "1,2",
+        "--physics",
+        "analytic",
+        "--out",
+        foreign.to_str().unwrap()
+    ])
+    .status
+    .success());
+    let bad_sets: Vec<(Vec<&str>, &str)> = vec![
+        (vec![&names[0], &names[1]], "missing"),
+        (vec![&names[0], &names[1], &names[2], &names[2]], "also in"),
+        (
+            vec![&names[0], &names[1], &names[2], foreign.to_str().unwrap()],
+            "different grid",
+        ),
+    ];
+    for (files, needle) in bad_sets {
+        let target = dir.join("bad-merge.csv");
+        let mut a = vec!["merge"];
+        a.extend(files);
+        a.extend(["--out", target.to_str().unwrap()]);
+        let out = starpoise(&a);
+        assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+        assert!(stderr(&out).contains(needle), "{}", stderr(&out));
+        assert!(!target.exists());
+    }
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// The table does not depend on the number of threads or on the order of the mass list.
+#[test]
+fn result_does_not_depend_on_threads_or_order() {
+    let dir = scratch_dir("threads");
+    let one = dir.join("one.csv");
+    let two = dir.join("two.csv");
+    assert!(run_to(&one, &["--threads", "1"]).status.success());
+    assert!(run_to(&two, &["--threads", "2"]).status.success());
+    assert_eq!(std::fs::read(&one).unwrap(), std::fs::read(&two).unwrap());
+    // Reordered masses: the same models (rows compared by mass and Z, values exactly equal).
+    let shuffled = dir.join("shuffled.csv");
+    let out = starpoise(&[
+        "sequence",
+        "--quiet",
+        "--masses",
+        "16,1,8,4,2",
+        "--z",
+        "0.02,0.01",
+        "--physics",
+        "analytic",
+        "--out",
+        shuffled.to_str().unwrap(),
+    ]);
+    assert!(out.status.success());
+    let key_rows = |p: &std::path::Path| {
+        let mut rdr = csv::Reader::from_path(p).unwrap();
+        let h = rdr.headers().unwrap().clone();
+        let col = |n: &str| h.iter().position(|x| x == n).unwrap();
+        let (m, z, l, r) = (
+            col("mass_msun"),
+            col("z"),
+            col("luminosity_lsun"),
+            col("radius_rsun"),
+        );
+        let mut v: Vec<(String, String, String, String)> = rdr
+            .records()
+            .map(|rec| {
+                let rec = rec.unwrap();
+                (
+                    rec[m].to_string(),
+                    rec[z].to_string(),
+                    rec[l].to_string(),
+                    rec[r].to_string(),
+                )
+            })
+            .collect();
+        v.sort();
+        v
+    };
+    assert_eq!(key_rows(&one), key_rows(&shuffled));
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// Bad grids exit 2 with a message naming the value and an example, and write nothing.
+#[test]
+fn bad_grids_exit_2() {
+    let dir = scratch_dir("bad-grid");
+    let out_file = dir.join("t.csv");
+    let cases: Vec<(Vec<&str>, &str)> = vec![
+        (vec!["--masses", ""], "--masses"),
+        (vec!["--masses", "5:1:3"], "FROM must not exceed TO"),
+        (vec!["--masses", "1:5:0"], "COUNT"),
+        (vec!["--masses", "1,2", "--shard", "4/3"], "--shard"),
+        (vec!["--masses", "1,2", "--shard", "0/3"], "--shard"),
+        (vec!["--masses", "1,2", "--variant", "hot"], "--variant"),
+        (
+            vec!["--masses", "1,2", "--variant", "x=colour:red"],
+            "colour",
+        ),
+        (vec!["--masses", "1,300"], "--mass"),
+    ];
+    for (args, needle) in cases {
+        let mut a = vec!["sequence", "--quiet", "--physics", "analytic"];
+        a.extend(args.iter().copied());
+        a.extend(["--out", out_file.to_str().unwrap()]);
+        let out = starpoise(&a);
+        assert_eq!(out.status.code(), Some(2), "{a:?}: {}", stderr(&out));
+        assert!(stderr(&out).contains(needle), "{a:?}: {}", stderr(&out));
+        assert!(
+            stderr(&out).contains("e.g."),
+            "{a:?}: no example in {}",
+            stderr(&out)
+        );
+        assert!(!out_file.exists());
+    }
+    let _ = std::fs::remove_dir_all(&dir);
+}

@@ -7,6 +7,7 @@ pub mod convection;
 pub mod eos;
 pub mod nuclear;
 pub mod opacity;
+pub mod scaled;
 pub mod spec;
 
 use std::sync::Arc;
@@ -16,6 +17,7 @@ pub use convection::{Convection, ConvectionPoint};
 pub use eos::{EosState, EquationOfState};
 pub use nuclear::{EnergyGeneration, EnergyRate};
 pub use opacity::Opacity;
+pub use scaled::Scaled;
 pub use spec::PhysicsOptions;
 
 use serde::Serialize;

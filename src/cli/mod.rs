@@ -4,6 +4,9 @@
 use clap::{Parser, Subcommand, ValueEnum};
 use starpoise::Result;
 
+pub mod common;
+pub mod probe;
+
 /// Zero-age main-sequence stellar interiors by fitting-point shooting.
 #[derive(Debug, Parser)]
 #[command(name = "starpoise", version, about, long_about = None)]
@@ -13,7 +16,10 @@ pub struct Cli {
 }
 
 #[derive(Debug, Subcommand)]
-enum Command {}
+enum Command {
+    /// Evaluate every physics law at one density and temperature.
+    Probe(probe::ProbeArgs),
+}
 
 /// Output format of a summary.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum, Default)]
@@ -27,7 +33,9 @@ pub enum Format {
 
 /// Run one parsed command line.
 pub fn run(cli: Cli) -> Result<()> {
-    match cli.command {}
+    match cli.command {
+        Command::Probe(args) => probe::run(args),
+    }
 }
 
 #[cfg(test)]

@@ -77,3 +77,24 @@ impl PhysicsFlags {
         }
     }
 }
+
+/// Composition and physics flags together.
+#[derive(Debug, Clone, Default, Args)]
+pub struct ModelArgs {
+    /// Composition.
+    #[command(flatten)]
+    pub composition: CompositionFlags,
+    /// Physics laws.
+    #[command(flatten)]
+    pub physics: PhysicsFlags,
+}
+
+impl ModelArgs {
+    /// The validated composition (X = 0.70, Z = 0.02 unless given) and the physics options.
+    pub fn resolve(&self) -> Result<(Composition, PhysicsOptions)> {
+        Ok((
+            self.composition.composition(None, None)?,
+            self.physics.options(),
+        ))
+    }
+}

@@ -3,6 +3,7 @@
 
 mod common;
 mod polytrope;
+mod probe;
 mod sequence;
 mod zams;
 
@@ -29,6 +30,8 @@ enum Command {
     Merge(sequence::MergeArgs),
     /// Solve a Lane–Emden polytrope of index n, optionally scaled to a star.
     Polytrope(polytrope::PolytropeArgs),
+    /// Evaluate every physics law at one density and temperature.
+    Probe(probe::ProbeArgs),
 }
 
 /// Output format of a summary.
@@ -48,6 +51,7 @@ pub fn run(cli: Cli) -> Result<()> {
         Command::Polytrope(args) => polytrope::run(args),
         Command::Sequence(args) => sequence::run(*args),
         Command::Merge(args) => sequence::run_merge(args),
+        Command::Probe(args) => probe::run(args),
     }
 }
 

@@ -2,7 +2,9 @@
 
 pub mod atomic;
 pub mod polytrope;
-
-pub use atomic::write_atomically;
+pub mod probe;
 pub mod sequence;
 pub mod zams;
+
+pub use atomic::write_atomically;
+pub use probe::ProbeReport;

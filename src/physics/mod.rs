@@ -7,6 +7,7 @@ pub mod convection;
 pub mod eos;
 pub mod nuclear;
 pub mod opacity;
+pub mod scaled;
 pub mod spec;
 
 use std::sync::Arc;
@@ -16,6 +17,7 @@ pub use convection::{Convection, ConvectionPoint};
 pub use eos::{EosState, EquationOfState};
 pub use nuclear::{EnergyGeneration, EnergyRate};
 pub use opacity::Opacity;
+pub use scaled::Scaled;
 pub use spec::PhysicsOptions;
 
 use serde::Serialize;
@@ -87,6 +89,22 @@ impl PhysicsSet {
             rates: Arc::new(nuclear::AnalyticRates::default()),
             convection: Arc::new(convection::Adiabatic),
             atmosphere: Atmosphere::Photosphere,
+        }
+    }
+
+    /// The `refined` set (the default): Saha ionisation with degenerate electrons
+    /// ([`eos::RefinedEos`]), the combined opacity with H-minus and conduction
+    /// ([`opacity::RefinedOpacity`]), S-factor rates with screening ([`nuclear::SFactorRates`]),
+    /// mixing-length convection with alpha = 1.8 ([`convection::MixingLength`]) and the grey
+    /// atmosphere.
+    pub fn refined() -> Self {
+        Self {
+            preset: "refined".to_string(),
+            eos: Arc::new(eos::RefinedEos),
+            opacity: Arc::new(opacity::RefinedOpacity::default()),
+            rates: Arc::new(nuclear::SFactorRates::default()),
+            convection: Arc::new(convection::MixingLength::default()),
+            atmosphere: Atmosphere::Grey,
         }
     }
 

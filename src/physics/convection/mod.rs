@@ -4,8 +4,10 @@ use crate::constants::{A_RAD_CGS, C_CM_S, G_CGS};
 use crate::error::PhysicsError;
 
 pub mod adiabatic;
+pub mod mlt;
 
 pub use adiabatic::Adiabatic;
+pub use mlt::MixingLength;
 
 /// Local conditions a convection law needs, all in cgs.
 #[derive(Debug, Clone, Copy, PartialEq)]

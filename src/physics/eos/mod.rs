@@ -8,9 +8,17 @@ use super::composition::Composition;
 use crate::constants::{A_RAD_CGS, K_B_ERG_K, M_U_G};
 use crate::error::PhysicsError;
 
+pub mod degenerate;
+pub mod fermi_dirac;
 pub mod ideal;
+pub mod plasma;
+pub mod refined;
+pub mod saha;
 
+pub use degenerate::DegenerateGas;
 pub use ideal::IdealGas;
+pub use refined::RefinedEos;
+pub use saha::SahaGas;
 
 /// The thermodynamic state at one (rho, T): everything the structure equations and the
 /// convection laws need. A plain value, no allocation.

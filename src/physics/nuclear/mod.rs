@@ -4,8 +4,12 @@ use super::composition::Composition;
 use crate::error::PhysicsError;
 
 pub mod analytic;
+pub mod power_law;
+pub mod sfactor;
 
 pub use analytic::AnalyticRates;
+pub use power_law::PowerLawRates;
+pub use sfactor::SFactorRates;
 
 /// Energy generation at one point, erg g^-1 s^-1, with the local temperature exponents.
 #[derive(Debug, Clone, Copy, PartialEq, Default)]

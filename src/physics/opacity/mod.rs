@@ -4,8 +4,20 @@ use super::composition::Composition;
 use crate::error::PhysicsError;
 
 pub mod analytic;
+pub mod conductive;
+pub mod electron_scattering;
+pub mod h_minus;
+pub mod kramers;
+pub mod refined;
+pub mod table;
 
 pub use analytic::AnalyticOpacity;
+pub use conductive::Conductive;
+pub use electron_scattering::ElectronScattering;
+pub use h_minus::HMinus;
+pub use kramers::Kramers;
+pub use refined::RefinedOpacity;
+pub use table::TableOpacity;
 
 /// An opacity law.
 pub trait Opacity: Send + Sync + std::fmt::Debug {

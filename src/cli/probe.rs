@@ -1,0 +1,66 @@
+//! `starpoise probe`: every local physics quantity at one (rho, T).
+
+use super::common::ModelArgs;
+use super::Format;
+use clap::Args;
+use starpoise::output::ProbeReport;
+use starpoise::{Error, Result};
+
+/// Print pressure, thermodynamic derivatives, ionisation, opacities and energy generation at
+/// one density and temperature.
+#[derive(Debug, Clone, Args)]
+pub struct ProbeArgs {
+    /// Density rho, g/cm^3.
+    #[arg(long, value_name = "RHO")]
+    pub density: f64,
+    /// Temperature T, K.
+    #[arg(long, value_name = "T")]
+    pub temperature: f64,
+    /// Composition and physics.
+    #[command(flatten)]
+    pub model: ModelArgs,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = Format::Text)]
+    pub format: Format,
+}
+
+/// Run the probe and print its report to standard output.
+pub fn run(args: ProbeArgs) -> Result<()> {
+    let (rho, t) = (args.density, args.temperature);
+    if !(rho.is_finite() && rho > 0.0) {
+        return Err(Error::invalid(
+            "--density",
+            rho,
+            "the density must be a positive number of g/cm^3, e.g. --density 150",
+        ));
+    }
+    if !(t.is_finite() && t > 0.0) {
+        return Err(Error::invalid(
+            "--temperature",
+            t,
+            "the temperature must be a positive number of K, e.g. --temperature 1.57e7",
+        ));
+    }
+    let (comp, options) = args.model.resolve()?;
+    let set = options.build()?;
+    // A point outside a law's domain is bad input for this command (exit code 2).
+    let report = ProbeReport::evaluate(rho, t, &comp, &set).map_err(|e| match e {
+        Error::Physics(p) => Error::invalid(
+            "--density/--temperature",
+            format!("{rho:e} g/cm^3, {t:e} K"),
+            &format!("outside the domain of the chosen physics: {p}"),
+        ),
+        other => other,
+    })?;
+    match args.format {
+        Format::Text => print!("{}", report.to_text()),
+        Format::Json => {
+            let text = serde_json::to_string_pretty(&report).map_err(|e| Error::Io {
+                path: "<stdout>".to_string(),
+                reason: e.to_string(),
+            })?;
+            println!("{text}");
+        }
+    }
+    Ok(())
+}

@@ -1,0 +1,533 @@
+//! The shared engine of the `saha`, `degenerate` and `refined` equations of state: a mixture of
+//! hydrogen, helium and metals with (optionally) Saha ionisation of H and He and electrons of
+//! (optionally) arbitrary degeneracy, plus radiation. Each law is one switch setting of this
+//! engine; see [`super::SahaGas`], [`super::DegenerateGas`] and [`super::RefinedEos`].
+//!
+//! # Model
+//! Per atomic mass unit the mixture holds X hydrogen nuclei, Y/4 helium nuclei and Z/16 metal
+//! nuclei (mean mass number 16, as in [`crate::physics::composition`]). The metals are always
+//! fully ionised and give Z (1/2 - 1/16) electrons per m_u, so that ions plus electrons of a
+//! fully ionised mixture number exactly 2X + 3Y/4 + Z/2 per m_u, as in
+//! [`Composition::mu`](crate::physics::composition::Composition::mu).
+//!
+//! Electron chemical equilibrium for every ionisation stage (the Saha equation written with the
+//! electron degeneracy parameter psi = mu_e / kT, valid at any degeneracy; e.g. Cox & Giuli 1968,
+//! ch. 15):
+//! n_(i+1) / n_i = (g_(i+1) w_(i+1) / (g_i w_i)) exp(-psi - chi_i / kT),
+//! with ionisation energies chi = 13.598 eV (H I), 24.587 eV (He I), 54.418 eV (He II) (NIST
+//! atomic spectra database values, rounded) and ground-state statistical weights only:
+//! g(H I) = 2, g(H II) = 1, g(He I) = 1, g(He II) = 2, g(He III) = 1 (the partition function of
+//! each bound species is truncated at its ground state). In the classical limit
+//! exp(psi) = n_e lambda^3 / 2 and this is the textbook Saha equation.
+//!
+//! Pressure ionisation: each bound species i carries an occupation probability w_i with
+//! ln w_i = -s_i exp(min(s_i, 15)), s_i = (4 pi / 3) n_nuc (2 r_i)^3, r_i = a_0 / Z_eff
+//! (H I: Z_eff = 1; He I: 27/16, the variational value; He II: 2) and n_nuc the number density
+//! of all nuclei. For s_i << 1 this is the hard-sphere term of Hummer & Mihalas (1988, ApJ 331,
+//! 794); the exponential steepening (a choice of this project) makes the destruction of bound
+//! states win over the electron Fermi energy in cold dense matter, so that degenerate matter is
+//! fully ionised at any temperature. It is negligible (w > 0.999) below 1e-4 g/cm^3 and ionises
+//! hydrogen above about 1 g/cm^3. Its free-energy term is not added to P, a small
+//! inconsistency confined to the pressure-ionisation regime.
+//!
+//! Electrons: n_e = (4 / sqrt(pi)) (2 pi m_e k T / h^2)^(3/2) F_1/2(psi) and
+//! P_e = (2/3) (4 / sqrt(pi)) (2 pi m_e k T / h^2)^(3/2) k T F_3/2(psi) (non-relativistic), or
+//! their classical limits F_j -> Gamma(j+1) e^psi. Ions are an ideal gas, P_ion = n_nuc k T;
+//! radiation P_rad = a T^4 / 3. Coulomb corrections are not included.
+//!
+//! psi solves charge neutrality n_e(psi) = (rho / m_u) N_e(psi), a monotone equation in psi
+//! (the left side increases, the right side decreases with psi), by safeguarded Newton iteration
+//! inside a bracket whose upper end is the fully ionised solution.
+//!
+//! Derivatives are analytic: d psi / d ln rho and d psi / d ln T by implicit differentiation of
+//! the neutrality equation, then chi_rho, chi_T and c_V = (du/dT)_rho with the specific energy
+//! u = (3/2)(P_ion + P_e)/rho + a T^4/rho + E_ion / m_u, and c_P = c_V + (P/(rho T)) chi_T^2 /
+//! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho / (1 - chi_T nabla_ad)
+//! (Kippenhahn & Weigert 1990, §13–14).
+
+use super::fermi_dirac::{fermi_dirac, inverse_fermi_dirac_half};
+use super::EosState;
+use crate::constants::{A_RAD_CGS, EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
+use crate::error::PhysicsError;
+use crate::physics::composition::{Composition, METAL_MEAN_MASS_NUMBER};
+
+/// Ionisation energy of H I, eV (NIST, rounded).
+pub const CHI_H_EV: f64 = 13.598;
+/// First ionisation energy of He, eV (NIST, rounded).
+pub const CHI_HE1_EV: f64 = 24.587;
+/// Second ionisation energy of He, eV (NIST, rounded).
+pub const CHI_HE2_EV: f64 = 54.418;
+/// Bohr radius a_0, cm (CODATA 2018).
+pub const BOHR_RADIUS_CM: f64 = 5.291_772_109e-9;
+
+const SQRT_PI: f64 = 1.772_453_850_905_516;
+
+/// How the H and He ionisation stages are found.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Ionisation {
+    /// Saha equilibrium with pressure ionisation (see the module documentation).
+    Saha,
+    /// Everything fully ionised.
+    Full,
+}
+
+/// How the free electrons are described.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Electrons {
+    /// Maxwell–Boltzmann electrons (F_j replaced by Gamma(j+1) e^psi).
+    Classical,
+    /// Non-relativistic electrons of arbitrary degeneracy (Fermi–Dirac integrals).
+    FermiDirac,
+}
+
+/// One configuration of the engine with its domain of validity.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Plasma {
+    /// Law name for errors.
+    pub law: &'static str,
+    /// Ionisation treatment.
+    pub ionisation: Ionisation,
+    /// Electron treatment.
+    pub electrons: Electrons,
+    /// Smallest and largest density accepted, g cm^-3.
+    pub rho_range_g_cm3: (f64, f64),
+    /// Smallest and largest temperature accepted, K.
+    pub temperature_range_k: (f64, f64),
+}
+
+/// A state together with d psi / d ln rho (used to warm-start the inversion).
+#[derive(Debug, Clone, Copy)]
+pub struct Solved {
+    /// The state.
+    pub state: EosState,
+    /// d psi / d ln rho at fixed T.
+    pub dpsi_dlnrho: f64,
+}
+
+/// Derivatives of one quantity with respect to (psi, ln T, ln rho).
+#[derive(Debug, Clone, Copy, Default)]
+struct Grad {
+    psi: f64,
+    ln_t: f64,
+    ln_rho: f64,
+}
+
+/// Ionisation stages at one (psi, T, rho) with the derivatives of N_e and E_ion.
+#[derive(Debug, Clone, Copy)]
+struct Stages {
+    x_h: f64,
+    he1: f64,
+    he2: f64,
+    /// Free electrons per m_u.
+    n_e: f64,
+    d_n_e: Grad,
+    d_e_ion: Grad,
+}
+
+/// Electron quantities at one psi: ln F_1/2, its psi-slope, F_3/2 and its psi-slope.
+#[derive(Debug, Clone, Copy)]
+struct ElectronIntegrals {
+    ln_f_half: f64,
+    slope_half: f64,
+    f_three_halves: f64,
+    slope_three_halves: f64,
+}
+
+impl Plasma {
+    fn integrals(&self, psi: f64) -> ElectronIntegrals {
+        match self.electrons {
+            Electrons::Classical => ElectronIntegrals {
+                ln_f_half: psi + (0.5 * SQRT_PI).ln(),
+                slope_half: 1.0,
+                f_three_halves: 0.75 * SQRT_PI * psi.exp(),
+                slope_three_halves: 1.0,
+            },
+            Electrons::FermiDirac => {
+                let f = fermi_dirac(psi);
+                ElectronIntegrals {
+                    ln_f_half: f.f_half.ln(),
+                    slope_half: 0.5 * f.f_minus_half / f.f_half,
+                    f_three_halves: f.f_three_halves,
+                    slope_three_halves: 1.5 * f.f_half / f.f_three_halves,
+                }
+            }
+        }
+    }
+
+    /// psi at which F_1/2 (or its classical limit) equals `f_half`.
+    fn psi_for(&self, f_half: f64) -> Option<f64> {
+        match self.electrons {
+            Electrons::Classical => {
+                if f_half > 0.0 && f_half.is_finite() {
+                    Some((f_half / (0.5 * SQRT_PI)).ln())
+                } else {
+                    None
+                }
+            }
+            Electrons::FermiDirac => inverse_fermi_dirac_half(f_half),
+        }
+    }
+
+    fn error(&self, reason: impl Into<String>, rho: f64, t: f64) -> PhysicsError {
+        PhysicsError::new(self.law, reason, rho, t)
+    }
+
+    /// Check (rho, T) against the law's domain.
+    pub fn check(&self, rho: f64, t: f64) -> Result<(), PhysicsError> {
+        let (rlo, rhi) = self.rho_range_g_cm3;
+        let (tlo, thi) = self.temperature_range_k;
+        if !(rho.is_finite() && t.is_finite() && (rlo..=rhi).contains(&rho)) {
+            return Err(self.error(
+                format!("density outside the law's domain {rlo:e}..{rhi:e} g/cm^3"),
+                rho,
+                t,
+            ));
+        }
+        if !(tlo..=thi).contains(&t) {
+            return Err(self.error(
+                format!("temperature outside the law's domain {tlo:e}..{thi:e} K"),
+                rho,
+                t,
+            ));
+        }
+        Ok(())
+    }
+
+    /// The state at (rho, T); `psi_guess` may warm-start the neutrality solve.
+    pub fn solve(
+        &self,
+        rho: f64,
+        t: f64,
+        comp: &Composition,
+        psi_guess: Option<f64>,
+    ) -> Result<Solved, PhysicsError> {
+        self.check(rho, t)?;
+        let kt = K_B_ERG_K * t;
+        let x = comp.x();
+        let y4 = 0.25 * comp.y();
+        let z_ion = comp.z() / METAL_MEAN_MASS_NUMBER;
+        let z_e = comp.z() * (0.5 - 1.0 / METAL_MEAN_MASS_NUMBER);
+        let n_ion = x + y4 + z_ion;
+        let n_e_max = x + 2.0 * y4 + z_e;
+        let n_nuc = rho / M_U_G * n_ion;
+        // n_e = c_n T^(3/2) F_1/2(psi)
+        let c_n = 4.0 / SQRT_PI
+            * (2.0 * std::f64::consts::PI * M_E_G * K_B_ERG_K / (H_ERG_S * H_ERG_S)).powf(1.5);
+        let ln_q = (c_n * t.powf(1.5)).ln();
+        let ln_n_u = (rho / M_U_G).ln();
+        // Fully ionised solution: the upper end of the psi bracket.
+        let psi_max = self
+            .psi_for((rho / M_U_G * n_e_max / (c_n * t.powf(1.5))).max(f64::MIN_POSITIVE))
+            .ok_or_else(|| self.error("electron density not representable", rho, t))?;
+
+        let inputs = StageInputs {
+            x,
+            y4,
+            z_e,
+            a_h: CHI_H_EV * EV_ERG / kt,
+            a_1: CHI_HE1_EV * EV_ERG / kt,
+            a_2: CHI_HE2_EV * EV_ERG / kt,
+            w_h: occupation(pressure_volume(1.0) * n_nuc),
+            w_he1: occupation(pressure_volume(27.0 / 16.0) * n_nuc),
+            w_he2: occupation(pressure_volume(2.0) * n_nuc),
+        };
+
+        let (psi, stages) = match self.ionisation {
+            Ionisation::Full => (psi_max, inputs.full()),
+            Ionisation::Saha => {
+                self.solve_neutrality(&inputs, ln_q, ln_n_u, psi_max, psi_guess, rho, t)?
+            }
+        };
+
+        let el = self.integrals(psi);
+        // Implicit derivatives of psi from G = ln F_1/2 + ln q(T) - ln(rho/m_u) - ln N_e = 0.
+        let dln_ne = Grad {
+            psi: stages.d_n_e.psi / stages.n_e,
+            ln_t: stages.d_n_e.ln_t / stages.n_e,
+            ln_rho: stages.d_n_e.ln_rho / stages.n_e,
+        };
+        let g_psi = el.slope_half - dln_ne.psi;
+        let psi_t = -(1.5 - dln_ne.ln_t) / g_psi;
+        let psi_rho = -(-1.0 - dln_ne.ln_rho) / g_psi;
+
+        let p_e = c_n * t.powf(1.5) * kt * (2.0 / 3.0) * el.f_three_halves;
+        let p_ion = n_nuc * kt;
+        let p_rad = A_RAD_CGS * t.powi(4) / 3.0;
+        let p = p_e + p_ion + p_rad;
+        let dpe_t = 2.5 + el.slope_three_halves * psi_t;
+        let dpe_rho = el.slope_three_halves * psi_rho;
+        let chi_rho = (p_ion + p_e * dpe_rho) / p;
+        let chi_t = (p_ion + p_e * dpe_t + 4.0 * p_rad) / p;
+        let de_ion_t = stages.d_e_ion.ln_t + psi_t * stages.d_e_ion.psi;
+        let cv = (1.5 * (p_ion + p_e * dpe_t) / rho
+            + 4.0 * A_RAD_CGS * t.powi(4) / rho
+            + de_ion_t / M_U_G)
+            / t;
+        let cp = cv + p / (rho * t) * chi_t * chi_t / chi_rho;
+        let nabla_ad = p * chi_t / (rho * t * cp * chi_rho);
+        let gamma1 = chi_rho / (1.0 - chi_t * nabla_ad);
+        let state = EosState {
+            density_g_cm3: rho,
+            temperature_k: t,
+            pressure_dyn_cm2: p,
+            gas_pressure_dyn_cm2: p_e + p_ion,
+            beta: (p_e + p_ion) / p,
+            chi_rho,
+            chi_t,
+            nabla_ad,
+            gamma1,
+            cp_erg_g_k: cp,
+            delta: chi_t / chi_rho,
+            mu: 1.0 / (n_ion + stages.n_e),
+            degeneracy_psi: psi,
+            hydrogen_ionised: stages.x_h,
+            helium_single: stages.he1,
+            helium_double: stages.he2,
+        };
+        let finite = [p, chi_rho, chi_t, cp, nabla_ad, gamma1]
+            .iter()
+            .all(|v| v.is_finite() && *v > 0.0);
+        if !finite {
+            return Err(self.error("thermodynamic derivatives not finite", rho, t));
+        }
+        Ok(Solved {
+            state,
+            dpsi_dlnrho: psi_rho,
+        })
+    }
+
+    #[allow(clippy::too_many_arguments)]
+    fn solve_neutrality(
+        &self,
+        inputs: &StageInputs,
+        ln_q: f64,
+        ln_n_u: f64,
+        psi_max: f64,
+        psi_guess: Option<f64>,
+        rho: f64,
+        t: f64,
+    ) -> Result<(f64, Stages), PhysicsError> {
+        let mut lo = f64::NEG_INFINITY;
+        let mut hi = psi_max;
+        let mut psi = match psi_guess {
+            Some(g) if g.is_finite() => g.min(psi_max),
+            _ => psi_max,
+        };
+        for _ in 0..300 {
+            let stages = inputs.saha(psi);
+            let el = self.integrals(psi);
+            let g = el.ln_f_half + ln_q - ln_n_u - stages.n_e.ln();
+            if g.abs() < 1e-12 {
+                return Ok((psi, stages));
+            }
+            if g > 0.0 {
+                hi = psi;
+            } else {
+                lo = psi;
+            }
+            let slope = el.slope_half - stages.d_n_e.psi / stages.n_e;
+            let newton = psi - g / slope;
+            let next = if newton.is_finite() && newton > lo && newton < hi {
+                newton
+            } else if lo.is_finite() {
+                0.5 * (lo + hi)
+            } else {
+                // No lower end yet: step down geometrically.
+                psi - (2.0 * (hi - psi)).max(10.0)
+            };
+            if (hi - lo).abs() < 1e-13 * (1.0 + psi.abs()) {
+                return Ok((next, inputs.saha(next)));
+            }
+            psi = next;
+        }
+        Err(self.error("charge neutrality not solved in 300 iterations", rho, t))
+    }
+
+    /// The state at total pressure `p` and temperature `t`: Newton iteration in ln rho with the
+    /// analytic chi_rho, kept inside a bracket and the law's density domain, warm-starting each
+    /// neutrality solve from the previous psi.
+    pub fn at_pressure(
+        &self,
+        p: f64,
+        t: f64,
+        comp: &Composition,
+    ) -> Result<EosState, PhysicsError> {
+        if !(p.is_finite() && p > 0.0) {
+            return Err(self.error(
+                format!("pressure {p:e} dyn/cm^2 must be finite and positive"),
+                f64::NAN,
+                t,
+            ));
+        }
+        self.check(self.rho_range_g_cm3.0, t)?;
+        let p_rad = A_RAD_CGS * t.powi(4) / 3.0;
+        if p <= p_rad {
+            return Err(self.error(
+                format!(
+                    "pressure {p:.4e} dyn/cm^2 does not exceed the radiation pressure {p_rad:.4e}"
+                ),
+                f64::NAN,
+                t,
+            ));
+        }
+        let (rlo, rhi) = self.rho_range_g_cm3;
+        let (mut lo, mut hi) = (rlo.ln(), rhi.ln());
+        // Fully ionised ideal-gas start.
+        let n_full = 2.0 * comp.x() + 0.75 * comp.y() + 0.5 * comp.z();
+        let mut ln_rho = ((p - p_rad) * M_U_G / (K_B_ERG_K * t * n_full))
+            .ln()
+            .clamp(lo, hi);
+        let ln_p = p.ln();
+        let mut psi_guess = None;
+        for _ in 0..100 {
+            let solved = self.solve(ln_rho.exp(), t, comp, psi_guess)?;
+            let s = solved.state;
+            let f = s.pressure_dyn_cm2.ln() - ln_p;
+            if f.abs() < 1e-12 {
+                return Ok(s);
+            }
+            if f > 0.0 {
+                hi = ln_rho;
+            } else {
+                lo = ln_rho;
+            }
+            let newton = ln_rho - f / s.chi_rho.max(1e-6);
+            let next = if newton > lo && newton < hi && (newton - ln_rho).abs() < 3.0 {
+                newton
+            } else if (hi - lo) < 6.0 {
+                0.5 * (lo + hi)
+            } else if f > 0.0 {
+                (ln_rho - 3.0).max(lo + 0.5 * (ln_rho - lo).min(3.0))
+            } else {
+                (ln_rho + 3.0).min(hi - 0.5 * (hi - ln_rho).min(3.0))
+            };
+            if hi - lo < 1e-14 {
+                break;
+            }
+            psi_guess = Some(s.degeneracy_psi + solved.dpsi_dlnrho * (next - ln_rho));
+            ln_rho = next;
+        }
+        Err(self.error(
+            format!(
+                "no density in {rlo:e}..{rhi:e} g/cm^3 gives pressure {p:.4e} dyn/cm^2 at this temperature"
+            ),
+            f64::NAN,
+            t,
+        ))
+    }
+}
+
+/// (4 pi / 3) (2 a_0 / Z_eff)^3, the hard-sphere volume of a bound species, cm^3.
+fn pressure_volume(z_eff: f64) -> f64 {
+    let r = 2.0 * BOHR_RADIUS_CM / z_eff;
+    4.0 / 3.0 * std::f64::consts::PI * r * r * r
+}
+
+/// ln w and d ln w / d ln rho for the pressure-ionisation parameter s (proportional to rho):
+/// ln w = -s exp(min(s, 15)).
+fn occupation(s: f64) -> (f64, f64) {
+    if s < 15.0 {
+        let e = s.exp();
+        (-s * e, -s * (1.0 + s) * e)
+    } else {
+        let e = 15f64.exp();
+        (-s * e, -s * e)
+    }
+}
+
+/// Everything the ionisation balance needs apart from psi.
+#[derive(Debug, Clone, Copy)]
+struct StageInputs {
+    x: f64,
+    y4: f64,
+    z_e: f64,
+    a_h: f64,
+    a_1: f64,
+    a_2: f64,
+    /// (ln w, d ln w / d ln rho) of H I, He I, He II.
+    w_h: (f64, f64),
+    w_he1: (f64, f64),
+    w_he2: (f64, f64),
+}
+
+impl StageInputs {
+    fn full(&self) -> Stages {
+        Stages {
+            x_h: 1.0,
+            he1: 0.0,
+            he2: 1.0,
+            n_e: self.x + 2.0 * self.y4 + self.z_e,
+            d_n_e: Grad::default(),
+            d_e_ion: Grad::default(),
+        }
+    }
+
+    /// Saha stages at `psi` with derivatives; stable for any size of the ln ratios.
+    fn saha(&self, psi: f64) -> Stages {
+        // ln(n_upper / n_lower) for H I -> II, He I -> II, He II -> III.
+        let l_h = (0.5f64).ln() - psi - self.a_h - self.w_h.0;
+        let l_1 = (2.0f64).ln() - psi - self.a_1 - self.w_he1.0 + self.w_he2.0;
+        let l_2 = (0.5f64).ln() - psi - self.a_2 - self.w_he2.0;
+        // Derivatives of the ln ratios: d/dpsi = -1; d/dlnT = chi/kT; d/dln rho from the w terms.
+        let dl_h = Grad {
+            psi: -1.0,
+            ln_t: self.a_h,
+            ln_rho: -self.w_h.1,
+        };
+        let dl_1 = Grad {
+            psi: -1.0,
+            ln_t: self.a_1,
+            ln_rho: -self.w_he1.1 + self.w_he2.1,
+        };
+        let dl_2 = Grad {
+            psi: -1.0,
+            ln_t: self.a_2,
+            ln_rho: -self.w_he2.1,
+        };
+        let x_h = 1.0 / (1.0 + (-l_h).exp());
+        // Helium: weights exp(L_k) with L_0 = 0, L_1 = l_1, L_2 = l_1 + l_2.
+        let big_l2 = l_1 + l_2;
+        let m = 0.0f64.max(l_1).max(big_l2);
+        let w0 = (-m).exp();
+        let w1 = (l_1 - m).exp();
+        let w2 = (big_l2 - m).exp();
+        let sum = w0 + w1 + w2;
+        let (f1, f2) = (w1 / sum, w2 / sum);
+        let chi_h = CHI_H_EV * EV_ERG;
+        let chi_1 = CHI_HE1_EV * EV_ERG;
+        let chi_12 = (CHI_HE1_EV + CHI_HE2_EV) * EV_ERG;
+        let n_he = f1 + 2.0 * f2;
+        let grad = |sel: fn(&Grad) -> f64| {
+            let dh = sel(&dl_h);
+            let d_l1 = sel(&dl_1);
+            let d_l2 = d_l1 + sel(&dl_2);
+            let mean = f1 * d_l1 + f2 * d_l2;
+            let dxh = x_h * (1.0 - x_h) * dh;
+            let dn_he = f1 * (d_l1 - mean) + 2.0 * f2 * (d_l2 - mean);
+            let de_he = f1 * chi_1 * (d_l1 - mean) + f2 * chi_12 * (d_l2 - mean);
+            (
+                self.x * dxh + self.y4 * dn_he,
+                self.x * chi_h * dxh + self.y4 * de_he,
+            )
+        };
+        let (n_psi, e_psi) = grad(|g| g.psi);
+        let (n_t, e_t) = grad(|g| g.ln_t);
+        let (n_rho, e_rho) = grad(|g| g.ln_rho);
+        Stages {
+            x_h,
+            he1: f1,
+            he2: f2,
+            n_e: self.x * x_h + self.y4 * n_he + self.z_e,
+            d_n_e: Grad {
+                psi: n_psi,
+                ln_t: n_t,
+                ln_rho: n_rho,
+            },
+            d_e_ion: Grad {
+                psi: e_psi,
+                ln_t: e_t,
+                ln_rho: e_rho,
+            },
+        }
+    }
+}

@@ -1,0 +1,48 @@
+//! `saha`: partial ionisation of H and He with classical (Maxwell–Boltzmann) electrons.
+
+use super::plasma::{Electrons, Ionisation, Plasma};
+use super::{EosState, EquationOfState};
+use crate::error::PhysicsError;
+use crate::physics::composition::Composition;
+
+/// H I/II and He I/II/III in Saha equilibrium, classical electrons, ideal ions, radiation.
+///
+/// P = n_nuc k T + n_e k T + a T^4 / 3 with n_e from charge neutrality and the Saha equations
+/// n_(i+1) n_e / n_i = 2 (g_(i+1) / g_i) (2 pi m_e k T / h^2)^(3/2) exp(-chi_i / kT)
+/// (Saha 1920; e.g. Kippenhahn & Weigert 1990, §14.1), ionisation energies 13.598, 24.587 and
+/// 54.418 eV, ground-state statistical weights only, a hard-sphere pressure-ionisation factor,
+/// metals fully ionised. Derivatives (chi_rho, chi_T, c_P, nabla_ad, Gamma_1) include the
+/// ionisation terms analytically. Details in [`super::plasma`].
+///
+/// Domain: 1e-15 <= rho <= 1e3 g/cm^3, 1e3 <= T <= 1e9 K (outside it returns an error). The
+/// electrons are never degenerate in this law; use `refined` where they are.
+#[derive(Debug, Clone, Copy, Default)]
+pub struct SahaGas;
+
+const ENGINE: Plasma = Plasma {
+    law: "saha",
+    ionisation: Ionisation::Saha,
+    electrons: Electrons::Classical,
+    rho_range_g_cm3: (1e-15, 1e3),
+    temperature_range_k: (1e3, 1e9),
+};
+
+impl EquationOfState for SahaGas {
+    fn name(&self) -> &str {
+        ENGINE.law
+    }
+
+    fn state(&self, rho: f64, t: f64, comp: &Composition) -> Result<EosState, PhysicsError> {
+        Ok(ENGINE.solve(rho, t, comp, None)?.state)
+    }
+
+    /// Newton iteration in ln rho with the analytic chi_rho, warm-started psi, bracketed.
+    fn state_at_pressure(
+        &self,
+        p: f64,
+        t: f64,
+        comp: &Composition,
+    ) -> Result<EosState, PhysicsError> {
+        ENGINE.at_pressure(p, t, comp)
+    }
+}

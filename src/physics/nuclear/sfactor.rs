@@ -1,0 +1,285 @@
+//! `sfactor`: thermonuclear rates from astrophysical S-factors at the Gamow peak, with
+//! electron screening, equilibrium 3He branching and the energy per 4He of each chain.
+
+use super::{EnergyGeneration, EnergyRate};
+use crate::constants::{E_ESU, HBAR_ERG_S, K_B_ERG_K, MEV_ERG, M_E_G, M_P_G, M_U_G};
+use crate::error::PhysicsError;
+use crate::physics::composition::{Composition, METAL_MEAN_MASS_NUMBER};
+use crate::physics::opacity::check_point;
+
+/// 1 MeV barn in erg cm^2.
+const MEV_BARN: f64 = MEV_ERG * 1e-24;
+
+/// Atomic mass of 1H, u (AME 2016; memory).
+const A_H1: f64 = 1.007_825_03;
+/// Atomic mass of 3He, u (AME 2016; memory).
+const A_HE3: f64 = 3.016_029_32;
+/// Atomic mass of 4He, u (AME 2016; memory).
+const A_HE4: f64 = 4.002_603_25;
+/// Atomic mass of 14N, u (AME 2016; memory).
+const A_N14: f64 = 14.003_074_00;
+
+/// Energy per 4He released to the star by the ppI chain, MeV (Q = 26.731 MeV minus neutrino
+/// losses; reference-values.md §4, computed).
+pub const Q_PP1_MEV: f64 = 26.20;
+/// Energy per 4He of the ppII chain, MeV (reference-values.md §4, computed).
+pub const Q_PP2_MEV: f64 = 25.65;
+/// Energy per 4He of the CN cycle, MeV (reference-values.md §4, computed).
+pub const Q_CN_MEV: f64 = 25.03;
+
+/// One non-resonant charged-particle reaction.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Reaction {
+    /// Charge of the first nucleus.
+    pub z1: f64,
+    /// Charge of the second nucleus.
+    pub z2: f64,
+    /// Reduced mass m1 m2 / (m1 + m2) of the nuclei, g.
+    pub reduced_mass_g: f64,
+    /// S(0), erg cm^2.
+    pub s0_erg_cm2: f64,
+    /// S'(0) / S(0), erg^-1.
+    pub s_slope_per_erg: f64,
+}
+
+fn nuclear_mass_g(atomic_mass_u: f64, electrons: f64) -> f64 {
+    atomic_mass_u * M_U_G - electrons * M_E_G
+}
+
+fn reduced(m1: f64, m2: f64) -> f64 {
+    m1 * m2 / (m1 + m2)
+}
+
+impl Reaction {
+    /// p + p -> d + e+ + nu: S11(0) = 4.01e-25 MeV b, S'/S = 11.2 MeV^-1 (Adelberger et al.
+    /// 2011, Rev. Mod. Phys. 83, 195; memory, magnitude confirmed).
+    pub fn pp() -> Self {
+        Self {
+            z1: 1.0,
+            z2: 1.0,
+            reduced_mass_g: 0.5 * M_P_G,
+            s0_erg_cm2: 4.01e-25 * MEV_BARN,
+            s_slope_per_erg: 11.2 / MEV_ERG,
+        }
+    }
+
+    /// 3He + 3He -> 4He + 2p: S33(0) = 5.21 MeV b (Adelberger et al. 2011; memory).
+    pub fn he3_he3() -> Self {
+        let m = nuclear_mass_g(A_HE3, 2.0);
+        Self {
+            z1: 2.0,
+            z2: 2.0,
+            reduced_mass_g: 0.5 * m,
+            s0_erg_cm2: 5.21 * MEV_BARN,
+            s_slope_per_erg: 0.0,
+        }
+    }
+
+    /// 3He + 4He -> 7Be + gamma: S34(0) = 0.56 keV b (Adelberger et al. 2011; memory).
+    pub fn he3_he4() -> Self {
+        Self {
+            z1: 2.0,
+            z2: 2.0,
+            reduced_mass_g: reduced(nuclear_mass_g(A_HE3, 2.0), nuclear_mass_g(A_HE4, 2.0)),
+            s0_erg_cm2: 0.56e-3 * MEV_BARN,
+            s_slope_per_erg: 0.0,
+        }
+    }
+
+    /// 14N + p -> 15O + gamma: S114(0) = 1.66 keV b (Adelberger et al. 2011; memory,
+    /// magnitude confirmed).
+    pub fn p_n14() -> Self {
+        Self {
+            z1: 1.0,
+            z2: 7.0,
+            reduced_mass_g: reduced(M_P_G, nuclear_mass_g(A_N14, 7.0)),
+            s0_erg_cm2: 1.66e-3 * MEV_BARN,
+            s_slope_per_erg: 0.0,
+        }
+    }
+
+    /// b = pi Z1 Z2 e^2 sqrt(2 m_red) / hbar, erg^(1/2): the Gamow penetration exp(-b/sqrt(E)).
+    fn gamow_b(&self) -> f64 {
+        std::f64::consts::PI
+            * self.z1
+            * self.z2
+            * E_ESU
+            * E_ESU
+            * (2.0 * self.reduced_mass_g).sqrt()
+            / HBAR_ERG_S
+    }
+
+    /// tau T6^(1/3), where tau = 3 E_0 / kT is the exponent of the non-resonant rate
+    /// (Clayton 1968, ch. 4; 33.80 for p + p and 152.28 for p + 14N, reference-values.md §4).
+    pub fn tau_times_t6_cbrt(&self) -> f64 {
+        let kt = K_B_ERG_K * 1e6;
+        3.0 * (self.gamow_b() * kt / 2.0).powf(2.0 / 3.0) / kt
+    }
+
+    /// <sigma v> in cm^3 s^-1 at temperature `t` and its logarithmic temperature derivative,
+    /// without screening: the Gamow-peak formula
+    /// <sigma v> = sqrt(2 / m_red) Delta (kT)^(-3/2) S_eff exp(-tau), E_0 = (b kT / 2)^(2/3),
+    /// tau = 3 E_0 / kT, Delta = 4 sqrt(E_0 kT / 3), with
+    /// S_eff = S(0) [1 + 5/(12 tau) + (S'/S)(E_0 + 35 kT / 36)] (Clayton 1968, eqs. 4-56 and
+    /// 4-84; Fowler, Caughlan & Zimmerman 1967, ARA&A 5, 525).
+    pub fn sigma_v(&self, t: f64) -> (f64, f64) {
+        let kt = K_B_ERG_K * t;
+        let e0 = (self.gamow_b() * kt / 2.0).powf(2.0 / 3.0);
+        let tau = 3.0 * e0 / kt;
+        let delta = 4.0 * (e0 * kt / 3.0).sqrt();
+        let corr1 = 5.0 / (12.0 * tau);
+        let corr2 = self.s_slope_per_erg * (e0 + 35.0 * kt / 36.0);
+        let s_ratio = 1.0 + corr1 + corr2;
+        let value = (2.0 / self.reduced_mass_g).sqrt()
+            * delta
+            * kt.powf(-1.5)
+            * self.s0_erg_cm2
+            * s_ratio
+            * (-tau).exp();
+        // d ln S_eff / d ln T: tau ~ T^(-1/3), E_0 ~ T^(2/3).
+        let ds =
+            (corr1 / 3.0 + self.s_slope_per_erg * (2.0 / 3.0 * e0 + 35.0 * kt / 36.0)) / s_ratio;
+        (value, (tau - 2.0) / 3.0 + ds)
+    }
+}
+
+/// Electron screening enhancement: ln f and d ln f / d ln T.
+///
+/// Weak screening (Salpeter 1954, Aust. J. Phys. 7, 373):
+/// ln f = Z1 Z2 e^3 (4 pi rho zeta^2 / m_u)^(1/2) (kT)^(-3/2), zeta^2 = sum (Z_i^2 + Z_i) X_i / A_i
+/// (= 0.188 Z1 Z2 zeta rho^(1/2) T6^(-3/2)). Strong screening (Salpeter 1954, ion-sphere):
+/// ln f = 0.9 [(Z1+Z2)^(5/3) - Z1^(5/3) - Z2^(5/3)] e^2 / (a_e kT), a_e = (3 / (4 pi n_e))^(1/3).
+/// The smaller of the two is used, a simple bridge across the intermediate regime (the fits of
+/// Graboske et al. 1973 are not implemented). Electron degeneracy is not allowed for in zeta.
+pub fn screening(z1: f64, z2: f64, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
+    let kt = K_B_ERG_K * t;
+    let z_m = 0.5 * METAL_MEAN_MASS_NUMBER;
+    let zeta2 = 2.0 * comp.x()
+        + 6.0 * comp.y() / 4.0
+        + (z_m * z_m + z_m) * comp.z() / METAL_MEAN_MASS_NUMBER;
+    let weak = z1
+        * z2
+        * E_ESU.powi(3)
+        * (4.0 * std::f64::consts::PI * rho * zeta2 / M_U_G).sqrt()
+        * kt.powf(-1.5);
+    let n_e = rho / M_U_G * 0.5 * (1.0 + comp.x());
+    let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
+    let p53 = |z: f64| z.powf(5.0 / 3.0);
+    let strong = 0.9 * (p53(z1 + z2) - p53(z1) - p53(z2)) * E_ESU * E_ESU / (a_e * kt);
+    if weak <= strong {
+        (weak, -1.5 * weak)
+    } else {
+        (strong, -strong)
+    }
+}
+
+/// pp-chain and CN-cycle energy generation from S-factors.
+///
+/// - pp: r_pp = n_p^2 <sigma v>_11 f_11 / 2 reactions cm^-3 s^-1. Each pp reaction makes one 3He
+///   (deuterium burns at once). 3He is taken in equilibrium, r_pp = n_3^2 <sigma v>_33 +
+///   n_3 n_4 <sigma v>_34 (screened), which fixes the fraction beta = n_3 n_4 <sigma v>_34 / r_pp
+///   of 3He that goes through 3He + 4He (ppII; the ppIII branch, about 0.1 per cent in the Sun,
+///   is neglected). Energy per pp reaction: (1 - beta)/2 Q_ppI + beta Q_ppII with Q after neutrino
+///   losses ([`Q_PP1_MEV`], [`Q_PP2_MEV`]). eps_pp = r_pp ((1-beta)/2 Q_ppI + beta Q_ppII) / rho.
+/// - CNO: the CN cycle in equilibrium with all CNO nuclei as 14N (common approximation):
+///   n_14 = rho X_CNO / m(14N), eps_CNO = n_p n_14 <sigma v>_p14 f Q_CN / rho ([`Q_CN_MEV`]).
+///
+/// Rates from [`Reaction::sigma_v`], screening from [`screening`]. nu = dln eps / dln T is
+/// analytic, including the temperature dependence of beta. Domain: rho > 0, 1e3 <= T <= 1e10 K
+/// (rates underflow to zero at low T).
+#[derive(Debug, Clone, Copy)]
+pub struct SFactorRates {
+    pp: Reaction,
+    he33: Reaction,
+    he34: Reaction,
+    pn14: Reaction,
+}
+
+impl Default for SFactorRates {
+    fn default() -> Self {
+        Self {
+            pp: Reaction::pp(),
+            he33: Reaction::he3_he3(),
+            he34: Reaction::he3_he4(),
+            pn14: Reaction::p_n14(),
+        }
+    }
+}
+
+/// Screened <sigma v> and its temperature exponent.
+fn screened(r: &Reaction, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
+    let (sv, nu) = r.sigma_v(t);
+    let (ln_f, dln_f) = screening(r.z1, r.z2, rho, t, comp);
+    (sv * ln_f.exp(), nu + dln_f)
+}
+
+impl SFactorRates {
+    /// The fraction beta of 3He destroyed by 3He + 4He (ppII) at equilibrium, and d beta / d ln T.
+    pub fn pp2_fraction(&self, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
+        let n_p = rho * comp.x() / (A_H1 * M_U_G);
+        let n_4 = rho * comp.y() / (A_HE4 * M_U_G);
+        let (l11, nu11) = screened(&self.pp, rho, t, comp);
+        let (l33, nu33) = screened(&self.he33, rho, t, comp);
+        let (l34, nu34) = screened(&self.he34, rho, t, comp);
+        let r = 0.5 * n_p * n_p * l11;
+        let a = l33;
+        let b = n_4 * l34;
+        if !(r > 0.0 && b > 0.0 && a > 0.0) {
+            return (0.0, 0.0);
+        }
+        let root = (b * b + 4.0 * a * r).sqrt();
+        let n_3 = 2.0 * r / (b + root);
+        let beta = n_3 * b / r;
+        // (2 a n3 + b) dn3 = r nu_r - a n3^2 nu_a - b n3 nu_b   (per d ln T)
+        let dln_n3 =
+            (r * nu11 - a * n_3 * n_3 * nu33 - b * n_3 * nu34) / (n_3 * (2.0 * a * n_3 + b));
+        let dln_beta = dln_n3 + nu34 - nu11;
+        (beta, beta * dln_beta)
+    }
+}
+
+impl EnergyGeneration for SFactorRates {
+    fn name(&self) -> String {
+        "sfactor".to_string()
+    }
+
+    fn rate(&self, rho: f64, t: f64, comp: &Composition) -> Result<EnergyRate, PhysicsError> {
+        check_point("sfactor", rho, t)?;
+        if !(1e3..=1e10).contains(&t) {
+            return Err(PhysicsError::new(
+                "sfactor",
+                "temperature outside the law's domain 1e3..1e10 K",
+                rho,
+                t,
+            ));
+        }
+        let n_p = rho * comp.x() / (A_H1 * M_U_G);
+        let n_14 = rho * comp.x_cno() / (A_N14 * M_U_G);
+        let (l11, nu11) = screened(&self.pp, rho, t, comp);
+        let (beta, dbeta) = self.pp2_fraction(rho, t, comp);
+        let q_per_pp = (0.5 * (1.0 - beta) * Q_PP1_MEV + beta * Q_PP2_MEV) * MEV_ERG;
+        let dq = dbeta * (Q_PP2_MEV - 0.5 * Q_PP1_MEV) * MEV_ERG;
+        let eps_pp = 0.5 * n_p * n_p * l11 * q_per_pp / rho;
+        let (l14, nu14) = screened(&self.pn14, rho, t, comp);
+        let eps_cno = n_p * n_14 * l14 * Q_CN_MEV * MEV_ERG / rho;
+        let out = EnergyRate {
+            eps_pp_erg_g_s: eps_pp,
+            eps_cno_erg_g_s: eps_cno,
+            nu_pp: nu11 + dq / q_per_pp,
+            nu_cno: nu14,
+        };
+        let ok = [
+            out.eps_pp_erg_g_s,
+            out.eps_cno_erg_g_s,
+            out.nu_pp,
+            out.nu_cno,
+        ]
+        .iter()
+        .all(|v| v.is_finite());
+        if ok {
+            Ok(out)
+        } else {
+            Err(PhysicsError::new("sfactor", "rate not finite", rho, t))
+        }
+    }
+}

@@ -78,11 +78,11 @@ fn results_do_not_depend_on_fitting_mass_or_tolerance() {
             let d = relative_change(&base, &other);
             assert!(d < 1e-5, "{mass} M_sun, fit at {q}: relative change {d:e}");
         }
-        let tight = summary(settings(mass).with_tolerance(1e-12).unwrap());
+        let tight = summary(settings(mass).with_tolerance(1e-13).unwrap());
         let d = relative_change(&base, &tight);
         assert!(
             d < 1e-5,
-            "{mass} M_sun, tolerance 1e-12: relative change {d:e}"
+            "{mass} M_sun, tolerance 1e-13: relative change {d:e}"
         );
     }
 }

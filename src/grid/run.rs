@@ -121,9 +121,8 @@ pub fn solve_points(
                     let n = neighbour(&snapshot, &r.point)?;
                     let nu = n.unknowns?;
                     let p = &r.point;
-                    let shift = guess::initial_guess(p.mass_msun, &p.composition)
-                        - guess::initial_guess(n.point.mass_msun, &n.point.composition);
-                    let s = settings[i].clone().with_unknowns_guess(nu + shift);
+                    let start = guess::shifted(&guess::as_row(&nu), n.point.mass_msun, p.mass_msun, &p.composition);
+                    let s = settings[i].clone().with_unknowns_guess(start);
                     let retry = solve_one(s, p, true);
                     retry.unknowns.is_some().then_some((i, retry))
                 })

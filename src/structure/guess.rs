@@ -1,5 +1,13 @@
 //! Starting guesses for the shooting unknowns.
 //!
+//! The built-in guess interpolates, in log M, a reference table of this program's own converged
+//! `refined` models at X = 0.70, Z = 0.02 ([`REFERENCE_MODELS`], regenerated with
+//! `cargo run --release --example guess_table` whenever the refined laws change), shifted for
+//! other metallicities by logarithmic slopes fitted to this program's models at Z = 0.001 and
+//! Z = 0.04. The Newton iteration takes it from there; it does not need to be close.
+//!
+//! For continuation along a sequence, [`shifted`] moves a converged neighbour by the difference
+//! of the smooth [`polytrope_guess`] between the two masses:
 //! Radius and luminosity come from the published ZAMS fits of Tout et al. (1996) (at Z = 0.02;
 //! the Newton iteration absorbs the composition dependence). Central pressure and temperature
 //! come from the polytrope that best describes the star's interior at that mass: n = 3
@@ -13,8 +21,79 @@ use crate::constants::{G_CGS, K_B_ERG_K, L_SUN_ERG_S, M_SUN_G, M_U_G, R_SUN_CM};
 use crate::physics::Composition;
 use crate::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
 
-/// Built-in starting guess (ln P_c, ln T_c, ln R, ln L) for mass `mass_msun`.
+/// A row of the reference table: (ln P_c with P_c in dyn cm^-2, ln T_c with T_c in K,
+/// ln(R / R_sun), ln(L / L_sun)).
+pub type GuessRow = [f64; 4];
+
+/// Reference models: (M / M_sun, [`GuessRow`]), refined physics, X = 0.70, Z = 0.02 (computed
+/// by this program; see the module documentation).
+pub const REFERENCE_MODELS: [(f64, GuessRow); 22] = [
+    (0.08, [39.471998, 14.940710, -1.967744, -9.809693]),
+    (0.1, [39.200985, 15.111340, -1.786940, -8.781861]),
+    (0.15, [38.934109, 15.351541, -1.514803, -7.274141]),
+    (0.2, [38.803953, 15.500297, -1.336622, -6.342688]),
+    (0.3, [38.657293, 15.696563, -1.094884, -5.148237]),
+    (0.4, [38.649064, 15.810890, -0.926150, -4.322792]),
+    (0.5, [38.794866, 15.915562, -0.779639, -3.542915]),
+    (0.7, [39.112295, 16.123595, -0.516033, -2.121816]),
+    (1.0, [39.547684, 16.397750, -0.110432, -0.364149]),
+    (1.5, [39.914305, 16.729436, 0.257673, 1.690709]),
+    (2.0, [39.782373, 16.861954, 0.389339, 2.940650]),
+    (3.0, [39.407898, 16.984345, 0.621774, 4.563332]),
+    (5.0, [38.878039, 17.109347, 0.921991, 6.434606]),
+    (7.0, [38.542616, 17.183026, 1.117092, 7.575010]),
+    (10.0, [38.223680, 17.254515, 1.320287, 8.709315]),
+    (15.0, [37.926028, 17.327193, 1.545442, 9.901999]),
+    (20.0, [37.761181, 17.373167, 1.701326, 10.680738]),
+    (30.0, [37.589408, 17.430421, 1.917061, 11.679062]),
+    (50.0, [37.453422, 17.491229, 2.186548, 12.779782]),
+    (70.0, [37.399491, 17.525393, 2.365084, 13.422005]),
+    (100.0, [37.364592, 17.557431, 2.557029, 14.044771]),
+    (150.0, [37.345331, 17.589500, 2.779180, 14.693167]),
+];
+
+/// Built-in starting guess (ln P_c, ln T_c, ln R, ln L) for mass `mass_msun`: the reference table
+/// interpolated linearly in ln M (extrapolated from the end intervals), shifted for Z by
+/// d(ln Q)/d(ln Z) that blend in log M from their 1 M_sun values to their 10 M_sun values:
+/// ln L -0.22 to 0, ln R 0.035 to 0.12, ln T_c -0.02 to -0.045, ln P_c -0.13 to -0.26
+/// (fitted to this program's own models at Z = 0.001 and 0.04).
 pub fn initial_guess(mass_msun: f64, comp: &Composition) -> Unknowns {
+    let lm = mass_msun.ln();
+    let n = REFERENCE_MODELS.len();
+    let i = REFERENCE_MODELS[1..n - 1]
+        .iter()
+        .take_while(|(m, _)| m.ln() < lm)
+        .count();
+    let (m0, r0) = REFERENCE_MODELS[i];
+    let (m1, r1) = REFERENCE_MODELS[i + 1];
+    let f = (lm - m0.ln()) / (m1.ln() - m0.ln());
+    let row: GuessRow = std::array::from_fn(|k| r0[k] + f * (r1[k] - r0[k]));
+    let w = (lm / 10f64.ln()).clamp(0.0, 1.0);
+    let blend = |at1: f64, at10: f64| at1 + w * (at10 - at1);
+    let zeta = (comp.z().max(1e-6) / 0.02).ln();
+    Unknowns::new(
+        row[0] + blend(-0.13, -0.26) * zeta,
+        row[1] + blend(-0.02, -0.045) * zeta,
+        row[2] + blend(0.035, 0.12) * zeta + R_SUN_CM.ln(),
+        row[3] + blend(-0.22, 0.0) * zeta + L_SUN_ERG_S.ln(),
+    )
+}
+
+/// The guess for `to_msun` from a converged neighbour `row` at `from_msun`: the neighbour's
+/// unknowns shifted by the difference of [`polytrope_guess`] between the two masses (used for
+/// continuation along a sequence).
+pub fn shifted(row: &GuessRow, from_msun: f64, to_msun: f64, comp: &Composition) -> Unknowns {
+    let base = Unknowns::new(row[0], row[1], row[2] + R_SUN_CM.ln(), row[3] + L_SUN_ERG_S.ln());
+    base + polytrope_guess(to_msun, comp) - polytrope_guess(from_msun, comp)
+}
+
+/// The converged unknowns as a [`GuessRow`].
+pub fn as_row(u: &Unknowns) -> GuessRow {
+    [u[0], u[1], u[2] - R_SUN_CM.ln(), u[3] - L_SUN_ERG_S.ln()]
+}
+
+/// Guess from the ZAMS fits of Tout et al. (1996) for R and L and from polytropes for P_c, T_c.
+pub fn polytrope_guess(mass_msun: f64, comp: &Composition) -> Unknowns {
     let r_cm = tout1996_radius_rsun(mass_msun) * R_SUN_CM;
     let l_erg_s = tout1996_luminosity_lsun(mass_msun) * L_SUN_ERG_S;
     let m_g = mass_msun * M_SUN_G;

@@ -29,7 +29,7 @@ pub const ANALYTIC_MIN_MASS_MSUN: f64 = 0.7;
 /// Default fitting mass, as a fraction of M.
 pub const DEFAULT_FIT_MASS_FRACTION: f64 = 0.4;
 /// Default (finest) integrator tolerance, relative and absolute on the logarithmic variables.
-pub const DEFAULT_TOLERANCE: f64 = 1e-10;
+pub const DEFAULT_TOLERANCE: f64 = 1e-11;
 /// Default number of profile rows.
 pub const DEFAULT_PROFILE_POINTS: usize = 400;
 
@@ -246,8 +246,10 @@ pub fn solve_detailed(settings: &ZamsSettings) -> Result<ZamsOutcome> {
             rhs_evaluations: evaluations,
         });
     }
+    // The profile is integrated at the tolerance the iteration converged with (sharpening may
+    // have taken it below the setting), so that its legs meet as well as the solution's did.
     let mut final_ctx = ctx;
-    final_ctx.tolerance = settings.tolerance;
+    final_ctx.tolerance = problem.ctx.tolerance.min(settings.tolerance);
     let model = model::build(settings, &final_ctx, &report, evaluations)?;
     Ok(ZamsOutcome::Converged(Box::new(model)))
 }

@@ -10,6 +10,9 @@ use crate::error::{Error, Result};
 use crate::numerics::newton::NewtonProblem;
 use nalgebra::{SMatrix, SVector};
 
+/// The finest integrator tolerance `sharpen` goes to.
+const SHARPEST_TOLERANCE: f64 = 1e-13;
+
 /// The four unknowns (ln P_c, ln T_c, ln R, ln L), cgs.
 pub type Unknowns = SVector<f64, 4>;
 
@@ -87,6 +90,27 @@ impl<'a> ShootingProblem<'a> {
         )
     }
 
+    /// Mismatch with the outward leg from `out` and the inward leg at `(ln R, ln L)`, or with the
+    /// inward end `inn` and the outward leg at `(ln P_c, ln T_c)`: one column of the Jacobian by
+    /// a forward difference, or a backward one where the forward trial cannot be integrated.
+    fn column(&mut self, u: &Unknowns, k: usize, h: f64, f0: &SVector<f64, 4>, out0: &State, in0: &State) -> Result<SVector<f64, 4>, Error> {
+        let mut last_error = None;
+        for step in [h, -h] {
+            let mut v = *u;
+            v[k] += step;
+            let trial = if k < 2 {
+                self.outward(v[0], v[1]).map(|o| self.mismatch(&o, in0))
+            } else {
+                self.inward(v[2], v[3]).map(|i| self.mismatch(out0, &i))
+            };
+            match trial {
+                Ok(f) => return Ok((f - f0) / step),
+                Err(e) => last_error = Some(e),
+            }
+        }
+        Err(last_error.unwrap_or_else(|| Error::NoConvergence { iterations: 0, residual: f64::NAN, reason: "Jacobian column".into() }))
+    }
+
     /// Finite-difference step for the Jacobian at the current tolerance: large enough that
     /// integration noise (~ tolerance) stays below 1e-3 of the difference.
     fn difference_step(&self) -> f64 {
@@ -103,7 +127,7 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
     }
 
     /// Block structure: the outward end depends only on (ln P_c, ln T_c), the inward end only on
-    /// (ln R, ln L), so each column costs one leg. Forward differences.
+    /// (ln R, ln L), so each column costs one leg.
     fn jacobian(
         &mut self,
         u: &Unknowns,
@@ -118,24 +142,23 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
             }
         };
         let f0 = self.mismatch(&out0, &in0);
-        let out_p = self.outward(u[0] + h, u[1])?;
-        let out_t = self.outward(u[0], u[1] + h)?;
-        let in_r = self.inward(u[2] + h, u[3])?;
-        let in_l = self.inward(u[2], u[3] + h)?;
         let mut j = SMatrix::<f64, 4, 4>::zeros();
-        j.set_column(0, &((self.mismatch(&out_p, &in0) - f0) / h));
-        j.set_column(1, &((self.mismatch(&out_t, &in0) - f0) / h));
-        j.set_column(2, &((self.mismatch(&out0, &in_r) - f0) / h));
-        j.set_column(3, &((self.mismatch(&out0, &in_l) - f0) / h));
+        for k in 0..4 {
+            let col = self.column(u, k, h, &f0, &out0, &in0)?;
+            j.set_column(k, &col);
+        }
         Ok(j)
     }
 
     /// Integrate coarsely while far from the solution and tighten as the mismatch falls:
     /// tolerance = clamp(1e-3 x mismatch, floor, 1e-7).
-    /// Tighten the integrator 100x (down to the floor) so that the Jacobian is less noisy.
+    /// Tighten the integrator 10x so that the mismatch and its Jacobian are less noisy: down to
+    /// the floor, and once at the floor down to 1/100 of it (a stall near the convergence
+    /// tolerance is usually integration noise).
     fn sharpen(&mut self) -> bool {
-        if self.ctx.tolerance > self.tolerance_floor {
-            self.ctx.tolerance = (self.ctx.tolerance * 1e-2).max(self.tolerance_floor);
+        let limit = (self.tolerance_floor * 1e-2).max(SHARPEST_TOLERANCE);
+        if self.ctx.tolerance > limit {
+            self.ctx.tolerance = (self.ctx.tolerance * 0.1).max(limit);
             true
         } else {
             false

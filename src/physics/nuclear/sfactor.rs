@@ -150,7 +150,8 @@ impl Reaction {
 /// (= 0.188 Z1 Z2 zeta rho^(1/2) T6^(-3/2)). Strong screening (Salpeter 1954, ion-sphere):
 /// ln f = 0.9 [(Z1+Z2)^(5/3) - Z1^(5/3) - Z2^(5/3)] e^2 / (a_e kT), a_e = (3 / (4 pi n_e))^(1/3).
 /// The smaller of the two is used, a simple bridge across the intermediate regime (the fits of
-/// Graboske et al. 1973 are not implemented). Electron degeneracy is not allowed for in zeta.
+/// Graboske et al. 1973 are not implemented), capped at [`MAX_LN_SCREENING`]. Electron
+/// degeneracy is not allowed for in zeta.
 pub fn screening(z1: f64, z2: f64, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
     let kt = K_B_ERG_K * t;
     let z_m = 0.5 * METAL_MEAN_MASS_NUMBER;
@@ -166,12 +167,21 @@ pub fn screening(z1: f64, z2: f64, rho: f64, t: f64, comp: &Composition) -> (f64
     let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
     let p53 = |z: f64| z.powf(5.0 / 3.0);
     let strong = 0.9 * (p53(z1 + z2) - p53(z1) - p53(z2)) * E_ESU * E_ESU / (a_e * kt);
-    if weak <= strong {
+    let (ln_f, dln_f) = if weak <= strong {
         (weak, -1.5 * weak)
     } else {
         (strong, -strong)
+    };
+    if ln_f > MAX_LN_SCREENING {
+        (MAX_LN_SCREENING, 0.0)
+    } else {
+        (ln_f, dln_f)
     }
 }
+
+/// Cap on ln f: beyond it (cold, dense, pycnonuclear conditions far from any ZAMS star) the
+/// strong-screening formula is outside its validity; the enhancement is held at e^50.
+pub const MAX_LN_SCREENING: f64 = 50.0;
 
 /// pp-chain and CN-cycle energy generation from S-factors.
 ///

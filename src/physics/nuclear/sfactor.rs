@@ -116,9 +116,9 @@ impl Reaction {
         3.0 * (self.gamow_b() * kt / 2.0).powf(2.0 / 3.0) / kt
     }
 
-    /// <sigma v> in cm^3 s^-1 at temperature `t` and its logarithmic temperature derivative,
+    /// `<sigma v>` in cm^3 s^-1 at temperature `t` and its logarithmic temperature derivative,
     /// without screening: the Gamow-peak formula
-    /// <sigma v> = sqrt(2 / m_red) Delta (kT)^(-3/2) S_eff exp(-tau), E_0 = (b kT / 2)^(2/3),
+    /// `<sigma v>` = sqrt(2 / m_red) Delta (kT)^(-3/2) S_eff exp(-tau), E_0 = (b kT / 2)^(2/3),
     /// tau = 3 E_0 / kT, Delta = 4 sqrt(E_0 kT / 3), with
     /// S_eff = S(0) [1 + 5/(12 tau) + (S'/S)(E_0 + 35 kT / 36)] (Clayton 1968, eqs. 4-56 and
     /// 4-84; Fowler, Caughlan & Zimmerman 1967, ARA&A 5, 525).
@@ -185,14 +185,14 @@ pub const MAX_LN_SCREENING: f64 = 50.0;
 
 /// pp-chain and CN-cycle energy generation from S-factors.
 ///
-/// - pp: r_pp = n_p^2 <sigma v>_11 f_11 / 2 reactions cm^-3 s^-1. Each pp reaction makes one 3He
-///   (deuterium burns at once). 3He is taken in equilibrium, r_pp = n_3^2 <sigma v>_33 +
-///   n_3 n_4 <sigma v>_34 (screened), which fixes the fraction beta = n_3 n_4 <sigma v>_34 / r_pp
+/// - pp: r_pp = n_p^2 `<sigma v>`_11 f_11 / 2 reactions cm^-3 s^-1. Each pp reaction makes one 3He
+///   (deuterium burns at once). 3He is taken in equilibrium, r_pp = n_3^2 `<sigma v>`_33 +
+///   n_3 n_4 `<sigma v>`_34 (screened), which fixes the fraction beta = n_3 n_4 `<sigma v>`_34 / r_pp
 ///   of 3He that goes through 3He + 4He (ppII; the ppIII branch, about 0.1 per cent in the Sun,
 ///   is neglected). Energy per pp reaction: (1 - beta)/2 Q_ppI + beta Q_ppII with Q after neutrino
 ///   losses ([`Q_PP1_MEV`], [`Q_PP2_MEV`]). eps_pp = r_pp ((1-beta)/2 Q_ppI + beta Q_ppII) / rho.
 /// - CNO: the CN cycle in equilibrium with all CNO nuclei as 14N (common approximation):
-///   n_14 = rho X_CNO / m(14N), eps_CNO = n_p n_14 <sigma v>_p14 f Q_CN / rho ([`Q_CN_MEV`]).
+///   n_14 = rho X_CNO / m(14N), eps_CNO = n_p n_14 `<sigma v>`_p14 f Q_CN / rho ([`Q_CN_MEV`]).
 ///
 /// Rates from [`Reaction::sigma_v`], screening from [`screening`]. nu = dln eps / dln T is
 /// analytic, including the temperature dependence of beta. Domain: rho > 0, 1e3 <= T <= 1e10 K
@@ -276,7 +276,7 @@ impl Conditions {
     }
 }
 
-/// Screened <sigma v> and its temperature exponent; the same formulas as [`Reaction::sigma_v`]
+/// Screened `<sigma v>` and its temperature exponent; the same formulas as [`Reaction::sigma_v`]
 /// and [`screening`] with the shared factors computed once.
 fn screened(r: &Prepared, c: &Conditions) -> (f64, f64) {
     let e0 = r.e0_coefficient * c.kt_cbrt * c.kt_cbrt;

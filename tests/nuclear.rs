@@ -179,3 +179,27 @@ fn rates_outside_the_domain() {
     let cool = law.rate(1e-6, 5e3, &c).unwrap();
     assert_eq!(cool.eps_cno_erg_g_s, 0.0);
 }
+
+/// The fast evaluation inside the law equals the documented formulas: eps_CNO =
+/// n_p n_14 <sigma v> f Q_CN / rho with <sigma v> from Reaction::sigma_v and f from screening
+/// (same equations, factors shared; agreement to 1e-12 relative, rounding only).
+#[test]
+fn law_matches_its_formulas() {
+    use starpoise::constants::{MEV_ERG, M_U_G};
+    use starpoise::physics::nuclear::sfactor::Q_CN_MEV;
+    let c = Composition::new(0.70, 0.02).unwrap();
+    for (rho, t) in [(80.0, 1.5e7), (1.0, 3e7), (1e3, 5e6)] {
+        let r = SFactorRates::default().rate(rho, t, &c).unwrap();
+        let (sv, nu) = Reaction::p_n14().sigma_v(t);
+        let (ln_f, dln_f) = screening(1.0, 7.0, rho, t, &c);
+        let n_p = rho * 0.70 / (1.007_825_03 * M_U_G);
+        let n_14 = rho * c.x_cno() / (14.003_074 * M_U_G);
+        let want = n_p * n_14 * sv * ln_f.exp() * Q_CN_MEV * MEV_ERG / rho;
+        assert!(
+            (r.eps_cno_erg_g_s / want - 1.0).abs() < 1e-12,
+            "{} vs {want}",
+            r.eps_cno_erg_g_s
+        );
+        assert!((r.nu_cno - (nu + dln_f)).abs() < 1e-10);
+    }
+}

@@ -26,6 +26,12 @@ const NODES: usize = 1201; // (PSI_MAX - PSI_MIN) / STEP + 1
 const SQRT_PI: f64 = 1.772_453_850_905_516;
 /// Gamma(1/2), Gamma(3/2), Gamma(5/2).
 const GAMMA_HALF: [f64; 3] = [SQRT_PI, 0.5 * SQRT_PI, 0.75 * SQRT_PI];
+/// ln Gamma(1/2), ln Gamma(3/2), ln Gamma(5/2).
+const LN_GAMMA_HALF: [f64; 3] = [
+    0.572_364_942_924_700_1,
+    -0.120_782_237_635_245_2,
+    0.284_682_870_472_919_2,
+];
 
 /// F_-1/2, F_1/2 and F_3/2 at one psi.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -96,19 +102,39 @@ fn table() -> &'static Table {
     TABLE.get_or_init(build_table)
 }
 
+/// (-1)^(k+1) / k^(j+1) for k = 1..5 and j + 1 = 1/2, 3/2, 5/2.
+const SERIES: [[f64; 5]; 3] = [
+    [
+        1.0,
+        -0.707_106_781_186_547_5,
+        0.577_350_269_189_625_8,
+        -0.5,
+        0.447_213_595_499_957_9,
+    ],
+    [
+        1.0,
+        -0.353_553_390_593_273_7,
+        0.192_450_089_729_875_26,
+        -0.125,
+        0.089_442_719_099_991_59,
+    ],
+    [
+        1.0,
+        -0.176_776_695_296_636_87,
+        0.064_150_029_909_958_41,
+        -0.031_25,
+        0.017_888_543_819_998_32,
+    ],
+];
+
 /// Series for psi <= PSI_MIN: F_j = Gamma(j+1) sum_k (-1)^(k+1) e^(k psi) / k^(j+1).
 fn series(psi: f64) -> FermiDirac {
     let e = psi.exp();
     let mut out = [0.0; 3];
     for (jj, o) in out.iter_mut().enumerate() {
-        let power = jj as f64 + 0.5; // j + 1
-        let mut sum = 0.0;
-        let mut ek = 1.0;
-        for k in 1..=5 {
-            ek *= e;
-            let sign = if k % 2 == 1 { 1.0 } else { -1.0 };
-            sum += sign * ek / (k as f64).powf(power);
-        }
+        let c = &SERIES[jj];
+        // Horner in e: e (c0 + e (c1 + e (c2 + e (c3 + e c4)))).
+        let sum = e * (c[0] + e * (c[1] + e * (c[2] + e * (c[3] + e * c[4]))));
         *o = GAMMA_HALF[jj] * sum;
     }
     FermiDirac {
@@ -142,45 +168,92 @@ pub fn fermi_dirac(psi: f64) -> FermiDirac {
     if psi >= PSI_MAX {
         return sommerfeld(psi);
     }
+    let [m, h, t] = table_ln(psi);
+    FermiDirac {
+        f_minus_half: m.exp(),
+        f_half: h.exp(),
+        f_three_halves: t.exp(),
+    }
+}
+
+/// [ln F_-1/2, ln F_1/2, ln F_3/2] at `psi` (any finite psi), without the exponentials the
+/// table interpolation would otherwise need. Below the table, ln F_j = ln Gamma(j+1) + psi +
+/// ln(1 + x) with x = sum_(k>=2) c_k e^((k-1) psi), |x| < 4e-5, and ln(1 + x) by its series to
+/// x^3 (error below 1e-18).
+pub fn ln_fermi_dirac(psi: f64) -> [f64; 3] {
+    if psi <= PSI_MIN {
+        let e = psi.exp();
+        let mut out = [0.0; 3];
+        for (jj, o) in out.iter_mut().enumerate() {
+            let c = &SERIES[jj];
+            let x = e * (c[1] + e * (c[2] + e * (c[3] + e * c[4])));
+            *o = LN_GAMMA_HALF[jj] + psi + x * (1.0 - x * (0.5 - x / 3.0));
+        }
+        return out;
+    }
+    if psi >= PSI_MAX {
+        let f = sommerfeld(psi);
+        return [f.f_minus_half.ln(), f.f_half.ln(), f.f_three_halves.ln()];
+    }
+    table_ln(psi)
+}
+
+/// Cubic Hermite interpolation of ln F_j in the table, PSI_MIN < psi < PSI_MAX.
+fn table_ln(psi: f64) -> [f64; 3] {
     let tab = table();
     let u = (psi - PSI_MIN) / STEP;
     let i = (u.floor() as usize).min(NODES - 2);
     let s = u - i as f64;
-    // Cubic Hermite basis on [0, 1].
     let s2 = s * s;
     let s3 = s2 * s;
     let h00 = 2.0 * s3 - 3.0 * s2 + 1.0;
-    let h10 = s3 - 2.0 * s2 + s;
+    let h10 = (s3 - 2.0 * s2 + s) * STEP;
     let h01 = -2.0 * s3 + 3.0 * s2;
-    let h11 = s3 - s2;
+    let h11 = (s3 - s2) * STEP;
     let mut out = [0.0; 3];
     for (j, o) in out.iter_mut().enumerate() {
-        let ln = h00 * tab.ln_f[j][i]
-            + h10 * STEP * tab.slope[j][i]
+        *o = h00 * tab.ln_f[j][i]
+            + h10 * tab.slope[j][i]
             + h01 * tab.ln_f[j][i + 1]
-            + h11 * STEP * tab.slope[j][i + 1];
-        *o = ln.exp();
+            + h11 * tab.slope[j][i + 1];
     }
-    FermiDirac {
-        f_minus_half: out[0],
-        f_half: out[1],
-        f_three_halves: out[2],
+    out
+}
+
+/// A first guess for the psi with F_1/2(psi) = `f_half` (> 0), good to about 1e-2: the
+/// first-order non-degenerate inversion psi = ln u + u / sqrt(8), u = F / Gamma(3/2) (Joyce &
+/// Dixon 1977, Appl. Phys. Lett. 31, 354, first term) for u < 4, the Sommerfeld inversion
+/// psi = p (1 - (pi^2/12) p^-2), p = (3F/2)^(2/3), above.
+pub fn inverse_guess(f_half: f64) -> f64 {
+    let u = f_half / GAMMA_HALF[1];
+    if u < 4.0 {
+        u.ln() + u * 0.353_553_390_593_273_7
+    } else {
+        let p = (1.5 * f_half).cbrt().powi(2);
+        p * (1.0 - std::f64::consts::PI * std::f64::consts::PI / (12.0 * p * p))
     }
 }
 
-/// The psi with F_1/2(psi) = `f_half` (> 0), by Newton iteration on ln F_1/2 from the
-/// non-degenerate (psi = ln(F/Gamma(3/2))) or degenerate (psi = (3F/2)^(2/3)) first guess.
+/// A rigorous upper bound on the psi with F_1/2(psi) = `f_half` (> 0): F_1/2(psi) >=
+/// (2/3) psi^(3/2) for psi > 0 and F_1/2(psi) >= Gamma(3/2) e^psi / (1 + e^psi) (from
+/// 1/(e^(x-psi)+1) >= e^(psi-x)/(1+e^psi) for x >= 0), so F_1/2 >= `f_half` at the returned psi.
+pub fn inverse_upper_bound(f_half: f64) -> f64 {
+    if f_half < 0.5 * GAMMA_HALF[1] {
+        // Negative, so below the (positive) degenerate bound.
+        (2.0 * f_half / GAMMA_HALF[1]).ln()
+    } else {
+        (1.5 * f_half).cbrt().powi(2)
+    }
+}
+
+/// The psi with F_1/2(psi) = `f_half` (> 0), by Newton iteration on ln F_1/2 from
+/// [`inverse_guess`].
 /// Returns `None` if `f_half` is not finite and positive.
 pub fn inverse_fermi_dirac_half(f_half: f64) -> Option<f64> {
     if !(f_half.is_finite() && f_half > 0.0) {
         return None;
     }
-    let classical = (f_half / GAMMA_HALF[1]).ln();
-    let mut psi = if classical < 0.0 {
-        classical
-    } else {
-        classical.max((1.5 * f_half).powf(2.0 / 3.0))
-    };
+    let mut psi = inverse_guess(f_half);
     let target = f_half.ln();
     for _ in 0..50 {
         let f = fermi_dirac(psi);

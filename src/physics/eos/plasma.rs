@@ -42,10 +42,10 @@
 //! Derivatives are analytic: d psi / d ln rho and d psi / d ln T by implicit differentiation of
 //! the neutrality equation, then chi_rho, chi_T and c_V = (du/dT)_rho with the specific energy
 //! u = (3/2)(P_ion + P_e)/rho + a T^4/rho + E_ion / m_u, and c_P = c_V + (P/(rho T)) chi_T^2 /
-//! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho / (1 - chi_T nabla_ad)
-//! (Kippenhahn & Weigert 1990, §13–14).
+//! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho c_P / c_V
+//! (Kippenhahn & Weigert 1990, §13–14), evaluated in forms free of cancellation.
 
-use super::fermi_dirac::{fermi_dirac, inverse_fermi_dirac_half};
+use super::fermi_dirac::{inverse_guess, inverse_upper_bound, ln_fermi_dirac};
 use super::EosState;
 use crate::constants::{A_RAD_CGS, EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
 use crate::error::PhysicsError;
@@ -61,6 +61,8 @@ pub const CHI_HE2_EV: f64 = 54.418;
 pub const BOHR_RADIUS_CM: f64 = 5.291_772_109e-9;
 
 const SQRT_PI: f64 = 1.772_453_850_905_516;
+/// ln Gamma(3/2) = ln(sqrt(pi) / 2).
+const LN_GAMMA_THREE_HALVES: f64 = -0.120_782_237_635_245_2;
 
 /// How the H and He ionisation stages are found.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -104,6 +106,24 @@ pub struct Solved {
     pub dpsi_dlnrho: f64,
 }
 
+/// Everything at one (rho, T) that does not depend on psi.
+#[derive(Debug, Clone, Copy)]
+struct Setup {
+    rho: f64,
+    t: f64,
+    kt: f64,
+    /// Nuclei per m_u.
+    n_ion: f64,
+    /// Nuclei per cm^3.
+    n_nuc: f64,
+    /// n_e = q F_1/2(psi).
+    q: f64,
+    ln_q_over_n: f64,
+    psi_full: f64,
+    psi_max: f64,
+    inputs: StageInputs,
+}
+
 /// Derivatives of one quantity with respect to (psi, ln T, ln rho).
 #[derive(Debug, Clone, Copy, Default)]
 struct Grad {
@@ -137,35 +157,48 @@ impl Plasma {
     fn integrals(&self, psi: f64) -> ElectronIntegrals {
         match self.electrons {
             Electrons::Classical => ElectronIntegrals {
-                ln_f_half: psi + (0.5 * SQRT_PI).ln(),
+                ln_f_half: psi + LN_GAMMA_THREE_HALVES,
                 slope_half: 1.0,
                 f_three_halves: 0.75 * SQRT_PI * psi.exp(),
                 slope_three_halves: 1.0,
             },
             Electrons::FermiDirac => {
-                let f = fermi_dirac(psi);
+                let [ln_m, ln_h, ln_3] = ln_fermi_dirac(psi);
                 ElectronIntegrals {
-                    ln_f_half: f.f_half.ln(),
-                    slope_half: 0.5 * f.f_minus_half / f.f_half,
-                    f_three_halves: f.f_three_halves,
-                    slope_three_halves: 1.5 * f.f_half / f.f_three_halves,
+                    ln_f_half: ln_h,
+                    slope_half: 0.5 * (ln_m - ln_h).exp(),
+                    f_three_halves: ln_3.exp(),
+                    slope_three_halves: 1.5 * (ln_h - ln_3).exp(),
                 }
             }
         }
     }
 
-    /// psi at which F_1/2 (or its classical limit) equals `f_half`.
-    fn psi_for(&self, f_half: f64) -> Option<f64> {
-        match self.electrons {
-            Electrons::Classical => {
-                if f_half > 0.0 && f_half.is_finite() {
-                    Some((f_half / (0.5 * SQRT_PI)).ln())
-                } else {
-                    None
-                }
-            }
-            Electrons::FermiDirac => inverse_fermi_dirac_half(f_half),
+    /// (first guess, rigorous upper bound) of the psi at which F_1/2 (or its classical limit)
+    /// equals `f_half`; `None` unless `f_half` is finite and positive.
+    fn psi_start(&self, f_half: f64) -> Option<(f64, f64)> {
+        if !(f_half > 0.0 && f_half.is_finite()) {
+            return None;
         }
+        Some(match self.electrons {
+            Electrons::Classical => {
+                let exact = f_half.ln() - LN_GAMMA_THREE_HALVES;
+                (exact, exact)
+            }
+            Electrons::FermiDirac if f_half < 0.4 => {
+                // Non-degenerate: one logarithm for both (same bounds as the general case).
+                let ln_u = f_half.ln() - LN_GAMMA_THREE_HALVES;
+                let hi = ln_u + std::f64::consts::LN_2;
+                (
+                    (ln_u + f_half / (0.5 * SQRT_PI) * 0.353_553_390_593_273_7).min(hi),
+                    hi,
+                )
+            }
+            Electrons::FermiDirac => {
+                let hi = inverse_upper_bound(f_half);
+                (inverse_guess(f_half).min(hi), hi)
+            }
+        })
     }
 
     fn error(&self, reason: impl Into<String>, rho: f64, t: f64) -> PhysicsError {
@@ -193,15 +226,8 @@ impl Plasma {
         Ok(())
     }
 
-    /// The state at (rho, T); `psi_guess` may warm-start the neutrality solve.
-    pub fn solve(
-        &self,
-        rho: f64,
-        t: f64,
-        comp: &Composition,
-        psi_guess: Option<f64>,
-    ) -> Result<Solved, PhysicsError> {
-        self.check(rho, t)?;
+    /// Everything at (rho, T) that does not depend on psi.
+    fn setup(&self, rho: f64, t: f64, comp: &Composition) -> Result<Setup, PhysicsError> {
         let kt = K_B_ERG_K * t;
         let x = comp.x();
         let y4 = 0.25 * comp.y();
@@ -210,16 +236,16 @@ impl Plasma {
         let n_ion = x + y4 + z_ion;
         let n_e_max = x + 2.0 * y4 + z_e;
         let n_nuc = rho / M_U_G * n_ion;
-        // n_e = c_n T^(3/2) F_1/2(psi)
-        let c_n = 4.0 / SQRT_PI
-            * (2.0 * std::f64::consts::PI * M_E_G * K_B_ERG_K / (H_ERG_S * H_ERG_S)).powf(1.5);
-        let ln_q = (c_n * t.powf(1.5)).ln();
-        let ln_n_u = (rho / M_U_G).ln();
-        // Fully ionised solution: the upper end of the psi bracket.
-        let psi_max = self
-            .psi_for((rho / M_U_G * n_e_max / (c_n * t.powf(1.5))).max(f64::MIN_POSITIVE))
+        // n_e = c_n T^(3/2) F_1/2(psi), c_n = (4 / sqrt(pi)) (2 pi m_e k / h^2)^(3/2).
+        let thermal = 2.0 * std::f64::consts::PI * M_E_G * K_B_ERG_K / (H_ERG_S * H_ERG_S);
+        let c_n = 4.0 / SQRT_PI * thermal * thermal.sqrt();
+        let q = c_n * t * t.sqrt();
+        // ln q - ln(rho / m_u), one logarithm.
+        let ln_q_over_n = (q * M_U_G / rho).ln();
+        // Fully ionised electron density: bounds the psi bracket from above.
+        let (psi_full, psi_max) = self
+            .psi_start((rho / M_U_G * n_e_max / q).max(f64::MIN_POSITIVE))
             .ok_or_else(|| self.error("electron density not representable", rho, t))?;
-
         let inputs = StageInputs {
             x,
             y4,
@@ -231,15 +257,61 @@ impl Plasma {
             w_he1: occupation(pressure_volume(27.0 / 16.0) * n_nuc),
             w_he2: occupation(pressure_volume(2.0) * n_nuc),
         };
+        Ok(Setup {
+            rho,
+            t,
+            kt,
+            n_ion,
+            n_nuc,
+            q,
+            ln_q_over_n,
+            psi_full,
+            psi_max,
+            inputs,
+        })
+    }
 
-        let (psi, stages) = match self.ionisation {
-            Ionisation::Full => (psi_max, inputs.full()),
-            Ionisation::Saha => {
-                self.solve_neutrality(&inputs, ln_q, ln_n_u, psi_max, psi_guess, rho, t)?
-            }
-        };
+    fn stages(&self, inputs: &StageInputs, psi: f64) -> Stages {
+        match self.ionisation {
+            Ionisation::Saha => inputs.saha(psi),
+            Ionisation::Full => inputs.full(),
+        }
+    }
 
-        let el = self.integrals(psi);
+    /// The state at (rho, T); `psi_guess` may warm-start the neutrality solve.
+    pub fn solve(
+        &self,
+        rho: f64,
+        t: f64,
+        comp: &Composition,
+        psi_guess: Option<f64>,
+    ) -> Result<Solved, PhysicsError> {
+        self.check(rho, t)?;
+        let setup = self.setup(rho, t, comp)?;
+        let guess = psi_guess
+            .filter(|g| g.is_finite())
+            .unwrap_or(setup.psi_full);
+        let (psi, stages, el) = self.solve_neutrality(&setup, guess)?;
+        self.finish(&setup, psi, &stages, &el)
+    }
+
+    /// The full state at a solved psi, with the analytic derivatives.
+    fn finish(
+        &self,
+        setup: &Setup,
+        psi: f64,
+        stages: &Stages,
+        el: &ElectronIntegrals,
+    ) -> Result<Solved, PhysicsError> {
+        let Setup {
+            rho,
+            t,
+            kt,
+            n_ion,
+            n_nuc,
+            q,
+            ..
+        } = *setup;
         // Implicit derivatives of psi from G = ln F_1/2 + ln q(T) - ln(rho/m_u) - ln N_e = 0.
         let dln_ne = Grad {
             psi: stages.d_n_e.psi / stages.n_e,
@@ -250,7 +322,7 @@ impl Plasma {
         let psi_t = -(1.5 - dln_ne.ln_t) / g_psi;
         let psi_rho = -(-1.0 - dln_ne.ln_rho) / g_psi;
 
-        let p_e = c_n * t.powf(1.5) * kt * (2.0 / 3.0) * el.f_three_halves;
+        let p_e = q * kt * (2.0 / 3.0) * el.f_three_halves;
         let p_ion = n_nuc * kt;
         let p_rad = A_RAD_CGS * t.powi(4) / 3.0;
         let p = p_e + p_ion + p_rad;
@@ -263,9 +335,13 @@ impl Plasma {
             + 4.0 * A_RAD_CGS * t.powi(4) / rho
             + de_ion_t / M_U_G)
             / t;
-        let cp = cv + p / (rho * t) * chi_t * chi_t / chi_rho;
-        let nabla_ad = p * chi_t / (rho * t * cp * chi_rho);
-        let gamma1 = chi_rho / (1.0 - chi_t * nabla_ad);
+        // Forms without cancellation when chi_rho -> 0 (radiation-dominated gas):
+        // c_P - c_V = P chi_T^2 / (rho T chi_rho), Gamma_1 = chi_rho + P chi_T^2 / (rho T c_V),
+        // nabla_ad = P chi_T / (rho T c_V chi_rho + P chi_T^2).
+        let pt2 = p * chi_t * chi_t;
+        let cp = cv + pt2 / (rho * t * chi_rho);
+        let nabla_ad = p * chi_t / (rho * t * cv * chi_rho + pt2);
+        let gamma1 = chi_rho + pt2 / (rho * t * cv);
         let state = EosState {
             density_g_cm3: rho,
             temperature_k: t,
@@ -296,29 +372,25 @@ impl Plasma {
         })
     }
 
-    #[allow(clippy::too_many_arguments)]
+    /// psi from charge neutrality G(psi) = ln F_1/2(psi) + ln q - ln(rho/m_u) - ln N_e(psi) = 0,
+    /// G increasing: Newton steps kept inside the bracket (lo, hi], bisection or a downward
+    /// search when a step would leave it. `psi_max` is a rigorous upper bound (G >= 0 there).
     fn solve_neutrality(
         &self,
-        inputs: &StageInputs,
-        ln_q: f64,
-        ln_n_u: f64,
-        psi_max: f64,
-        psi_guess: Option<f64>,
-        rho: f64,
-        t: f64,
-    ) -> Result<(f64, Stages), PhysicsError> {
+        setup: &Setup,
+        guess: f64,
+    ) -> Result<(f64, Stages, ElectronIntegrals), PhysicsError> {
+        let (inputs, ln_q_over_n, psi_max) = (&setup.inputs, setup.ln_q_over_n, setup.psi_max);
+        let (rho, t) = (setup.rho, setup.t);
         let mut lo = f64::NEG_INFINITY;
         let mut hi = psi_max;
-        let mut psi = match psi_guess {
-            Some(g) if g.is_finite() => g.min(psi_max),
-            _ => psi_max,
-        };
+        let mut psi = guess.min(psi_max);
         for _ in 0..300 {
-            let stages = inputs.saha(psi);
+            let stages = self.stages(inputs, psi);
             let el = self.integrals(psi);
-            let g = el.ln_f_half + ln_q - ln_n_u - stages.n_e.ln();
+            let g = el.ln_f_half + ln_q_over_n - stages.n_e.ln();
             if g.abs() < 1e-12 {
-                return Ok((psi, stages));
+                return Ok((psi, stages, el));
             }
             if g > 0.0 {
                 hi = psi;
@@ -326,8 +398,12 @@ impl Plasma {
                 lo = psi;
             }
             let slope = el.slope_half - stages.d_n_e.psi / stages.n_e;
-            let newton = psi - g / slope;
-            let next = if newton.is_finite() && newton > lo && newton < hi {
+            let step = g / slope;
+            if step.abs() < 1e-13 * (1.0 + psi.abs()) {
+                return Ok((psi, stages, el));
+            }
+            let newton = psi - step;
+            psi = if newton.is_finite() && newton > lo && newton < hi {
                 newton
             } else if lo.is_finite() {
                 0.5 * (lo + hi)
@@ -335,17 +411,17 @@ impl Plasma {
                 // No lower end yet: step down geometrically.
                 psi - (2.0 * (hi - psi)).max(10.0)
             };
-            if (hi - lo).abs() < 1e-13 * (1.0 + psi.abs()) {
-                return Ok((next, inputs.saha(next)));
+            if hi - lo < 1e-13 * (1.0 + psi.abs()) {
+                return Ok((psi, self.stages(inputs, psi), self.integrals(psi)));
             }
-            psi = next;
         }
         Err(self.error("charge neutrality not solved in 300 iterations", rho, t))
     }
 
-    /// The state at total pressure `p` and temperature `t`: Newton iteration in ln rho with the
-    /// analytic chi_rho, kept inside a bracket and the law's density domain, warm-starting each
-    /// neutrality solve from the previous psi.
+    /// The state at total pressure `p` and temperature `t`: first a joint Newton iteration on
+    /// (ln rho, psi) from the fully ionised ideal gas; if that fails, Newton iteration in ln rho
+    /// with the analytic chi_rho, kept inside a bracket and the law's density domain,
+    /// warm-starting each neutrality solve from the previous psi.
     pub fn at_pressure(
         &self,
         p: f64,
@@ -378,9 +454,13 @@ impl Plasma {
             .ln()
             .clamp(lo, hi);
         let ln_p = p.ln();
+        if let Some(state) = self.joint_newton(ln_p, p_rad, t, comp, ln_rho) {
+            return Ok(state);
+        }
+        // Fallback: nested iteration, slower but bracketed.
         let mut psi_guess = None;
         for _ in 0..100 {
-            let solved = self.solve(ln_rho.exp(), t, comp, psi_guess)?;
+            let solved = self.solve(ln_rho.exp().clamp(rlo, rhi), t, comp, psi_guess)?;
             let s = solved.state;
             let f = s.pressure_dyn_cm2.ln() - ln_p;
             if f.abs() < 1e-12 {
@@ -417,6 +497,66 @@ impl Plasma {
     }
 }
 
+impl Plasma {
+    /// Fast path of the inversion: Newton iteration on (ln rho, psi) together, solving
+    /// ln P(rho, psi) = ln P_target and charge neutrality at once with the analytic 2x2 Jacobian
+    /// (its determinant is positive: P and the neutrality residual both increase with psi and
+    /// the residual falls with rho). Steps are limited to 2 in ln rho and 10 in psi. Returns
+    /// `None` (and the caller falls back to the bracketed nested iteration) if it does not
+    /// converge in 40 steps or leaves the density domain.
+    fn joint_newton(
+        &self,
+        ln_p: f64,
+        p_rad: f64,
+        t: f64,
+        comp: &Composition,
+        ln_rho_start: f64,
+    ) -> Option<EosState> {
+        let (rlo, rhi) = self.rho_range_g_cm3;
+        let (llo, lhi) = (rlo.ln(), rhi.ln());
+        let mut ln_rho = ln_rho_start;
+        let mut psi: Option<f64> = None;
+        let mut at_edge = 0;
+        for _ in 0..40 {
+            let setup = self.setup(ln_rho.exp().clamp(rlo, rhi), t, comp).ok()?;
+            let ps = psi.unwrap_or(setup.psi_full).min(setup.psi_max);
+            let stages = self.stages(&setup.inputs, ps);
+            let el = self.integrals(ps);
+            let r2 = el.ln_f_half + setup.ln_q_over_n - stages.n_e.ln();
+            let p_e = setup.q * setup.kt * (2.0 / 3.0) * el.f_three_halves;
+            let p_ion = setup.n_nuc * setup.kt;
+            let p_tot = p_e + p_ion + p_rad;
+            let r1 = p_tot.ln() - ln_p;
+            if r1.abs() < 1e-12 && r2.abs() < 1e-12 {
+                return self.finish(&setup, ps, &stages, &el).ok().map(|s| s.state);
+            }
+            let a11 = p_ion / p_tot;
+            let a12 = p_e * el.slope_three_halves / p_tot;
+            let a21 = -1.0 - stages.d_n_e.ln_rho / stages.n_e;
+            let a22 = el.slope_half - stages.d_n_e.psi / stages.n_e;
+            let det = a11 * a22 - a12 * a21;
+            if !(det.is_finite() && det > 0.0 && r1.is_finite() && r2.is_finite()) {
+                return None;
+            }
+            let d_ln_rho = (r1 * a22 - a12 * r2) / det;
+            let d_psi = (a11 * r2 - a21 * r1) / det;
+            let scale = 1.0f64
+                .min(2.0 / d_ln_rho.abs().max(1e-300))
+                .min(10.0 / d_psi.abs().max(1e-300));
+            ln_rho -= scale * d_ln_rho;
+            psi = Some(ps - scale * d_psi);
+            if ln_rho < llo || ln_rho > lhi {
+                at_edge += 1;
+                if at_edge > 2 {
+                    return None;
+                }
+                ln_rho = ln_rho.clamp(llo, lhi);
+            }
+        }
+        None
+    }
+}
+
 /// (4 pi / 3) (2 a_0 / Z_eff)^3, the hard-sphere volume of a bound species, cm^3.
 fn pressure_volume(z_eff: f64) -> f64 {
     let r = 2.0 * BOHR_RADIUS_CM / z_eff;
@@ -426,7 +566,11 @@ fn pressure_volume(z_eff: f64) -> f64 {
 /// ln w and d ln w / d ln rho for the pressure-ionisation parameter s (proportional to rho):
 /// ln w = -s exp(min(s, 15)).
 fn occupation(s: f64) -> (f64, f64) {
-    if s < 15.0 {
+    if s < 1e-5 {
+        // e^s = 1 + s + s^2/2 to 2e-16 relative.
+        let e = 1.0 + s * (1.0 + 0.5 * s);
+        (-s * e, -s * (1.0 + s) * e)
+    } else if s < 15.0 {
         let e = s.exp();
         (-s * e, -s * (1.0 + s) * e)
     } else {
@@ -465,9 +609,10 @@ impl StageInputs {
     /// Saha stages at `psi` with derivatives; stable for any size of the ln ratios.
     fn saha(&self, psi: f64) -> Stages {
         // ln(n_upper / n_lower) for H I -> II, He I -> II, He II -> III.
-        let l_h = (0.5f64).ln() - psi - self.a_h - self.w_h.0;
-        let l_1 = (2.0f64).ln() - psi - self.a_1 - self.w_he1.0 + self.w_he2.0;
-        let l_2 = (0.5f64).ln() - psi - self.a_2 - self.w_he2.0;
+        use std::f64::consts::LN_2;
+        let l_h = -LN_2 - psi - self.a_h - self.w_h.0;
+        let l_1 = LN_2 - psi - self.a_1 - self.w_he1.0 + self.w_he2.0;
+        let l_2 = -LN_2 - psi - self.a_2 - self.w_he2.0;
         // Derivatives of the ln ratios: d/dpsi = -1; d/dlnT = chi/kT; d/dln rho from the w terms.
         let dl_h = Grad {
             psi: -1.0,

@@ -116,9 +116,9 @@ impl Reaction {
         3.0 * (self.gamow_b() * kt / 2.0).powf(2.0 / 3.0) / kt
     }
 
-    /// <sigma v> in cm^3 s^-1 at temperature `t` and its logarithmic temperature derivative,
+    /// `<sigma v>` in cm^3 s^-1 at temperature `t` and its logarithmic temperature derivative,
     /// without screening: the Gamow-peak formula
-    /// <sigma v> = sqrt(2 / m_red) Delta (kT)^(-3/2) S_eff exp(-tau), E_0 = (b kT / 2)^(2/3),
+    /// `<sigma v>` = sqrt(2 / m_red) Delta (kT)^(-3/2) S_eff exp(-tau), E_0 = (b kT / 2)^(2/3),
     /// tau = 3 E_0 / kT, Delta = 4 sqrt(E_0 kT / 3), with
     /// S_eff = S(0) [1 + 5/(12 tau) + (S'/S)(E_0 + 35 kT / 36)] (Clayton 1968, eqs. 4-56 and
     /// 4-84; Fowler, Caughlan & Zimmerman 1967, ARA&A 5, 525).
@@ -150,7 +150,8 @@ impl Reaction {
 /// (= 0.188 Z1 Z2 zeta rho^(1/2) T6^(-3/2)). Strong screening (Salpeter 1954, ion-sphere):
 /// ln f = 0.9 [(Z1+Z2)^(5/3) - Z1^(5/3) - Z2^(5/3)] e^2 / (a_e kT), a_e = (3 / (4 pi n_e))^(1/3).
 /// The smaller of the two is used, a simple bridge across the intermediate regime (the fits of
-/// Graboske et al. 1973 are not implemented). Electron degeneracy is not allowed for in zeta.
+/// Graboske et al. 1973 are not implemented), capped at [`MAX_LN_SCREENING`]. Electron
+/// degeneracy is not allowed for in zeta.
 pub fn screening(z1: f64, z2: f64, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
     let kt = K_B_ERG_K * t;
     let z_m = 0.5 * METAL_MEAN_MASS_NUMBER;
@@ -166,61 +167,157 @@ pub fn screening(z1: f64, z2: f64, rho: f64, t: f64, comp: &Composition) -> (f64
     let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
     let p53 = |z: f64| z.powf(5.0 / 3.0);
     let strong = 0.9 * (p53(z1 + z2) - p53(z1) - p53(z2)) * E_ESU * E_ESU / (a_e * kt);
-    if weak <= strong {
+    let (ln_f, dln_f) = if weak <= strong {
         (weak, -1.5 * weak)
     } else {
         (strong, -strong)
+    };
+    if ln_f > MAX_LN_SCREENING {
+        (MAX_LN_SCREENING, 0.0)
+    } else {
+        (ln_f, dln_f)
     }
 }
 
+/// Cap on ln f: beyond it (cold, dense, pycnonuclear conditions far from any ZAMS star) the
+/// strong-screening formula is outside its validity; the enhancement is held at e^50.
+pub const MAX_LN_SCREENING: f64 = 50.0;
+
 /// pp-chain and CN-cycle energy generation from S-factors.
 ///
-/// - pp: r_pp = n_p^2 <sigma v>_11 f_11 / 2 reactions cm^-3 s^-1. Each pp reaction makes one 3He
-///   (deuterium burns at once). 3He is taken in equilibrium, r_pp = n_3^2 <sigma v>_33 +
-///   n_3 n_4 <sigma v>_34 (screened), which fixes the fraction beta = n_3 n_4 <sigma v>_34 / r_pp
+/// - pp: r_pp = n_p^2 `<sigma v>`_11 f_11 / 2 reactions cm^-3 s^-1. Each pp reaction makes one 3He
+///   (deuterium burns at once). 3He is taken in equilibrium, r_pp = n_3^2 `<sigma v>`_33 +
+///   n_3 n_4 `<sigma v>`_34 (screened), which fixes the fraction beta = n_3 n_4 `<sigma v>`_34 / r_pp
 ///   of 3He that goes through 3He + 4He (ppII; the ppIII branch, about 0.1 per cent in the Sun,
 ///   is neglected). Energy per pp reaction: (1 - beta)/2 Q_ppI + beta Q_ppII with Q after neutrino
 ///   losses ([`Q_PP1_MEV`], [`Q_PP2_MEV`]). eps_pp = r_pp ((1-beta)/2 Q_ppI + beta Q_ppII) / rho.
 /// - CNO: the CN cycle in equilibrium with all CNO nuclei as 14N (common approximation):
-///   n_14 = rho X_CNO / m(14N), eps_CNO = n_p n_14 <sigma v>_p14 f Q_CN / rho ([`Q_CN_MEV`]).
+///   n_14 = rho X_CNO / m(14N), eps_CNO = n_p n_14 `<sigma v>`_p14 f Q_CN / rho ([`Q_CN_MEV`]).
 ///
 /// Rates from [`Reaction::sigma_v`], screening from [`screening`]. nu = dln eps / dln T is
 /// analytic, including the temperature dependence of beta. Domain: rho > 0, 1e3 <= T <= 1e10 K
 /// (rates underflow to zero at low T).
 #[derive(Debug, Clone, Copy)]
 pub struct SFactorRates {
-    pp: Reaction,
-    he33: Reaction,
-    he34: Reaction,
-    pn14: Reaction,
+    pp: Prepared,
+    he33: Prepared,
+    he34: Prepared,
+    pn14: Prepared,
 }
 
 impl Default for SFactorRates {
     fn default() -> Self {
         Self {
-            pp: Reaction::pp(),
-            he33: Reaction::he3_he3(),
-            he34: Reaction::he3_he4(),
-            pn14: Reaction::p_n14(),
+            pp: Prepared::new(&Reaction::pp()),
+            he33: Prepared::new(&Reaction::he3_he3()),
+            he34: Prepared::new(&Reaction::he3_he4()),
+            pn14: Prepared::new(&Reaction::p_n14()),
         }
     }
 }
 
-/// Screened <sigma v> and its temperature exponent.
-fn screened(r: &Reaction, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
-    let (sv, nu) = r.sigma_v(t);
-    let (ln_f, dln_f) = screening(r.z1, r.z2, rho, t, comp);
-    (sv * ln_f.exp(), nu + dln_f)
+/// The per-reaction constants of [`Reaction::sigma_v`] and [`screening`], computed once.
+#[derive(Debug, Clone, Copy)]
+struct Prepared {
+    /// (b / 2)^(2/3), so that E_0 = this (kT)^(2/3).
+    e0_coefficient: f64,
+    /// sqrt(2 / m_red) S(0).
+    prefactor: f64,
+    s_slope_per_erg: f64,
+    z1z2: f64,
+    /// 0.9 [(Z1+Z2)^(5/3) - Z1^(5/3) - Z2^(5/3)].
+    strong: f64,
+}
+
+impl Prepared {
+    fn new(r: &Reaction) -> Self {
+        let p53 = |z: f64| z.powf(5.0 / 3.0);
+        Self {
+            e0_coefficient: (0.5 * r.gamow_b()).powf(2.0 / 3.0),
+            prefactor: (2.0 / r.reduced_mass_g).sqrt() * r.s0_erg_cm2,
+            s_slope_per_erg: r.s_slope_per_erg,
+            z1z2: r.z1 * r.z2,
+            strong: 0.9 * (p53(r.z1 + r.z2) - p53(r.z1) - p53(r.z2)),
+        }
+    }
+}
+
+/// The quantities every reaction shares at one (rho, T).
+#[derive(Debug, Clone, Copy)]
+struct Conditions {
+    kt: f64,
+    kt_cbrt: f64,
+    kt_sqrt: f64,
+    /// Weak-screening ln f for Z1 Z2 = 1.
+    weak_unit: f64,
+    /// e^2 / (a_e kT).
+    strong_unit: f64,
+}
+
+impl Conditions {
+    fn new(rho: f64, t: f64, comp: &Composition) -> Self {
+        let kt = K_B_ERG_K * t;
+        let kt_sqrt = kt.sqrt();
+        let z_m = 0.5 * METAL_MEAN_MASS_NUMBER;
+        let zeta2 = 2.0 * comp.x()
+            + 6.0 * comp.y() / 4.0
+            + (z_m * z_m + z_m) * comp.z() / METAL_MEAN_MASS_NUMBER;
+        let weak_unit = E_ESU.powi(3) * (4.0 * std::f64::consts::PI * rho * zeta2 / M_U_G).sqrt()
+            / (kt * kt_sqrt);
+        let n_e = rho / M_U_G * 0.5 * (1.0 + comp.x());
+        let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
+        Self {
+            kt,
+            kt_cbrt: kt.cbrt(),
+            kt_sqrt,
+            weak_unit,
+            strong_unit: E_ESU * E_ESU / (a_e * kt),
+        }
+    }
+}
+
+/// Screened `<sigma v>` and its temperature exponent; the same formulas as [`Reaction::sigma_v`]
+/// and [`screening`] with the shared factors computed once.
+fn screened(r: &Prepared, c: &Conditions) -> (f64, f64) {
+    let e0 = r.e0_coefficient * c.kt_cbrt * c.kt_cbrt;
+    let tau = 3.0 * e0 / c.kt;
+    let delta = 4.0 * (e0 * c.kt / 3.0).sqrt();
+    let corr1 = 5.0 / (12.0 * tau);
+    let corr2 = r.s_slope_per_erg * (e0 + 35.0 * c.kt / 36.0);
+    let s_ratio = 1.0 + corr1 + corr2;
+    let ds = (corr1 / 3.0 + r.s_slope_per_erg * (2.0 / 3.0 * e0 + 35.0 * c.kt / 36.0)) / s_ratio;
+    let weak = r.z1z2 * c.weak_unit;
+    let strong = r.strong * c.strong_unit;
+    let (mut ln_f, mut dln_f) = if weak <= strong {
+        (weak, -1.5 * weak)
+    } else {
+        (strong, -strong)
+    };
+    if ln_f > MAX_LN_SCREENING {
+        (ln_f, dln_f) = (MAX_LN_SCREENING, 0.0);
+    }
+    let value = r.prefactor * delta / (c.kt * c.kt_sqrt) * s_ratio * (ln_f - tau).exp();
+    (value, (tau - 2.0) / 3.0 + ds + dln_f)
 }
 
 impl SFactorRates {
     /// The fraction beta of 3He destroyed by 3He + 4He (ppII) at equilibrium, and d beta / d ln T.
     pub fn pp2_fraction(&self, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
+        let c = Conditions::new(rho, t, comp);
+        self.pp2_with(rho, comp, &c, screened(&self.pp, &c))
+    }
+
+    fn pp2_with(
+        &self,
+        rho: f64,
+        comp: &Composition,
+        c: &Conditions,
+        (l11, nu11): (f64, f64),
+    ) -> (f64, f64) {
         let n_p = rho * comp.x() / (A_H1 * M_U_G);
         let n_4 = rho * comp.y() / (A_HE4 * M_U_G);
-        let (l11, nu11) = screened(&self.pp, rho, t, comp);
-        let (l33, nu33) = screened(&self.he33, rho, t, comp);
-        let (l34, nu34) = screened(&self.he34, rho, t, comp);
+        let (l33, nu33) = screened(&self.he33, c);
+        let (l34, nu34) = screened(&self.he34, c);
         let r = 0.5 * n_p * n_p * l11;
         let a = l33;
         let b = n_4 * l34;
@@ -255,12 +352,13 @@ impl EnergyGeneration for SFactorRates {
         }
         let n_p = rho * comp.x() / (A_H1 * M_U_G);
         let n_14 = rho * comp.x_cno() / (A_N14 * M_U_G);
-        let (l11, nu11) = screened(&self.pp, rho, t, comp);
-        let (beta, dbeta) = self.pp2_fraction(rho, t, comp);
+        let c = Conditions::new(rho, t, comp);
+        let (l11, nu11) = screened(&self.pp, &c);
+        let (beta, dbeta) = self.pp2_with(rho, comp, &c, (l11, nu11));
         let q_per_pp = (0.5 * (1.0 - beta) * Q_PP1_MEV + beta * Q_PP2_MEV) * MEV_ERG;
         let dq = dbeta * (Q_PP2_MEV - 0.5 * Q_PP1_MEV) * MEV_ERG;
         let eps_pp = 0.5 * n_p * n_p * l11 * q_per_pp / rho;
-        let (l14, nu14) = screened(&self.pn14, rho, t, comp);
+        let (l14, nu14) = screened(&self.pn14, &c);
         let eps_cno = n_p * n_14 * l14 * Q_CN_MEV * MEV_ERG / rho;
         let out = EnergyRate {
             eps_pp_erg_g_s: eps_pp,

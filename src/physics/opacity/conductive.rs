@@ -38,9 +38,10 @@ impl Conductive {
         let v_f = HBAR_ERG_S * (3.0 * pi * pi * n_e).cbrt() / M_E_G;
         let v2 = v_f * v_f + 3.0 * K_B_ERG_K * t / M_E_G;
         let v = v2.sqrt();
-        let a_i = (3.0 / (4.0 * pi * n_ion)).cbrt();
-        let b_min = HBAR_ERG_S / (2.0 * M_E_G * v);
-        let coulomb_log = (a_i / b_min).ln().max(1.0);
+        // ln(a_i / b_min) with a_i = (3 / (4 pi n_ion))^(1/3), b_min = hbar / (2 m_e v),
+        // written as one logarithm.
+        let k = 2.0 * M_E_G * v / HBAR_ERG_S;
+        let coulomb_log = ((k * k * k * 3.0 / (4.0 * pi * n_ion)).ln() / 3.0).max(1.0);
         let e4 = E_ESU.powi(4);
         let nu = 4.0 * pi * e4 * coulomb_log * z2_sum / (M_E_G * M_E_G * v2 * v);
         let lambda = pi * pi * K_B_ERG_K * K_B_ERG_K * t * n_e / (3.0 * M_E_G * nu);

@@ -100,7 +100,8 @@ impl RefinedOpacity {
 
     /// Radiative part kappa_rad alone (no conduction), without checks.
     pub fn radiative(&self, rho: f64, t: f64, comp: &Composition) -> f64 {
-        let common = (1.0 + comp.x()) * rho * t.powf(-3.5);
+        // T^-3.5 = 1 / (T^3 sqrt(T)).
+        let common = (1.0 + comp.x()) * rho / (t * t * t * t.sqrt());
         let ff = 3.68e22 * (1.0 - comp.z()) * common;
         let bf = 4.34e25 * comp.z() / self.guillotine_at(rho) * common;
         let kramers = ff + bf;
@@ -118,9 +119,8 @@ impl RefinedOpacity {
 pub fn hydrogen_ionised_fraction(rho: f64, t: f64, comp: &Composition) -> f64 {
     let n_h = rho / M_U_G * comp.x().max(1e-6);
     let kt = K_B_ERG_K * t;
-    let s = (2.0 * std::f64::consts::PI * M_E_G * kt / (H_ERG_S * H_ERG_S)).powf(1.5)
-        * (-13.598 * EV_ERG / kt).exp()
-        / n_h;
+    let thermal = 2.0 * std::f64::consts::PI * M_E_G * kt / (H_ERG_S * H_ERG_S);
+    let s = thermal * thermal.sqrt() * (-13.598 * EV_ERG / kt).exp() / n_h;
     if s <= 0.0 {
         return 0.0;
     }

@@ -3,4 +3,5 @@
 pub mod atomic;
 
 pub use atomic::write_atomically;
+pub mod plot;
 pub mod zams;

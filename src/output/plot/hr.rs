@@ -8,6 +8,7 @@ use super::style::{
 };
 use super::{drawing_error, write_svg};
 use crate::error::{Error, Result};
+use plotters::coord::types::RangedCoordf64;
 use plotters::prelude::*;
 use plotters::style::text_anchor::{HPos, VPos};
 use std::path::Path;
@@ -90,10 +91,41 @@ fn padded(lo: f64, hi: f64, min_pad: f64) -> (f64, f64) {
     (lo - pad, hi + pad)
 }
 
-/// Decimals for tick labels on an axis of span `span` with about eight ticks.
-fn tick_decimals(span: f64) -> usize {
-    let step = span / 8.0;
-    (-step.log10().floor()).clamp(0.0, 4.0) as usize
+/// Tick labels asked for along x and y.
+const X_TICKS: usize = 12;
+const Y_TICKS: usize = 10;
+
+/// The fewest decimals (at most 4) that print every tick of the axis `lo..hi` exactly, with
+/// the ticks `plotters` places when asked for `count` labels.
+fn tick_decimals(lo: f64, hi: f64, count: usize) -> usize {
+    let ticks = RangedCoordf64::from(lo..hi).key_points(count);
+    (0..=4)
+        .find(|&d| {
+            let scale = 10f64.powi(d);
+            ticks
+                .iter()
+                .all(|t| ((t * scale).round() / scale - t).abs() <= 1e-9 * t.abs().max(1.0))
+        })
+        .unwrap_or(4) as usize
+}
+
+/// Pixel box (x0, y0, x1, y1) of a mass label of `chars` characters whose anchor is `at`,
+/// left-bottom anchored if `left_bottom`, else right-top. Widths at 0.6 em per character, a
+/// generous sans-serif average (common practice, no source).
+fn label_box(at: (i32, i32), chars: usize, left_bottom: bool) -> (i32, i32, i32, i32) {
+    let em = NOTE_SIZE / 1.24;
+    let w = (chars as f64 * 0.6 * em).ceil() as i32;
+    let h = em.ceil() as i32;
+    if left_bottom {
+        (at.0, at.1 - h, at.0 + w, at.1)
+    } else {
+        (at.0 - w, at.1, at.0, at.1 + h)
+    }
+}
+
+fn boxes_overlap(a: (i32, i32, i32, i32), b: (i32, i32, i32, i32)) -> bool {
+    let gap = 2;
+    a.0 < b.2 + gap && b.0 < a.2 + gap && a.1 < b.3 + gap && b.1 < a.3 + gap
 }
 
 /// Render the diagram to memory. The x axis carries u = -log10 T_eff so that T_eff increases to
@@ -119,8 +151,8 @@ pub fn render_hr_diagram(series: &[HrSeries], title: &str) -> Result<HrFigure> {
     }
     let (t_lo, t_hi) = padded(t_lo, t_hi, 0.02);
     let (l_lo, l_hi) = padded(l_lo, l_hi, 0.1);
-    let x_decimals = tick_decimals(t_hi - t_lo);
-    let y_decimals = tick_decimals(l_hi - l_lo);
+    let x_decimals = tick_decimals(-t_hi, -t_lo, X_TICKS);
+    let y_decimals = tick_decimals(l_lo, l_hi, Y_TICKS);
     let x_format = move |u: &f64| format!("{:.*}", x_decimals, -u + 0.0);
     let y_format = move |v: &f64| format!("{:.*}", y_decimals, v + 0.0);
 
@@ -147,8 +179,8 @@ pub fn render_hr_diagram(series: &[HrSeries], title: &str) -> Result<HrFigure> {
             .configure_mesh()
             .bold_line_style(GRID_GREY)
             .light_line_style(WHITE.mix(0.0))
-            .x_labels(12)
-            .y_labels(10)
+            .x_labels(X_TICKS)
+            .y_labels(Y_TICKS)
             .x_label_formatter(&x_format)
             .y_label_formatter(&y_format)
             .label_style((FONT, TICK_SIZE))
@@ -166,6 +198,7 @@ pub fn render_hr_diagram(series: &[HrSeries], title: &str) -> Result<HrFigure> {
 
         let mut legend = Vec::with_capacity(series.len());
         let mut occupied = Vec::new();
+        let mut label_boxes = Vec::new();
         for (k, s) in series.iter().enumerate() {
             let style = series_style(k);
             let mut order: Vec<usize> = (0..s.points.len()).collect();
@@ -182,7 +215,8 @@ pub fn render_hr_diagram(series: &[HrSeries], title: &str) -> Result<HrFigure> {
                 draw_marker(area, c, style.marker, style.color)?;
             }
             // Labels above-right of the line for even series, below-left for odd ones, so
-            // that neighbouring sequences do not write over each other.
+            // that neighbouring sequences do not write over each other; a label that would
+            // overlap one already written is left out.
             let (dx, dy, h, v) = if k % 2 == 0 {
                 (7, -6, HPos::Left, VPos::Bottom)
             } else {
@@ -192,6 +226,12 @@ pub fn render_hr_diagram(series: &[HrSeries], title: &str) -> Result<HrFigure> {
             let mut labels = Vec::new();
             for j in select_mass_labels(&masses, MAX_MASS_LABELS) {
                 let text = format_mass(masses[j]);
+                let (px, py) = chart.backend_coord(&coords[j]);
+                let bx = label_box((px + dx, py + dy), text.chars().count(), k % 2 == 0);
+                if label_boxes.iter().any(|&b| boxes_overlap(b, bx)) {
+                    continue;
+                }
+                label_boxes.push(bx);
                 area.draw(
                     &(EmptyElement::at(coords[j])
                         + Text::new(
@@ -201,8 +241,7 @@ pub fn render_hr_diagram(series: &[HrSeries], title: &str) -> Result<HrFigure> {
                         )),
                 )
                 .map_err(drawing_error)?;
-                let (px, py) = chart.backend_coord(&coords[j]);
-                occupied.push((px + 2 * dx, py + 2 * dy));
+                occupied.extend([(bx.0, bx.1), (bx.2, bx.3)]);
                 labels.push(text);
             }
             let px: Vec<(i32, i32)> = s

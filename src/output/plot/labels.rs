@@ -43,13 +43,17 @@ fn roundness(mass_msun: f64) -> u8 {
     }
 }
 
+/// Below this many labels, a crowded series also labels masses that are not round.
+const MIN_LABELS: usize = 3;
+
 /// Indices (ascending) of the points of one series that get a mass label.
 ///
 /// Every point is labelled when there are at most `max_labels`. Otherwise points are taken in
 /// order of roundness (1, 10, 100 before 2, 5, 20, 50; the two ends of the series just after
-/// those), skipping any closer than 1/(2 `max_labels`) of the series' span in log10 mass to
-/// one already taken, until `max_labels` are chosen. Non-finite or non-positive masses are
-/// never labelled.
+/// those; then 3, 4, 6, ... and 1.5, 2.5, ...), skipping any closer than 1/(2 `max_labels`)
+/// of the series' span in log10 mass to one already taken, until `max_labels` are chosen.
+/// Masses that are not round (such as 2.89 from a logarithmic grid) are taken only while
+/// fewer than three labels were found. Non-finite or non-positive masses are never labelled.
 pub fn select_mass_labels(masses_msun: &[f64], max_labels: usize) -> Vec<usize> {
     let valid: Vec<usize> = (0..masses_msun.len())
         .filter(|&i| masses_msun[i].is_finite() && masses_msun[i] > 0.0)
@@ -76,8 +80,8 @@ pub fn select_mass_labels(masses_msun: &[f64], max_labels: usize) -> Vec<usize> 
         .collect();
     candidates.sort_unstable();
     let mut chosen: Vec<usize> = Vec::with_capacity(max_labels);
-    for (_, i) in candidates {
-        if chosen.len() == max_labels {
+    for (level, i) in candidates {
+        if chosen.len() == max_labels || (level > 6 && chosen.len() >= MIN_LABELS) {
             break;
         }
         if chosen
@@ -130,5 +134,18 @@ mod tests {
                 "{round} missing: {labels:?}"
             );
         }
+        // Nothing but round masses: the grid's 2.03 or 0.588 would only clutter.
+        assert_eq!(labels.len(), 8, "{labels:?}");
+    }
+
+    #[test]
+    fn grid_without_round_masses_still_gets_a_few_labels() {
+        let masses = [
+            0.137, 0.2884, 0.613, 1.293, 2.734, 5.771, 12.23, 25.83, 54.61, 115.3, 133.1, 171.2,
+            199.0,
+        ];
+        let chosen = select_mass_labels(&masses, MAX_MASS_LABELS);
+        // Both ends (ranked with the round masses) and the first other mass far enough away.
+        assert_eq!(chosen, vec![0, 1, 12]);
     }
 }

@@ -471,3 +471,30 @@ fn bad_tables_name_file_and_line() {
     assert!(matches!(err, Error::BadFile { .. }), "{err}");
     std::fs::remove_dir_all(&dir).unwrap();
 }
+
+#[test]
+fn overlapping_mass_labels_are_left_out() {
+    // Two models a hair apart land on the same pixel: only the rounder one is labelled.
+    let series = HrSeries {
+        label: "close".into(),
+        points: vec![
+            HrPoint {
+                mass_msun: 1.0,
+                teff_k: 5772.0,
+                luminosity_lsun: 1.0,
+            },
+            HrPoint {
+                mass_msun: 1.003,
+                teff_k: 5772.5,
+                luminosity_lsun: 1.001,
+            },
+            HrPoint {
+                mass_msun: 10.0,
+                teff_k: 25000.0,
+                luminosity_lsun: 5000.0,
+            },
+        ],
+    };
+    let figure = render_hr_diagram(&[series], "").unwrap();
+    assert_eq!(figure.mass_labels[0], ["1", "10"]);
+}

@@ -67,7 +67,7 @@ pub struct ZamsSummary {
 }
 
 /// One row of a ZAMS profile, centre first. CSV columns appear in this order.
-#[derive(Debug, Clone, Copy, PartialEq, Serialize)]
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, serde::Deserialize)]
 pub struct ProfileRow {
     /// Mass inside the shell, g.
     pub mass_g: f64,

@@ -1,0 +1,49 @@
+//! Figures as SVG: the Hertzsprung–Russell diagram of one or more mass sequences and the
+//! two-panel profile of one model.
+//!
+//! Drawing uses the `plotters` crate with its SVG backend only: text is written as SVG `<text>`
+//! elements and laid out by the viewer, so no system font library is needed. Every file is
+//! rendered to memory first and then written through [`crate::output::write_atomically`], so a
+//! failure never leaves a partial file.
+//!
+//! Styles are chosen to survive grey-scale print: each series differs in marker shape, line
+//! dash and width as well as colour (colours from the Okabe–Ito palette, Wong 2011, Nature
+//! Methods 8, 441, "Points of view: Color blindness").
+
+mod hr;
+mod labels;
+mod profile;
+mod style;
+mod table;
+
+pub use hr::{hr_diagram, render_hr_diagram, HrFigure, HrPoint, HrSeries};
+pub use labels::{format_mass, select_mass_labels, MAX_MASS_LABELS};
+pub use profile::{profile_plot, render_profile, ProfileFigure, NABLA_AXIS_CAP};
+pub use table::{read_table, PlotInput};
+
+use crate::error::{Error, Result};
+use std::path::Path;
+
+/// Where a drawing error happened before any file was involved.
+const IN_MEMORY: &str = "SVG image (in memory)";
+
+/// Map any `plotters` drawing error into the library's error.
+fn drawing_error(e: impl std::fmt::Display) -> Error {
+    Error::Io {
+        path: IN_MEMORY.to_string(),
+        reason: format!("drawing failed: {e}"),
+    }
+}
+
+/// Write a rendered SVG document to `path` atomically; a drawing error reported against the
+/// in-memory image is re-labelled with the target path.
+fn write_svg(path: &Path, svg: Result<String>) -> Result<()> {
+    let svg = svg.map_err(|e| match e {
+        Error::Io { path: p, reason } if p == IN_MEMORY => Error::Io {
+            path: path.display().to_string(),
+            reason,
+        },
+        other => other,
+    })?;
+    crate::output::write_atomically(path, |w| w.write_all(svg.as_bytes()))
+}

@@ -8,11 +8,20 @@ use starpoise::structure::{guess, solve, ZamsSettings};
 fn main() -> Result<(), Box<dyn std::error::Error>> {
     let physics = PhysicsOptions::default().build()?;
     let comp = Composition::new(0.70, 0.02)?;
-    let masses = [0.08, 0.1, 0.15, 0.2, 0.3, 0.4, 0.5, 0.7, 1.0, 1.5, 2.0, 3.0, 5.0, 7.0, 10.0, 15.0, 20.0, 30.0, 50.0, 70.0, 100.0, 150.0];
+    let masses = [
+        0.08, 0.1, 0.15, 0.2, 0.3, 0.4, 0.5, 0.7, 1.0, 1.5, 2.0, 3.0, 5.0, 7.0, 10.0, 15.0, 20.0,
+        30.0, 50.0, 70.0, 100.0, 150.0,
+    ];
     // Continue downward and upward from 1 M_sun, each model starting from its neighbour.
-    let start = masses.iter().position(|&m| m == 1.0).ok_or("1 M_sun missing")?;
+    let start = masses
+        .iter()
+        .position(|&m| m == 1.0)
+        .ok_or("1 M_sun missing")?;
     let mut rows = vec![None; masses.len()];
-    for order in [(start..masses.len()).collect::<Vec<_>>(), (0..start).rev().collect()] {
+    for order in [
+        (start..masses.len()).collect::<Vec<_>>(),
+        (0..start).rev().collect(),
+    ] {
         let mut previous: Option<(f64, guess::GuessRow)> = None;
         if order.first() != Some(&start) {
             previous = rows[start].map(|r| (masses[start], r));
@@ -30,10 +39,16 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
             previous = Some((m, row));
         }
     }
-    println!("pub const REFERENCE_MODELS: [(f64, GuessRow); {}] = [", masses.len());
+    println!(
+        "pub const REFERENCE_MODELS: [(f64, GuessRow); {}] = [",
+        masses.len()
+    );
     for (m, r) in masses.iter().zip(rows) {
         let r = r.ok_or("missing row")?;
-        println!("    ({m:?}, [{:.6}, {:.6}, {:.6}, {:.6}]),", r[0], r[1], r[2], r[3]);
+        println!(
+            "    ({m:?}, [{:.6}, {:.6}, {:.6}, {:.6}]),",
+            r[0], r[1], r[2], r[3]
+        );
     }
     println!("];");
     Ok(())

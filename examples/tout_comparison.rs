@@ -11,11 +11,21 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     let mut args = std::env::args().skip(1);
     let opacity = args.next();
     let alpha = args.next().map(|a| a.parse::<f64>()).transpose()?;
-    let physics = PhysicsOptions { opacity, alpha, ..Default::default() }.build()?;
+    let physics = PhysicsOptions {
+        opacity,
+        alpha,
+        ..Default::default()
+    }
+    .build()?;
     let comp = Composition::new(0.70, 0.02)?;
-    println!("{:>8} {:>11} {:>9} {:>9} {:>9}", "M/Msun", "L/Lsun", "R/Rsun", "dlogL", "dlogR");
+    println!(
+        "{:>8} {:>11} {:>9} {:>9} {:>9}",
+        "M/Msun", "L/Lsun", "R/Rsun", "dlogL", "dlogR"
+    );
     let (mut worst_l, mut worst_r) = (0.0f64, 0.0f64);
-    for m in [0.1, 0.2, 0.3, 0.5, 0.7, 1.0, 1.5, 2.0, 3.0, 5.0, 10.0, 20.0, 50.0, 100.0] {
+    for m in [
+        0.1, 0.2, 0.3, 0.5, 0.7, 1.0, 1.5, 2.0, 3.0, 5.0, 10.0, 20.0, 50.0, 100.0,
+    ] {
         match solve(&ZamsSettings::new(m, comp, physics.clone())?) {
             Ok(model) => {
                 let l = model.summary.luminosity_lsun.unwrap_or(f64::NAN);

@@ -10,7 +10,9 @@ use starpoise::structure::{solve, ZamsSettings};
 fn model(mass: f64, x: f64, z: f64) -> ZamsSummary {
     let physics = PhysicsOptions::default().build().unwrap();
     let s = ZamsSettings::new(mass, Composition::new(x, z).unwrap(), physics).unwrap();
-    solve(&s).unwrap_or_else(|e| panic!("{mass} M_sun (X = {x}, Z = {z}): {e}")).summary
+    solve(&s)
+        .unwrap_or_else(|e| panic!("{mass} M_sun (X = {x}, Z = {z}): {e}"))
+        .summary
 }
 
 fn solar(mass: f64) -> ZamsSummary {
@@ -33,14 +35,22 @@ fn forty_masses_converge_for_three_compositions() {
                 Ok(m) => {
                     let s = m.summary;
                     if s.luminosity_residual.unwrap() > 1e-6 || s.virial_residual.unwrap() > 1e-4 {
-                        failures.push(format!("{mass:.4} (X={x}, Z={z}): residuals {:?} {:?}", s.luminosity_residual, s.virial_residual));
+                        failures.push(format!(
+                            "{mass:.4} (X={x}, Z={z}): residuals {:?} {:?}",
+                            s.luminosity_residual, s.virial_residual
+                        ));
                     }
                 }
                 Err(e) => failures.push(format!("{mass:.4} (X={x}, Z={z}): {e}")),
             }
         }
     }
-    assert!(failures.is_empty(), "{} failures:\n{}", failures.len(), failures.join("\n"));
+    assert!(
+        failures.is_empty(),
+        "{} failures:\n{}",
+        failures.len(),
+        failures.join("\n")
+    );
 }
 
 /// The ZAMS Sun: L about 0.70 L_sun (confirmed in a review of solar evolution), R about
@@ -95,7 +105,10 @@ fn facts_of_the_trade() {
         // The outermost layers (the photosphere and a sliver below it) can be radiative: the
         // convective region reaches within 1e-6 of the mass of the surface.
         let s = solar(mass);
-        assert!(s.convective_core_mass_fraction.unwrap() > 1.0 - 1e-6, "{mass} M_sun not fully convective");
+        assert!(
+            s.convective_core_mass_fraction.unwrap() > 1.0 - 1e-6,
+            "{mass} M_sun not fully convective"
+        );
     }
     assert_eq!(solar(1.1).convective_core_mass_fraction, Some(0.0));
     assert!(solar(1.4).convective_core_mass_fraction.unwrap() > 0.0);

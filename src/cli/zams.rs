@@ -161,6 +161,7 @@ impl ZamsArgs {
         if let Some(n) = self.max_iterations {
             settings = settings.with_max_iterations(n)?;
         }
+        settings = settings.with_profile(self.profile.is_some());
         if let Some(g) = &self.guess {
             settings = settings.with_guess(g[0], g[1], g[2], g[3])?;
         }

@@ -31,7 +31,8 @@ pub struct RunSettings {
 
 fn settings_for(grid: &Grid, p: &GridPoint, run: &RunSettings) -> Result<ZamsSettings> {
     let mut s = ZamsSettings::new(p.mass_msun, p.composition, grid.physics[p.variant].clone())?
-        .with_fit_mass_fraction(grid.fit_mass_fraction)?;
+        .with_fit_mass_fraction(grid.fit_mass_fraction)?
+        .with_profile(false);
     if let Some(t) = run.tolerance {
         s = s.with_tolerance(t)?;
     }
@@ -121,7 +122,12 @@ pub fn solve_points(
                     let n = neighbour(&snapshot, &r.point)?;
                     let nu = n.unknowns?;
                     let p = &r.point;
-                    let start = guess::shifted(&guess::as_row(&nu), n.point.mass_msun, p.mass_msun, &p.composition);
+                    let start = guess::shifted(
+                        &guess::as_row(&nu),
+                        n.point.mass_msun,
+                        p.mass_msun,
+                        &p.composition,
+                    );
                     let s = settings[i].clone().with_unknowns_guess(start);
                     let retry = solve_one(s, p, true);
                     retry.unknowns.is_some().then_some((i, retry))

@@ -34,7 +34,7 @@ pub trait NewtonProblem<const N: usize> {
 }
 
 /// Settings of the iteration. Defaults: tolerance 1e-8 on the max-norm of F, 60 iterations,
-/// trust length 0.5 (max-norm of a step), 12 halvings.
+/// trust length 0.5 (max-norm of a step), 12 halvings, Broyden updates after full steps.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct NewtonSettings {
     /// Converged when max |F_i| is below this.
@@ -45,6 +45,10 @@ pub struct NewtonSettings {
     pub max_step: f64,
     /// Maximum halvings of a step in the line search.
     pub max_halvings: usize,
+    /// Update the Jacobian by Broyden's rank-one formula after a full Newton step, instead of
+    /// asking the problem for a new one (which it recomputes after any damped step, a failed
+    /// line search, or a change of accuracy).
+    pub broyden: bool,
 }
 
 impl Default for NewtonSettings {
@@ -54,6 +58,7 @@ impl Default for NewtonSettings {
             max_iterations: 60,
             max_step: 0.5,
             max_halvings: 12,
+            broyden: true,
         }
     }
 }
@@ -127,8 +132,10 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
     };
     let mut norm = max_norm(&f);
     report.residual_norm = norm;
+    let mut reusable: Option<SMatrix<f64, N, N>> = None;
     while report.iterations < settings.max_iterations {
         if problem.adapt_to_residual(norm) {
+            reusable = None;
             match problem.residual(&u) {
                 Ok(g) => {
                     f = g;
@@ -146,12 +153,16 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             return report;
         }
         report.iterations += 1;
-        let jac = match problem.jacobian(&u, &f) {
-            Ok(j) => j,
-            Err(e) => {
-                report.failure = Some(format!("Jacobian failed: {e}"));
-                return report;
-            }
+        let used_broyden = reusable.is_some();
+        let jac = match reusable.take() {
+            Some(j) => j,
+            None => match problem.jacobian(&u, &f) {
+                Ok(j) => j,
+                Err(e) => {
+                    report.failure = Some(format!("Jacobian failed: {e}"));
+                    return report;
+                }
+            },
         };
         // Solved as a dynamic matrix: once per iteration, so the allocation does not matter.
         let dense = nalgebra::DMatrix::from_fn(N, N, |i, j| jac[(i, j)]);
@@ -200,12 +211,23 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
         });
         match accepted {
             Some((trial, ft, nt)) => {
+                // Broyden's update J += (df - J du) du^T / (du^T du) after a full step; any
+                // damped step means the local model was poor, so the next Jacobian is fresh.
+                if settings.broyden && lambda == 1.0 {
+                    let step = trial - u;
+                    let denom = step.dot(&step);
+                    if denom > 0.0 {
+                        reusable = Some(jac + (ft - f - jac * step) * step.transpose() / denom);
+                    }
+                }
                 u = trial;
                 f = ft;
                 norm = nt;
                 report.solution = u;
                 report.residual_norm = norm;
             }
+            // The Jacobian was a Broyden update: try again from here with a fresh one.
+            None if used_broyden => {}
             None if problem.sharpen() => match problem.residual(&u) {
                 Ok(g) => {
                     f = g;

@@ -9,8 +9,8 @@
 //! T^4 = T_c^4 - (kappa_c eps_c / (2 a c)) (3/(4 pi))^(2/3) rho_c^(4/3) m^(2/3) to first order).
 
 use super::equations::{
-    local_physics, LocalPhysics, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL, LN_P, LN_R,
-    LN_T, LUM,
+    local_physics, LocalPhysics, Point, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL, LN_P,
+    LN_R, LN_T, LUM,
 };
 use super::legs::LegContext;
 use crate::constants::G_CGS;
@@ -43,7 +43,15 @@ pub fn start(ctx: &LegContext, ln_pc: f64, ln_tc: f64) -> Result<CentreStart> {
     let r0 = (3.0 * m0 / (4.0 * PI * rho_c)).cbrt();
     let rate = ctx.physics.rates.rate(rho_c, tc, ctx.composition)?;
     let eps_c = rate.total_erg_g_s();
-    let centre = local_physics(ctx.physics, ctx.composition, m0, r0, pc, tc, eps_c)?;
+    let point = Point {
+        mass_g: m0,
+        radius_cm: r0,
+        pressure_dyn_cm2: pc,
+        temperature_k: tc,
+        l_over_m: eps_c,
+        near: Some(&eos),
+    };
+    let centre = local_physics(ctx.physics, ctx.composition, &point)?;
     let p0 = pc
         - 3.0 * G_CGS / (8.0 * PI) * (4.0 * PI * rho_c / 3.0).powf(4.0 / 3.0) * m0.powf(2.0 / 3.0);
     if p0 <= 0.0 || eps_c <= 0.0 {

@@ -117,21 +117,46 @@ impl LocalPhysics {
     }
 }
 
-/// Evaluate every law at mass `mass_g`, radius `radius_cm`, pressure, temperature and
-/// luminosity. `l_over_m` is L/m (erg g^-1 s^-1) used in nabla_rad, so that the centre limit
-/// (L/m -> eps_c) can be passed directly.
+/// Where the point is and what is known near it.
+#[derive(Debug, Clone, Copy)]
+pub struct Point<'a> {
+    /// Mass coordinate m, g.
+    pub mass_g: f64,
+    /// Radius r, cm.
+    pub radius_cm: f64,
+    /// Pressure, dyn cm^-2.
+    pub pressure_dyn_cm2: f64,
+    /// Temperature, K.
+    pub temperature_k: f64,
+    /// L / m, erg g^-1 s^-1, used in nabla_rad (so that the centre limit L/m -> eps_c can be
+    /// passed directly).
+    pub l_over_m: f64,
+    /// The equation-of-state result at a nearby point, to start the inversion from.
+    pub near: Option<&'a EosState>,
+}
+
+/// Evaluate every law at `point`.
 pub fn local_physics(
     physics: &PhysicsSet,
     comp: &Composition,
-    mass_g: f64,
-    radius_cm: f64,
-    pressure_dyn_cm2: f64,
-    temperature_k: f64,
-    l_over_m: f64,
+    point: &Point,
 ) -> Result<LocalPhysics, PhysicsError> {
-    let eos = physics
-        .eos
-        .state_at_pressure(pressure_dyn_cm2, temperature_k, comp)?;
+    let Point {
+        mass_g,
+        radius_cm,
+        pressure_dyn_cm2,
+        temperature_k,
+        l_over_m,
+        near,
+    } = *point;
+    let eos = match near {
+        Some(n) => physics
+            .eos
+            .state_at_pressure_near(pressure_dyn_cm2, temperature_k, comp, n)?,
+        None => physics
+            .eos
+            .state_at_pressure(pressure_dyn_cm2, temperature_k, comp)?,
+    };
     let rho = eos.density_g_cm3;
     let opacity = physics.opacity.kappa(rho, temperature_k, comp)?;
     let rate = physics.rates.rate(rho, temperature_k, comp)?;
@@ -180,12 +205,21 @@ pub fn derivatives_in_mass(
     mass_g: f64,
     y: &State,
     form: LuminosityForm,
+    near: Option<&EosState>,
 ) -> Result<(State, LocalPhysics), PhysicsError> {
     let r = y[LN_R].exp();
     let p = y[LN_P].exp();
     let t = y[LN_T].exp();
     let l = form.luminosity_erg_s(y[LUM]);
-    let local = local_physics(physics, comp, mass_g, r, p, t, l / mass_g)?;
+    let point = Point {
+        mass_g,
+        radius_cm: r,
+        pressure_dyn_cm2: p,
+        temperature_k: t,
+        l_over_m: l / mass_g,
+        near,
+    };
+    let local = local_physics(physics, comp, &point)?;
     let rho = local.eos.density_g_cm3;
     let dlnp_dm = -G_CGS * mass_g / (4.0 * PI * r.powi(4) * p);
     let mut dy = State::zeros();

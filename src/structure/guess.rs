@@ -83,7 +83,12 @@ pub fn initial_guess(mass_msun: f64, comp: &Composition) -> Unknowns {
 /// unknowns shifted by the difference of [`polytrope_guess`] between the two masses (used for
 /// continuation along a sequence).
 pub fn shifted(row: &GuessRow, from_msun: f64, to_msun: f64, comp: &Composition) -> Unknowns {
-    let base = Unknowns::new(row[0], row[1], row[2] + R_SUN_CM.ln(), row[3] + L_SUN_ERG_S.ln());
+    let base = Unknowns::new(
+        row[0],
+        row[1],
+        row[2] + R_SUN_CM.ln(),
+        row[3] + L_SUN_ERG_S.ln(),
+    );
     base + polytrope_guess(to_msun, comp) - polytrope_guess(from_msun, comp)
 }
 

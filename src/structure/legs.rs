@@ -12,7 +12,7 @@
 
 use super::equations::{derivatives_in_mass, LuminosityForm, Scales, State, X_COPY};
 use crate::error::{Error, PhysicsError, Result};
-use crate::physics::{Composition, PhysicsSet};
+use crate::physics::{Composition, EosState, PhysicsSet};
 use ode_solvers::dop853::Dop853;
 use ode_solvers::dop_shared::OutputType;
 use ode_solvers::System;
@@ -79,6 +79,11 @@ pub struct LegMonitor {
     pub evaluations: Cell<u64>,
     /// The last physics error met.
     pub last_error: RefCell<Option<PhysicsError>>,
+    /// Mass fractions m/M of the convective boundaries located, in the order met.
+    pub boundaries: RefCell<Vec<f64>>,
+    /// Set when a leg met more boundaries than [`MAX_BOUNDARIES_PER_LEG`] (the list is then
+    /// incomplete).
+    pub boundary_limit_reached: Cell<bool>,
 }
 
 /// Derivative returned where the physics failed: huge, so that the integrator rejects the step and
@@ -90,6 +95,8 @@ struct LegSystem<'a, 'b> {
     leg: Leg,
     monitor: &'b LegMonitor,
     watch: Option<&'b BoundaryWatch>,
+    /// The equation-of-state result of the previous evaluation, to warm-start the next.
+    last_eos: Cell<Option<EosState>>,
 }
 
 /// Watches the Schwarzschild criterion at every accepted step and stops the integration at the
@@ -104,7 +111,7 @@ struct BoundaryWatch {
 
 /// At most this many convective boundaries are located on one leg; past them (a noisy,
 /// marginally convective layer) the integrator carries on through.
-const MAX_BOUNDARIES_PER_LEG: usize = 16;
+pub const MAX_BOUNDARIES_PER_LEG: usize = 16;
 
 impl LegSystem<'_, '_> {
     /// nabla_rad - nabla_ad at state `y` (positive: convective), if the physics can be evaluated.
@@ -118,6 +125,7 @@ impl LegSystem<'_, '_> {
             m,
             y,
             form,
+            self.last_eos.get().as_ref(),
         )
         .ok()
         .map(|(_, local)| local.nabla_rad - local.eos.nabla_ad)
@@ -132,6 +140,7 @@ impl System<f64, State> for LegSystem<'_, '_> {
             .set(self.monitor.evaluations.get() + 1);
         let (m, dm_dx) = self.leg.mass_and_jacobian(y[X_COPY], self.ctx.total_mass_g);
         let form = self.leg.luminosity_form(&self.ctx);
+        let near = self.last_eos.get();
         match derivatives_in_mass(
             self.ctx.physics,
             self.ctx.composition,
@@ -139,8 +148,10 @@ impl System<f64, State> for LegSystem<'_, '_> {
             m,
             y,
             form,
+            near.as_ref(),
         ) {
-            Ok((d, _)) if d.iter().all(|v| v.is_finite()) => {
+            Ok((d, local)) if d.iter().all(|v| v.is_finite()) => {
+                self.last_eos.set(Some(local.eos));
                 *dy = d * dm_dx;
                 dy[X_COPY] = 1.0;
             }
@@ -197,6 +208,7 @@ fn run(
         leg,
         monitor,
         watch,
+        last_eos: Cell::new(None),
     };
     let mut stepper = Dop853::new(system, x0, x1, x1 - x0, y0, ctx.tolerance, ctx.tolerance);
     // Sparse output: dense output of ode_solvers 0.6 compares |x|, which breaks for the negative
@@ -262,6 +274,7 @@ pub fn integrate(
         y = locate_boundary(ctx, leg, &before, &end, monitor)?;
         x = y[X_COPY];
     }
+    monitor.boundary_limit_reached.set(true);
     run(ctx, leg, x, x1, y, monitor, None)
 }
 
@@ -279,6 +292,7 @@ fn locate_boundary(
         leg,
         monitor,
         watch: None,
+        last_eos: Cell::new(None),
     };
     let excess = |y: &State| probe.convective_excess(y).unwrap_or(f64::NAN);
     let (xa, xb) = (a[X_COPY], b[X_COPY]);
@@ -318,6 +332,8 @@ fn locate_boundary(
             side = -1;
         }
     }
+    let (m, _) = leg.mass_and_jacobian(y_hi[X_COPY], ctx.total_mass_g);
+    monitor.boundaries.borrow_mut().push(m / ctx.total_mass_g);
     Ok(y_hi)
 }
 
@@ -362,6 +378,7 @@ pub fn step_points(
         leg,
         monitor,
         watch: None,
+        last_eos: Cell::new(None),
     };
     let mut stepper = Dop853::new(system, x0, x1, x1 - x0, y0, ctx.tolerance, ctx.tolerance);
     stepper.set_output(OutputType::Sparse);

@@ -1,9 +1,9 @@
 //! A converged model: the profile on a mesh and the summary quantities with their checks.
 
 use super::equations::{
-    local_physics, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL, LN_P, LN_R, LN_T, LUM,
+    local_physics, Point, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL, LN_P, LN_R, LN_T, LUM,
 };
-use super::legs::{integrate_through, step_points, Leg, LegContext, LegMonitor};
+use super::legs::{integrate, integrate_through, step_points, Leg, LegContext, LegMonitor};
 use super::{centre, surface, ZamsSettings};
 use crate::constants::{G_CGS, L_SUN_ERG_S, R_SUN_CM, YEAR_S};
 use crate::error::Result;
@@ -47,7 +47,15 @@ fn row(ctx: &LegContext, leg: Leg, x: f64, y: &State, radius_cm: f64) -> Result<
     let p = y[LN_P].exp();
     let t = y[LN_T].exp();
     let l = leg.luminosity_form(ctx).luminosity_erg_s(y[LUM]);
-    let local = local_physics(ctx.physics, ctx.composition, m, r, p, t, l / m)?;
+    let point = Point {
+        mass_g: m,
+        radius_cm: r,
+        pressure_dyn_cm2: p,
+        temperature_k: t,
+        l_over_m: l / m,
+        near: None,
+    };
+    let local = local_physics(ctx.physics, ctx.composition, &point)?;
     let rho = local.eos.density_g_cm3;
     let g = G_CGS * m / (r * r);
     let cs = (local.eos.gamma1 * p / rho).sqrt();
@@ -116,7 +124,75 @@ pub fn convective_extent(profile: &[ProfileRow]) -> (f64, f64) {
     (core, envelope)
 }
 
-/// Integrate the converged legs once more on the output mesh and assemble the model.
+/// Convective zones as (lower, upper) mass fractions, from the located boundaries and whether
+/// the centre is convective.
+pub fn convective_zones(centre_convective: bool, boundaries: &[f64]) -> Vec<(f64, f64)> {
+    let mut edges: Vec<f64> = boundaries.to_vec();
+    edges.sort_by(f64::total_cmp);
+    let mut zones = Vec::new();
+    let mut convective = centre_convective;
+    let mut lower = 0.0;
+    for &e in &edges {
+        if convective {
+            zones.push((lower, e));
+        }
+        lower = e;
+        convective = !convective;
+    }
+    if convective {
+        zones.push((lower, 1.0));
+    }
+    zones
+}
+
+/// Mass fractions of the convective core (the zone containing the centre, else 0) and of the
+/// convective envelope (the outermost zone if its top lies within 1e-3 M of the surface, else 0).
+pub fn extent_from_zones(zones: &[(f64, f64)]) -> (f64, f64) {
+    let core = zones.first().filter(|z| z.0 == 0.0).map_or(0.0, |z| z.1);
+    let envelope = zones
+        .last()
+        .filter(|z| z.1 > 1.0 - 1e-3)
+        .map_or(0.0, |z| 1.0 - z.0);
+    (core, envelope)
+}
+
+/// The profile on `settings.profile_points()` rows, spread like the integrator's steps.
+fn profile(
+    settings: &ZamsSettings,
+    ctx: &LegContext,
+    u: &Unknowns,
+    monitor: &LegMonitor,
+) -> Result<Vec<ProfileRow>> {
+    let q = settings.fit_mass_fraction();
+    let start = centre::start(ctx, u[0], u[1])?;
+    let top = surface::start(ctx, u[2], u[3])?;
+    let steps_out = step_points(ctx, Leg::Outward, start.x0, q.ln(), start.y0, monitor)?;
+    let steps_in = step_points(ctx, Leg::Inward, top.x0, (1.0 - q).ln(), top.y0, monitor)?;
+    let total = settings.profile_points();
+    let n_out = ((total as f64 * steps_out.len() as f64 / (steps_out.len() + steps_in.len()) as f64).round() as usize)
+        .clamp(3, total - 3);
+    // The fitting point appears once (from the outward leg), so the inward leg gets one extra.
+    let n_in = total - n_out + 1;
+    let xs_out = mesh_like_steps(&steps_out, n_out);
+    let xs_in = mesh_like_steps(&steps_in, n_in);
+    let ys_out = integrate_through(ctx, Leg::Outward, &xs_out, start.y0, monitor)?;
+    let ys_in = integrate_through(ctx, Leg::Inward, &xs_in, top.y0, monitor)?;
+    let radius_cm = u[2].exp();
+    let mut rows = Vec::with_capacity(total);
+    for (x, y) in xs_out.iter().zip(&ys_out) {
+        rows.push(row(ctx, Leg::Outward, *x, y, radius_cm)?);
+    }
+    for (x, y) in xs_in.iter().zip(&ys_in).rev().skip(1) {
+        rows.push(row(ctx, Leg::Inward, *x, y, radius_cm)?);
+    }
+    Ok(rows)
+}
+
+/// Integrate the converged legs once more, assemble the summary and, if asked, the profile.
+///
+/// The summary's integrals and convective boundaries come from the same single integration of
+/// each leg that the iteration converged on; the profile re-integrates segment by segment onto
+/// its mesh.
 pub fn build(
     settings: &ZamsSettings,
     ctx: &LegContext,
@@ -128,39 +204,32 @@ pub fn build(
     let q = settings.fit_mass_fraction();
     let start = centre::start(ctx, u[0], u[1])?;
     let top = surface::start(ctx, u[2], u[3])?;
-    let x_fit_out = q.ln();
-    let x_fit_in = (1.0 - q).ln();
-    let steps_out = step_points(ctx, Leg::Outward, start.x0, x_fit_out, start.y0, &monitor)?;
-    let steps_in = step_points(ctx, Leg::Inward, top.x0, x_fit_in, top.y0, &monitor)?;
-    let total = settings.profile_points();
-    let n_out = ((total as f64 * steps_out.len() as f64 / (steps_out.len() + steps_in.len()) as f64).round() as usize)
-        .clamp(3, total - 3);
-    // The fitting point appears once (from the outward leg), so the inward leg gets one extra.
-    let n_in = total - n_out + 1;
-    let xs_out = mesh_like_steps(&steps_out, n_out);
-    let xs_in = mesh_like_steps(&steps_in, n_in);
-    let ys_out = integrate_through(ctx, Leg::Outward, &xs_out, start.y0, &monitor)?;
-    let ys_in = integrate_through(ctx, Leg::Inward, &xs_in, top.y0, &monitor)?;
+    let out_end = integrate(ctx, Leg::Outward, start.x0, q.ln(), start.y0, &monitor)?;
+    let in_end = integrate(ctx, Leg::Inward, top.x0, (1.0 - q).ln(), top.y0, &monitor)?;
+    let boundaries = monitor.boundaries.borrow().clone();
+    let profile_rows = if settings.wants_profile() || monitor.boundary_limit_reached.get() {
+        profile(settings, ctx, &u, &monitor)?
+    } else {
+        Vec::new()
+    };
+    let (core, envelope) = if monitor.boundary_limit_reached.get() {
+        convective_extent(&profile_rows)
+    } else {
+        extent_from_zones(&convective_zones(start.centre.convective(), &boundaries))
+    };
+    let profile = if settings.wants_profile() {
+        profile_rows
+    } else {
+        Vec::new()
+    };
     let radius_cm = u[2].exp();
     let luminosity = u[3].exp();
-    let mut profile = Vec::with_capacity(total);
-    for (x, y) in xs_out.iter().zip(&ys_out) {
-        profile.push(row(ctx, Leg::Outward, *x, y, radius_cm)?);
-    }
-    for (x, y) in xs_in.iter().zip(&ys_in).rev().skip(1) {
-        profile.push(row(ctx, Leg::Inward, *x, y, radius_cm)?);
-    }
-    let (out_end, in_end) = match (ys_out.last(), ys_in.last()) {
-        (Some(o), Some(i)) => (*o, *i),
-        _ => unreachable_profile()?,
-    };
     // The inward leg accumulates its integrals with dm < 0: the star's total is out - in.
     let integral = |k: usize| out_end[k] - in_end[k];
     let eps_total = integral(INT_EPS) * ctx.scales.luminosity_erg_s;
     let cno_total = integral(INT_CNO) * ctx.scales.luminosity_erg_s;
     let thermal = integral(INT_THERMAL);
     let gravity = integral(INT_GRAVITY);
-    let (core, envelope) = convective_extent(&profile);
     let m = ctx.total_mass_g;
     let comp = ctx.composition;
     let centre_eos = start.centre.eos;
@@ -200,14 +269,6 @@ pub fn build(
         profile,
         unknowns: u,
         history: report.history.clone(),
-    })
-}
-
-fn unreachable_profile<T>() -> Result<T> {
-    Err(crate::error::Error::Integration {
-        leg: "profile",
-        mass_g: f64::NAN,
-        reason: "empty profile mesh".to_string(),
     })
 }
 

@@ -93,7 +93,15 @@ impl<'a> ShootingProblem<'a> {
     /// Mismatch with the outward leg from `out` and the inward leg at `(ln R, ln L)`, or with the
     /// inward end `inn` and the outward leg at `(ln P_c, ln T_c)`: one column of the Jacobian by
     /// a forward difference, or a backward one where the forward trial cannot be integrated.
-    fn column(&mut self, u: &Unknowns, k: usize, h: f64, f0: &SVector<f64, 4>, out0: &State, in0: &State) -> Result<SVector<f64, 4>, Error> {
+    fn column(
+        &mut self,
+        u: &Unknowns,
+        k: usize,
+        h: f64,
+        f0: &SVector<f64, 4>,
+        out0: &State,
+        in0: &State,
+    ) -> Result<SVector<f64, 4>, Error> {
         let mut last_error = None;
         for step in [h, -h] {
             let mut v = *u;
@@ -108,7 +116,11 @@ impl<'a> ShootingProblem<'a> {
                 Err(e) => last_error = Some(e),
             }
         }
-        Err(last_error.unwrap_or_else(|| Error::NoConvergence { iterations: 0, residual: f64::NAN, reason: "Jacobian column".into() }))
+        Err(last_error.unwrap_or_else(|| Error::NoConvergence {
+            iterations: 0,
+            residual: f64::NAN,
+            reason: "Jacobian column".into(),
+        }))
     }
 
     /// Finite-difference step for the Jacobian at the current tolerance: large enough that

@@ -17,11 +17,11 @@ use super::legs::LegContext;
 use crate::constants::{A_RAD_CGS, C_CM_S, G_CGS, SIGMA_SB_CGS};
 use crate::error::{Error, PhysicsError, Result};
 use crate::numerics::scalar::newton_1d;
-use crate::physics::Atmosphere;
+use crate::physics::{Atmosphere, EosState};
 use ode_solvers::dop853::Dop853;
 use ode_solvers::dop_shared::OutputType;
 use ode_solvers::{System, Vector2};
-use std::cell::RefCell;
+use std::cell::{Cell, RefCell};
 use std::f64::consts::PI;
 
 /// Optical depth of the photosphere.
@@ -59,9 +59,14 @@ fn column_pressure(
 ) -> Result<f64> {
     let comp = ctx.composition;
     let physics = ctx.physics;
+    let last = Cell::new(None::<EosState>);
     let residual = |ln_p: f64| -> std::result::Result<f64, PhysicsError> {
         let p = ln_p.exp();
-        let eos = physics.eos.state_at_pressure(p, t, comp)?;
+        let eos = match last.get() {
+            Some(near) => physics.eos.state_at_pressure_near(p, t, comp, &near)?,
+            None => physics.eos.state_at_pressure(p, t, comp)?,
+        };
+        last.set(Some(eos));
         let kappa = physics.opacity.kappa(eos.density_g_cm3, t, comp)?;
         let support = gravity / kappa - flux_over_c;
         if support <= 0.0 {
@@ -97,6 +102,8 @@ struct GreyAtmosphere<'a> {
     teff_k: f64,
     gravity: f64,
     error: RefCell<Option<PhysicsError>>,
+    /// The previous equation-of-state result, to warm-start the next inversion.
+    last_eos: Cell<Option<EosState>>,
 }
 
 impl GreyAtmosphere<'_> {
@@ -114,17 +121,15 @@ impl System<f64, Vector2<f64>> for GreyAtmosphere<'_> {
         let tau = y[1].exp();
         let p = y[0].exp();
         let t = self.temperature(tau);
-        let kappa = self
-            .ctx
-            .physics
-            .eos
-            .state_at_pressure(p, t, self.ctx.composition)
-            .and_then(|s| {
-                self.ctx
-                    .physics
-                    .opacity
-                    .kappa(s.density_g_cm3, t, self.ctx.composition)
-            });
+        let (physics, comp) = (self.ctx.physics, self.ctx.composition);
+        let eos = match self.last_eos.get() {
+            Some(near) => physics.eos.state_at_pressure_near(p, t, comp, &near),
+            None => physics.eos.state_at_pressure(p, t, comp),
+        };
+        let kappa = eos.and_then(|s| {
+            self.last_eos.set(Some(s));
+            physics.opacity.kappa(s.density_g_cm3, t, comp)
+        });
         match kappa {
             Ok(k) => dy[0] = tau * self.gravity / (k * p),
             Err(e) => {
@@ -153,6 +158,7 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
                 teff_k: teff,
                 gravity,
                 error: RefCell::new(None),
+                last_eos: Cell::new(None),
             };
             let p_rad = |tau: f64| A_RAD_CGS * atmosphere.temperature(tau).powi(4) / 3.0;
             let t_top = atmosphere.temperature(ATMOSPHERE_TOP_TAU);

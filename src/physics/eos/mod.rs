@@ -86,6 +86,20 @@ pub trait EquationOfState: Send + Sync + std::fmt::Debug {
     ) -> Result<EosState, PhysicsError> {
         invert_by_newton(self, pressure_dyn_cm2, temperature_k, comp, None)
     }
+
+    /// As [`EquationOfState::state_at_pressure`], knowing the state `near` of a nearby point
+    /// (the previous evaluation along an integration), which a law may use to start its
+    /// inversion. The result must agree with `state_at_pressure` to the inversion's tolerance.
+    fn state_at_pressure_near(
+        &self,
+        pressure_dyn_cm2: f64,
+        temperature_k: f64,
+        comp: &Composition,
+        near: &EosState,
+    ) -> Result<EosState, PhysicsError> {
+        let _ = near;
+        self.state_at_pressure(pressure_dyn_cm2, temperature_k, comp)
+    }
 }
 
 /// The shared inversion rho(P, T) by Newton iteration in ln rho.

@@ -428,6 +428,41 @@ impl Plasma {
         t: f64,
         comp: &Composition,
     ) -> Result<EosState, PhysicsError> {
+        self.at_pressure_from(p, t, comp, None)
+    }
+
+    /// As [`Plasma::at_pressure`], with the joint iteration started from the state `near` of a
+    /// nearby point: ln rho extrapolated with its chi_rho and chi_T, and its psi. Along an
+    /// integration consecutive points are close, and the warm start saves most iterations; the
+    /// converged state is the same to the iteration's tolerance (1e-12 in ln P and neutrality).
+    pub fn at_pressure_near(
+        &self,
+        p: f64,
+        t: f64,
+        comp: &Composition,
+        near: &EosState,
+    ) -> Result<EosState, PhysicsError> {
+        let start = (near.density_g_cm3 > 0.0
+            && near.chi_rho > 0.0
+            && near.degeneracy_psi.is_finite())
+        .then(|| {
+            let ln_rho = near.density_g_cm3.ln()
+                + ((p / near.pressure_dyn_cm2).ln() - near.chi_t * (t / near.temperature_k).ln())
+                    / near.chi_rho;
+            (ln_rho, near.degeneracy_psi)
+        });
+        self.at_pressure_from(p, t, comp, start.filter(|(r, _)| r.is_finite()))
+    }
+
+    /// The inversion, started at (ln rho, psi) = `start` if given, else from the fully ionised
+    /// ideal gas.
+    fn at_pressure_from(
+        &self,
+        p: f64,
+        t: f64,
+        comp: &Composition,
+        start: Option<(f64, f64)>,
+    ) -> Result<EosState, PhysicsError> {
         if !(p.is_finite() && p > 0.0) {
             return Err(self.error(
                 format!("pressure {p:e} dyn/cm^2 must be finite and positive"),
@@ -450,11 +485,19 @@ impl Plasma {
         let (mut lo, mut hi) = (rlo.ln(), rhi.ln());
         // Fully ionised ideal-gas start.
         let n_full = 2.0 * comp.x() + 0.75 * comp.y() + 0.5 * comp.z();
-        let mut ln_rho = ((p - p_rad) * M_U_G / (K_B_ERG_K * t * n_full))
+        let ideal = ((p - p_rad) * M_U_G / (K_B_ERG_K * t * n_full))
             .ln()
             .clamp(lo, hi);
         let ln_p = p.ln();
-        if let Some(state) = self.joint_newton(ln_p, p_rad, t, comp, ln_rho) {
+        if let Some((warm_rho, warm_psi)) = start {
+            if let Some(state) =
+                self.joint_newton(ln_p, p_rad, t, comp, warm_rho.clamp(lo, hi), Some(warm_psi))
+            {
+                return Ok(state);
+            }
+        }
+        let mut ln_rho = ideal;
+        if let Some(state) = self.joint_newton(ln_p, p_rad, t, comp, ln_rho, None) {
             return Ok(state);
         }
         // Fallback: nested iteration, slower but bracketed.
@@ -511,11 +554,12 @@ impl Plasma {
         t: f64,
         comp: &Composition,
         ln_rho_start: f64,
+        psi_start: Option<f64>,
     ) -> Option<EosState> {
         let (rlo, rhi) = self.rho_range_g_cm3;
         let (llo, lhi) = (rlo.ln(), rhi.ln());
         let mut ln_rho = ln_rho_start;
-        let mut psi: Option<f64> = None;
+        let mut psi: Option<f64> = psi_start;
         let mut at_edge = 0;
         for _ in 0..40 {
             let setup = self.setup(ln_rho.exp().clamp(rlo, rhi), t, comp).ok()?;

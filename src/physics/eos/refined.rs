@@ -48,4 +48,14 @@ impl EquationOfState for RefinedEos {
     ) -> Result<EosState, PhysicsError> {
         ENGINE.at_pressure(p, t, comp)
     }
+
+    fn state_at_pressure_near(
+        &self,
+        p: f64,
+        t: f64,
+        comp: &Composition,
+        near: &EosState,
+    ) -> Result<EosState, PhysicsError> {
+        ENGINE.at_pressure_near(p, t, comp, near)
+    }
 }

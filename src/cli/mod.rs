@@ -2,6 +2,7 @@
 //! The library itself never depends on clap.
 
 mod common;
+mod plot;
 mod polytrope;
 mod probe;
 mod sequence;
@@ -28,6 +29,8 @@ enum Command {
     Sequence(Box<sequence::SequenceArgs>),
     /// Join the outputs of the shards of one grid into one table.
     Merge(sequence::MergeArgs),
+    /// Redraw a figure (profile or HR diagram) from a saved CSV table.
+    Plot(plot::PlotArgs),
     /// Solve a Lane–Emden polytrope of index n, optionally scaled to a star.
     Polytrope(polytrope::PolytropeArgs),
     /// Evaluate every physics law at one density and temperature.
@@ -51,6 +54,7 @@ pub fn run(cli: Cli) -> Result<()> {
         Command::Polytrope(args) => polytrope::run(args),
         Command::Sequence(args) => sequence::run(*args),
         Command::Merge(args) => sequence::run_merge(args),
+        Command::Plot(args) => plot::run(args),
         Command::Probe(args) => probe::run(args),
     }
 }

@@ -8,6 +8,7 @@ use starpoise::grid::fits::{parse_ranges, power_law_fits, DEFAULT_FIT_RANGES};
 use starpoise::grid::merge::merge_shards;
 use starpoise::grid::run::{solve_points, RunSettings};
 use starpoise::grid::{parse_value_list, Grid, Shard, Variant};
+use starpoise::output::plot::{hr_diagram, series_from_rows};
 use starpoise::output::sequence::{read_rows, write_table, FitGroup, SequenceRow, SequenceTable};
 use starpoise::structure::DEFAULT_FIT_MASS_FRACTION;
 use starpoise::{Error, Result};
@@ -38,6 +39,9 @@ pub struct SequenceArgs {
     /// Write the table here: CSV, or JSON if the name ends in .json (atomically).
     #[arg(long, value_name = "FILE")]
     out: Option<PathBuf>,
+    /// Draw the HR diagram of the converged models to this SVG file (atomically).
+    #[arg(long, value_name = "FILE.svg")]
+    plot: Option<PathBuf>,
     /// Run only the K-th of N deterministic slices of the grid.
     #[arg(long, value_name = "K/N")]
     shard: Option<String>,
@@ -97,6 +101,9 @@ pub fn run(args: SequenceArgs) -> Result<()> {
     if let Some(path) = &args.out {
         super::zams::check_writable("--out", path)?;
     }
+    if let Some(path) = &args.plot {
+        super::zams::check_writable("--plot", path)?;
+    }
     let grid = Grid::product(&args.physics.options(), variants, &masses, &xs, &zs, fit)?;
     let points = grid.select(shard);
     let bar = progress(points.len(), args.quiet);
@@ -129,6 +136,10 @@ pub fn run(args: SequenceArgs) -> Result<()> {
     };
     if let Some(path) = &args.out {
         write_table(path, &table)?;
+    }
+    if let Some(path) = &args.plot {
+        let series = series_from_rows(&table.rows);
+        hr_diagram(path, &series, "Zero-age main sequence")?;
     }
     print!("{}", text_table(&table));
     let failed = table.rows.iter().filter(|r| !r.converged()).count();

@@ -39,6 +39,9 @@ pub struct ZamsArgs {
     /// Format of the profile file.
     #[arg(long, value_enum, default_value_t = ProfileFormat::Csv)]
     profile_format: ProfileFormat,
+    /// Draw the profile (T, rho, P, L, m and the gradients against r/R) to this SVG file.
+    #[arg(long, value_name = "FILE.svg")]
+    plot: Option<PathBuf>,
     /// Number of profile rows [default: 400].
     #[arg(long, value_name = "K")]
     points: Option<usize>,
@@ -161,7 +164,7 @@ impl ZamsArgs {
         if let Some(n) = self.max_iterations {
             settings = settings.with_max_iterations(n)?;
         }
-        settings = settings.with_profile(self.profile.is_some());
+        settings = settings.with_profile(self.profile.is_some() || self.plot.is_some());
         if let Some(g) = &self.guess {
             settings = settings.with_guess(g[0], g[1], g[2], g[3])?;
         }
@@ -175,10 +178,22 @@ pub fn run(args: ZamsArgs) -> Result<()> {
     if let Some(p) = &args.profile {
         check_writable("--profile", p)?;
     }
+    if let Some(p) = &args.plot {
+        check_writable("--plot", p)?;
+    }
     match solve_detailed(&settings)? {
         ZamsOutcome::Converged(model) => {
             if let Some(path) = &args.profile {
                 write_profile(path, &model.profile, args.profile_format)?;
+            }
+            if let Some(path) = &args.plot {
+                let title = format!(
+                    "ZAMS model, {} M_sun, X = {}, Z = {}",
+                    settings.mass_msun(),
+                    model.summary.x,
+                    model.summary.z
+                );
+                starpoise::output::plot::profile_plot(path, &model.profile, &title)?;
             }
             match args.format {
                 Format::Json => println!("{}", to_json(&model.summary)?),

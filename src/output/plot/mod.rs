@@ -47,3 +47,39 @@ fn write_svg(path: &Path, svg: Result<String>) -> Result<()> {
     })?;
     crate::output::write_atomically(path, |w| w.write_all(svg.as_bytes()))
 }
+
+/// One HR series per (variant, X, Z) of a sequence table, from its converged rows, labelled by
+/// the variant and, when the table holds several compositions, the composition.
+pub fn series_from_rows(rows: &[crate::output::sequence::SequenceRow]) -> Vec<HrSeries> {
+    let mut keys: Vec<(String, f64, f64)> = Vec::new();
+    for r in rows {
+        let k = (r.variant.clone(), r.x, r.z);
+        if !keys.contains(&k) {
+            keys.push(k);
+        }
+    }
+    let several_variants = keys.iter().any(|k| k.0 != keys[0].0);
+    let several_compositions = keys.iter().any(|k| k.1 != keys[0].1 || k.2 != keys[0].2);
+    keys.iter()
+        .map(|(variant, x, z)| {
+            let label = match (several_variants, several_compositions) {
+                (_, true) if !several_variants => format!("X = {x}, Z = {z}"),
+                (_, true) => format!("{variant} (X = {x}, Z = {z})"),
+                _ => variant.clone(),
+            };
+            let points = rows
+                .iter()
+                .filter(|r| &r.variant == variant && r.x == *x && r.z == *z && r.converged())
+                .filter_map(|r| {
+                    Some(HrPoint {
+                        mass_msun: r.mass_msun,
+                        teff_k: r.teff_k?,
+                        luminosity_lsun: r.luminosity_lsun?,
+                    })
+                })
+                .collect();
+            HrSeries { label, points }
+        })
+        .filter(|s| !s.points.is_empty())
+        .collect()
+}

@@ -26,7 +26,7 @@ fn zams_models(c: &mut Criterion) {
         ("analytic_10msun", 10.0, "analytic"),
         ("refined_1msun", 1.0, "refined"),
     ] {
-        let s = settings(mass, preset);
+        let s = settings(mass, preset).with_profile(false);
         if solve(&s).is_err() {
             eprintln!("skipping {name}: the model does not converge with this build");
             continue;

@@ -8,14 +8,22 @@ use starpoise::physics::PhysicsOptions;
 
 fn sequence_40(c: &mut Criterion) {
     let masses = parse_value_list("--masses", "0.1:100:40").expect("valid range");
-    let grid = Grid::product(&PhysicsOptions::default(), vec![Variant::base()], &masses, &[0.70], &[0.02], 0.4)
-        .expect("valid grid");
+    let grid = Grid::product(
+        &PhysicsOptions::default(),
+        vec![Variant::base()],
+        &masses,
+        &[0.70],
+        &[0.02],
+        0.4,
+    )
+    .expect("valid grid");
     let points = grid.select(None);
     let mut group = c.benchmark_group("sequence");
     group.sample_size(10);
     group.bench_function("refined_40_masses_0.1_to_100", |b| {
         b.iter(|| {
-            let results = solve_points(&grid, &points, &RunSettings::default(), &|| {}).expect("runs");
+            let results =
+                solve_points(&grid, &points, &RunSettings::default(), &|| {}).expect("runs");
             assert!(results.iter().all(|r| r.outcome.is_ok()));
             results
         })

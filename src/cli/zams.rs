@@ -281,108 +281,107 @@ pub fn write_profile(path: &Path, rows: &[ProfileRow], format: ProfileFormat) ->
     })
 }
 
+/// A number with six significant figures: plain between 1e-3 and 1e6, else in exponent form.
+pub fn num(v: f64) -> String {
+    let a = v.abs();
+    if !v.is_finite() {
+        "n/a".to_string()
+    } else if a == 0.0 {
+        "0".to_string()
+    } else if (1e-3..1e6).contains(&a) {
+        let decimals = (5 - a.log10().floor() as i32).clamp(0, 8) as usize;
+        format!("{v:.decimals$}")
+    } else {
+        format!("{v:.5e}")
+    }
+}
+
 /// The summary as aligned text with units.
 pub fn text_summary(s: &ZamsSummary) -> String {
-    let f = |v: Option<f64>| v.unwrap_or(f64::NAN);
+    let f = |v: Option<f64>| v.map_or_else(|| "n/a".to_string(), num);
     let mut out = String::new();
     let mut line = |label: &str, value: String, unit: &str| {
-        out.push_str(&format!("{label:<34} {value:>14} {unit}\n"));
+        out.push_str(&format!("{label:<32} {value:>13}  {unit}\n"));
     };
-    line("mass", format!("{:.4}", s.mass_msun), "M_sun");
-    line("X, Z", format!("{:.4}, {:.4}", s.x, s.z), "");
+    let p = &s.physics;
+    line("mass", num(s.mass_msun), "M_sun");
+    line(
+        "X, Y, Z",
+        format!("{:.4}, {:.4}, {:.4}", s.x, 1.0 - s.x - s.z, s.z),
+        "mass fractions",
+    );
     line(
         "physics",
-        s.physics.preset.clone(),
-        &format!(
-            "(eos {}, opacity {}, rates {}, convection {}, atmosphere {})",
-            s.physics.eos,
-            s.physics.opacity,
-            s.physics.rates,
-            s.physics.convection,
-            s.physics.atmosphere
-        ),
+        p.preset.clone(),
+        &format!("eos {}, opacity {}, rates {},", p.eos, p.opacity, p.rates),
+    );
+    line(
+        "",
+        String::new(),
+        &format!("convection {}, atmosphere {}", p.convection, p.atmosphere),
     );
     line(
         "converged",
-        format!("{}", s.converged),
+        s.converged.to_string(),
         &format!(
-            "({} Newton iterations, mismatch {:.1e}, fit at m/M = {})",
+            "{} Newton iterations, mismatch {:.1e} at m/M = {}",
             s.iterations, s.fit_mismatch, s.fit_mass_fraction
         ),
     );
-    line("radius", format!("{:.6}", f(s.radius_rsun)), "R_sun");
-    line(
-        "luminosity",
-        format!("{:.6e}", f(s.luminosity_lsun)),
-        "L_sun",
-    );
-    line("effective temperature", format!("{:.1}", f(s.teff_k)), "K");
-    line("log g", format!("{:.4}", f(s.log_g_cgs)), "(cgs)");
-    line(
-        "central temperature",
-        format!("{:.6e}", f(s.central_temperature_k)),
-        "K",
-    );
-    line(
-        "central density",
-        format!("{:.6e}", f(s.central_density_g_cm3)),
-        "g/cm^3",
-    );
+    line("radius", f(s.radius_rsun), "R_sun");
+    line("luminosity", f(s.luminosity_lsun), "L_sun");
+    line("effective temperature", f(s.teff_k), "K");
+    line("log g", f(s.log_g_cgs), "(g in cm/s^2)");
+    line("central temperature", f(s.central_temperature_k), "K");
+    line("central density", f(s.central_density_g_cm3), "g/cm^3");
     line(
         "central pressure",
-        format!("{:.6e}", f(s.central_pressure_dyn_cm2)),
+        f(s.central_pressure_dyn_cm2),
         "dyn/cm^2",
     );
     line(
         "central degeneracy psi",
-        s.central_degeneracy
-            .map_or("n/a".to_string(), |v| format!("{v:.3}")),
-        "",
+        f(s.central_degeneracy),
+        "(mu_e / kT; < 0: non-degenerate)",
     );
     line(
         "convective core",
-        format!("{:.4}", f(s.convective_core_mass_fraction)),
+        f(s.convective_core_mass_fraction),
         "of M",
     );
     line(
         "convective envelope",
-        format!("{:.4}", f(s.convective_envelope_mass_fraction)),
+        f(s.convective_envelope_mass_fraction),
         "of M",
     );
-    line(
-        "CNO share of L",
-        format!("{:.4}", f(s.cno_luminosity_fraction)),
-        "",
-    );
-    line(
-        "L / L_Edd (electron scattering)",
-        format!("{:.4e}", f(s.eddington_ratio)),
-        "",
-    );
+    line("CNO share of L", f(s.cno_luminosity_fraction), "");
+    line("L / L_Edd", f(s.eddington_ratio), "(electron scattering)");
     line(
         "Kelvin-Helmholtz time",
-        format!("{:.4e}", f(s.kelvin_helmholtz_time_yr)),
-        "yr",
+        f(s.kelvin_helmholtz_time_yr),
+        "yr (G M^2 / R L)",
     );
     line(
         "dynamical time",
-        format!("{:.4e}", f(s.dynamical_time_s)),
-        "s",
+        f(s.dynamical_time_s),
+        "s (sqrt(R^3 / G M))",
     );
     line(
-        "nuclear (main-sequence) time",
-        format!("{:.4e}", f(s.nuclear_time_yr)),
-        "yr",
+        "main-sequence lifetime",
+        f(s.nuclear_time_yr),
+        "yr (10% of H burnt at this L)",
     );
     line(
         "virial residual",
-        format!("{:.2e}", f(s.virial_residual)),
-        "",
+        s.virial_residual
+            .map_or("n/a".into(), |v| format!("{v:.1e}")),
+        "(|3 int P/rho dm / int Gm/r dm - 1|)",
     );
     line(
         "luminosity residual",
-        format!("{:.2e}", f(s.luminosity_residual)),
-        "",
+        s.luminosity_residual
+            .map_or("n/a".into(), |v| format!("{v:.1e}")),
+        "(|int eps dm / L - 1|)",
     );
     out
 }

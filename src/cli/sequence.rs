@@ -185,31 +185,29 @@ fn fit_groups(rows: &[SequenceRow], ranges: &[(f64, f64)]) -> Vec<FitGroup> {
     groups
 }
 
-fn opt(v: Option<f64>, width: usize, prec: usize) -> String {
-    v.map_or_else(
-        || format!("{:>width$}", "-"),
-        |x| format!("{x:>width$.prec$e}"),
-    )
+fn opt(v: Option<f64>, width: usize) -> String {
+    let text = v.map_or_else(|| "-".to_string(), super::zams::num);
+    format!("{text:>width$}")
 }
 
 /// The table for people: one line per model, then the fits.
 pub fn text_table(t: &SequenceTable) -> String {
     let mut out = format!(
-        "{:<10} {:>6} {:>6} {:>9} {:>11} {:>10} {:>9} {:>10} {:>10} {:>6}  status\n",
-        "variant", "X", "Z", "M/M_sun", "L/L_sun", "R/R_sun", "Teff/K", "T_c/K", "rho_c", "M_cc"
+        "{:<10} {:>6} {:>6} {:>9} {:>11} {:>9} {:>7} {:>10} {:>9} {:>6}  status\n",
+        "variant", "X", "Z", "M/M_sun", "L/L_sun", "R/R_sun", "Teff/K", "T_c/K", "rho_c", "M_cc/M"
     );
     for r in &t.rows {
         out.push_str(&format!(
-            "{:<10} {:>6.4} {:>6.4} {:>9.4} {} {} {:>9} {} {} {:>6}  {}\n",
+            "{:<10} {:>6.4} {:>6.4} {:>9.4} {} {} {:>7} {} {} {:>6}  {}\n",
             r.variant,
             r.x,
             r.z,
             r.mass_msun,
-            opt(r.luminosity_lsun, 11, 4),
-            opt(r.radius_rsun, 10, 4),
+            opt(r.luminosity_lsun, 11),
+            opt(r.radius_rsun, 9),
             r.teff_k.map_or("-".to_string(), |v| format!("{v:.0}")),
-            opt(r.central_temperature_k, 10, 4),
-            opt(r.central_density_g_cm3, 10, 3),
+            opt(r.central_temperature_k, 10),
+            opt(r.central_density_g_cm3, 9),
             r.convective_core_mass_fraction
                 .map_or("-".to_string(), |v| format!("{v:.3}")),
             r.status

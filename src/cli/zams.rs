@@ -63,10 +63,11 @@ pub enum ProfileFormat {
     Json,
 }
 
-/// A model file: every setting `zams` takes, as JSON keys (all optional except `mass_msun`
-/// unless `--mass` is given). Unknown keys are refused.
+/// A model file: every setting `zams` takes, as JSON keys (all optional; `mass_msun` is needed
+/// unless `--mass` is given). The law choices use the keys of [`PhysicsOptions`] (`physics`,
+/// `eos`, `opacity`, `rates`, `convection`, `alpha`, `opacity_factor`, `rates_factor`,
+/// `atmosphere`). Unknown keys are refused.
 #[derive(Debug, Default, Deserialize)]
-#[serde(deny_unknown_fields)]
 pub struct ModelFile {
     /// Free-text name of the star (informational; accepted so files can label themselves).
     #[allow(dead_code)]
@@ -80,28 +81,13 @@ pub struct ModelFile {
     pub x: Option<f64>,
     /// Metal mass fraction.
     pub z: Option<f64>,
-    /// Preset: analytic or refined.
-    pub physics: Option<String>,
-    /// Equation of state law.
-    pub eos: Option<String>,
-    /// Opacity law.
-    pub opacity: Option<String>,
-    /// Energy generation law.
-    pub rates: Option<String>,
-    /// Convection law.
-    pub convection: Option<String>,
-    /// Mixing-length parameter.
-    pub alpha: Option<f64>,
-    /// Opacity factor.
-    pub opacity_factor: Option<f64>,
-    /// Rates factor.
-    pub rates_factor: Option<f64>,
-    /// Outer boundary.
-    pub atmosphere: Option<String>,
     /// Fitting mass fraction.
     pub fit_mass: Option<f64>,
     /// Profile rows.
     pub points: Option<usize>,
+    /// The laws; its own `deny_unknown_fields` refuses any key no field takes.
+    #[serde(flatten)]
+    pub physics: PhysicsOptions,
 }
 
 impl ModelFile {
@@ -111,24 +97,38 @@ impl ModelFile {
             path: path.display().to_string(),
             reason: format!("cannot read the model file: {e}"),
         })?;
-        serde_json::from_str(&text).map_err(|e| Error::BadFile {
+        let bad = |reason: String| Error::BadFile {
             path: path.display().to_string(),
-            reason: format!("not a valid model file (JSON object with keys such as mass_msun, x, z, physics): {e}"),
-        })
+            reason,
+        };
+        let value: serde_json::Value = serde_json::from_str(&text)
+            .map_err(|e| bad(format!("not a valid model file (a JSON object with keys such as mass_msun, x, z, physics): {e}")))?;
+        // serde cannot refuse unknown keys through a flattened field, so check them here.
+        let allowed = Self::keys();
+        if let Some(map) = value.as_object() {
+            if let Some(k) = map.keys().find(|k| !allowed.contains(k)) {
+                return Err(bad(format!(
+                    "unknown key \"{k}\"; allowed keys: {}",
+                    allowed.join(", ")
+                )));
+            }
+        }
+        serde_json::from_value(value).map_err(|e| bad(format!("not a valid model file: {e}")))
     }
 
-    fn physics_options(&self) -> PhysicsOptions {
-        PhysicsOptions {
-            physics: self.physics.clone(),
-            eos: self.eos.clone(),
-            opacity: self.opacity.clone(),
-            rates: self.rates.clone(),
-            convection: self.convection.clone(),
-            alpha: self.alpha,
-            opacity_factor: self.opacity_factor,
-            rates_factor: self.rates_factor,
-            atmosphere: self.atmosphere.clone(),
-        }
+    /// Every key a model file may hold: its own and those of [`PhysicsOptions`].
+    fn keys() -> Vec<String> {
+        let own = ["name", "note", "mass_msun", "x", "z", "fit_mass", "points"];
+        let physics = serde_json::to_value(PhysicsOptions::default()).ok();
+        let physics_keys = physics
+            .as_ref()
+            .and_then(|v| v.as_object())
+            .into_iter()
+            .flat_map(|m| m.keys().cloned());
+        own.iter()
+            .map(|k| k.to_string())
+            .chain(physics_keys)
+            .collect()
     }
 }
 
@@ -148,7 +148,7 @@ impl ZamsArgs {
         })?;
         let comp = self.composition.composition(file.x, file.z)?;
         let physics = file
-            .physics_options()
+            .physics
             .overridden_by(&self.physics.options())
             .build()?;
         let mut settings = ZamsSettings::new(mass, comp, physics)?;

@@ -108,6 +108,26 @@ fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
     })
 }
 
+/// F at `u` again after the problem changed its accuracy, with its max-norm recorded in the
+/// report; `None` (with the failure recorded) if it cannot be evaluated.
+fn reevaluate<const N: usize, P: NewtonProblem<N>>(
+    problem: &mut P,
+    u: &SVector<f64, N>,
+    report: &mut NewtonReport<N>,
+) -> Option<(SVector<f64, N>, f64)> {
+    match problem.residual(u) {
+        Ok(f) => {
+            let norm = max_norm(&f);
+            report.residual_norm = norm;
+            Some((f, norm))
+        }
+        Err(e) => {
+            report.failure = Some(format!("re-evaluation at higher accuracy failed: {e}"));
+            None
+        }
+    }
+}
+
 /// Run the damped Newton iteration from `u0`.
 pub fn solve<const N: usize, P: NewtonProblem<N>>(
     problem: &mut P,
@@ -136,16 +156,9 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
     while report.iterations < settings.max_iterations {
         if problem.adapt_to_residual(norm) {
             reusable = None;
-            match problem.residual(&u) {
-                Ok(g) => {
-                    f = g;
-                    norm = max_norm(&f);
-                    report.residual_norm = norm;
-                }
-                Err(e) => {
-                    report.failure = Some(format!("re-evaluation at higher accuracy failed: {e}"));
-                    return report;
-                }
+            match reevaluate(problem, &u, &mut report) {
+                Some((g, n)) => (f, norm) = (g, n),
+                None => return report,
             }
         }
         if norm < settings.tolerance {
@@ -228,16 +241,9 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             }
             // The Jacobian was a Broyden update: try again from here with a fresh one.
             None if used_broyden => {}
-            None if problem.sharpen() => match problem.residual(&u) {
-                Ok(g) => {
-                    f = g;
-                    norm = max_norm(&f);
-                    report.residual_norm = norm;
-                }
-                Err(e) => {
-                    report.failure = Some(format!("re-evaluation at higher accuracy failed: {e}"));
-                    return report;
-                }
+            None if problem.sharpen() => match reevaluate(problem, &u, &mut report) {
+                Some((g, n)) => (f, norm) = (g, n),
+                None => return report,
             },
             None => {
                 report.failure = Some(format!(

@@ -201,6 +201,19 @@ fn run(
     monitor: &LegMonitor,
     watch: Option<&BoundaryWatch>,
 ) -> Result<State> {
+    run_recording(ctx, leg, (x0, x1), y0, monitor, watch, None)
+}
+
+/// [`run`], also appending the accepted step points to `steps` when given.
+fn run_recording(
+    ctx: &LegContext,
+    leg: Leg,
+    (x0, x1): (f64, f64),
+    y0: State,
+    monitor: &LegMonitor,
+    watch: Option<&BoundaryWatch>,
+    steps: Option<&mut Vec<f64>>,
+) -> Result<State> {
     let mut y0 = y0;
     y0[X_COPY] = x0;
     let system = LegSystem {
@@ -234,6 +247,9 @@ fn run(
         .ok_or_else(|| failure("integrator produced no output".to_string()))?;
     if !end.iter().all(|v| v.is_finite()) {
         return Err(failure("non-finite state".to_string()));
+    }
+    if let Some(steps) = steps {
+        steps.extend_from_slice(stepper.x_out());
     }
     Ok(end)
 }
@@ -371,21 +387,7 @@ pub fn step_points(
     y0: State,
     monitor: &LegMonitor,
 ) -> Result<Vec<f64>> {
-    let mut y0 = y0;
-    y0[X_COPY] = x0;
-    let system = LegSystem {
-        ctx: *ctx,
-        leg,
-        monitor,
-        watch: None,
-        last_eos: Cell::new(None),
-    };
-    let mut stepper = Dop853::new(system, x0, x1, x1 - x0, y0, ctx.tolerance, ctx.tolerance);
-    stepper.set_output(OutputType::Sparse);
-    stepper.integrate().map_err(|e| Error::Integration {
-        leg: leg.name(),
-        mass_g: f64::NAN,
-        reason: e.to_string(),
-    })?;
-    Ok(stepper.x_out().clone())
+    let mut steps = Vec::new();
+    run_recording(ctx, leg, (x0, x1), y0, monitor, None, Some(&mut steps))?;
+    Ok(steps)
 }

@@ -1,9 +1,6 @@
 //! `degenerate`: fully ionised matter with electrons of arbitrary degeneracy.
 
-use super::plasma::{Electrons, Ionisation, Plasma};
-use super::{EosState, EquationOfState};
-use crate::error::PhysicsError;
-use crate::physics::composition::Composition;
+use super::plasma::{plasma_law, Electrons, Ionisation, Plasma};
 
 /// Fully ionised ideal ions, non-relativistic electrons of arbitrary degeneracy, radiation.
 ///
@@ -27,32 +24,4 @@ const ENGINE: Plasma = Plasma {
     temperature_range_k: (1e3, 1e9),
 };
 
-impl EquationOfState for DegenerateGas {
-    fn name(&self) -> &str {
-        ENGINE.law
-    }
-
-    fn state(&self, rho: f64, t: f64, comp: &Composition) -> Result<EosState, PhysicsError> {
-        Ok(ENGINE.solve(rho, t, comp, None)?.state)
-    }
-
-    /// Newton iteration in ln rho with the analytic chi_rho, bracketed.
-    fn state_at_pressure(
-        &self,
-        p: f64,
-        t: f64,
-        comp: &Composition,
-    ) -> Result<EosState, PhysicsError> {
-        ENGINE.at_pressure(p, t, comp)
-    }
-
-    fn state_at_pressure_near(
-        &self,
-        p: f64,
-        t: f64,
-        comp: &Composition,
-        near: &EosState,
-    ) -> Result<EosState, PhysicsError> {
-        ENGINE.at_pressure_near(p, t, comp, near)
-    }
-}
+plasma_law!(DegenerateGas, ENGINE);

@@ -720,3 +720,45 @@ impl StageInputs {
         }
     }
 }
+
+/// `impl EquationOfState` for a law that is a [`Plasma`] engine constant: `state` solves charge
+/// neutrality at (rho, T); the inversions are [`Plasma::at_pressure`] and
+/// [`Plasma::at_pressure_near`].
+macro_rules! plasma_law {
+    ($law:ty, $engine:expr) => {
+        impl $crate::physics::eos::EquationOfState for $law {
+            fn name(&self) -> &str {
+                $engine.law
+            }
+
+            fn state(
+                &self,
+                rho: f64,
+                t: f64,
+                comp: &$crate::physics::composition::Composition,
+            ) -> Result<$crate::physics::eos::EosState, $crate::error::PhysicsError> {
+                Ok($engine.solve(rho, t, comp, None)?.state)
+            }
+
+            fn state_at_pressure(
+                &self,
+                p: f64,
+                t: f64,
+                comp: &$crate::physics::composition::Composition,
+            ) -> Result<$crate::physics::eos::EosState, $crate::error::PhysicsError> {
+                $engine.at_pressure(p, t, comp)
+            }
+
+            fn state_at_pressure_near(
+                &self,
+                p: f64,
+                t: f64,
+                comp: &$crate::physics::composition::Composition,
+                near: &$crate::physics::eos::EosState,
+            ) -> Result<$crate::physics::eos::EosState, $crate::error::PhysicsError> {
+                $engine.at_pressure_near(p, t, comp, near)
+            }
+        }
+    };
+}
+pub(crate) use plasma_law;

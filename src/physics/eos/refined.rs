@@ -1,9 +1,6 @@
 //! `refined`: the default equation of state, Saha ionisation with degenerate electrons.
 
-use super::plasma::{Electrons, Ionisation, Plasma};
-use super::{EosState, EquationOfState};
-use crate::error::PhysicsError;
-use crate::physics::composition::Composition;
+use super::plasma::{plasma_law, Electrons, Ionisation, Plasma};
 
 /// Saha ionisation of H and He and electrons of arbitrary degeneracy in one consistent model.
 ///
@@ -28,34 +25,4 @@ const ENGINE: Plasma = Plasma {
     temperature_range_k: (1e3, 1e9),
 };
 
-impl EquationOfState for RefinedEos {
-    fn name(&self) -> &str {
-        ENGINE.law
-    }
-
-    fn state(&self, rho: f64, t: f64, comp: &Composition) -> Result<EosState, PhysicsError> {
-        Ok(ENGINE.solve(rho, t, comp, None)?.state)
-    }
-
-    /// Newton iteration in ln rho with the analytic chi_rho, kept in a bracket, each
-    /// neutrality solve warm-started from the previous psi (a few microseconds at most;
-    /// typically well under one).
-    fn state_at_pressure(
-        &self,
-        p: f64,
-        t: f64,
-        comp: &Composition,
-    ) -> Result<EosState, PhysicsError> {
-        ENGINE.at_pressure(p, t, comp)
-    }
-
-    fn state_at_pressure_near(
-        &self,
-        p: f64,
-        t: f64,
-        comp: &Composition,
-        near: &EosState,
-    ) -> Result<EosState, PhysicsError> {
-        ENGINE.at_pressure_near(p, t, comp, near)
-    }
-}
+plasma_law!(RefinedEos, ENGINE);

@@ -79,6 +79,14 @@ pub enum Error {
         /// Why it stopped.
         reason: String,
     },
+    /// Some models of a grid or comparison did not converge (the others were written).
+    #[error("{failed} of {total} models did not converge (see their status)")]
+    Incomplete {
+        /// Models that did not converge.
+        failed: usize,
+        /// Models in the run.
+        total: usize,
+    },
     /// Writing an output file failed.
     #[error("cannot write {path}: {reason}")]
     Io {
@@ -104,7 +112,7 @@ impl Error {
     pub fn exit_code(&self) -> i32 {
         match self {
             Error::InvalidInput { .. } | Error::BadFile { .. } => 2,
-            Error::NoConvergence { .. } => 3,
+            Error::NoConvergence { .. } | Error::Incomplete { .. } => 3,
             _ => 1,
         }
     }

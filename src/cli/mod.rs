@@ -2,6 +2,7 @@
 //! The library itself never depends on clap.
 
 mod common;
+mod compare;
 mod plot;
 mod polytrope;
 mod probe;
@@ -27,6 +28,9 @@ enum Command {
     /// Solve a grid of ZAMS models (masses x compositions x physics variants) in parallel.
     #[command(allow_negative_numbers = true)]
     Sequence(Box<sequence::SequenceArgs>),
+    /// Solve the same masses under several physics variants and compare them with the first.
+    #[command(allow_negative_numbers = true)]
+    Compare(Box<compare::CompareArgs>),
     /// Join the outputs of the shards of one grid into one table.
     Merge(sequence::MergeArgs),
     /// Redraw a figure (profile or HR diagram) from a saved CSV table.
@@ -53,6 +57,7 @@ pub fn run(cli: Cli) -> Result<()> {
         Command::Zams(args) => zams::run(*args),
         Command::Polytrope(args) => polytrope::run(args),
         Command::Sequence(args) => sequence::run(*args),
+        Command::Compare(args) => compare::run(*args),
         Command::Merge(args) => sequence::run_merge(args),
         Command::Plot(args) => plot::run(args),
         Command::Probe(args) => probe::run(args),

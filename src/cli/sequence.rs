@@ -144,14 +144,9 @@ pub fn run(args: SequenceArgs) -> Result<()> {
     print!("{}", text_table(&table));
     let failed = table.rows.iter().filter(|r| !r.converged()).count();
     if failed > 0 {
-        eprintln!(
-            "starpoise: {failed} of {} models did not converge (see their status)",
-            table.rows.len()
-        );
-        return Err(Error::NoConvergence {
-            iterations: 0,
-            residual: f64::NAN,
-            reason: format!("{failed} models of the grid did not converge"),
+        return Err(Error::Incomplete {
+            failed,
+            total: table.rows.len(),
         });
     }
     Ok(())

@@ -1,6 +1,7 @@
 //! Grids of models: mass x composition x physics variant, solved in parallel, sliced into
 //! deterministic shards for batch clusters.
 
+pub mod compare;
 pub mod fits;
 pub mod masses;
 pub mod merge;

@@ -1,6 +1,7 @@
 //! Writing results: atomic file writes and the documented output schemas.
 
 pub mod atomic;
+pub mod compare;
 pub mod plot;
 pub mod polytrope;
 pub mod probe;

@@ -1,0 +1,198 @@
+//! Output schema of `compare`: one record per (mass, variant) with the model's values, the
+//! differences against the reference variant (the first) of the same mass, and the
+//! logarithmic sensitivities to a scale factor where the variant changes exactly one. CSV
+//! columns and JSON keys are the field names; empty CSV cells (JSON `null`) mean "not
+//! applicable" (a model that did not converge, a reference that did not converge, or a variant
+//! that does not change exactly one factor).
+
+use crate::error::Result;
+use crate::grid::compare::{differences, sensitivities, single_factor_change};
+use crate::grid::run::PointResult;
+use crate::grid::Grid;
+use crate::physics::PhysicsOptions;
+use serde::Serialize;
+use std::path::Path;
+
+/// One model of a comparison.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct CompareRecord {
+    /// Mass, M_sun.
+    pub mass_msun: f64,
+    /// Hydrogen mass fraction.
+    pub x: f64,
+    /// Metal mass fraction.
+    pub z: f64,
+    /// Variant name.
+    pub variant: String,
+    /// The variant's SPEC as given (empty: the base set).
+    pub spec: String,
+    /// Whether this is the reference variant (the first).
+    pub reference: bool,
+    /// `converged`, `converged (continuation)`, or why the model did not converge.
+    pub status: String,
+    /// Luminosity, L_sun.
+    pub luminosity_lsun: Option<f64>,
+    /// Radius, R_sun.
+    pub radius_rsun: Option<f64>,
+    /// Effective temperature, K.
+    pub teff_k: Option<f64>,
+    /// Central temperature, K.
+    pub central_temperature_k: Option<f64>,
+    /// Central density, g cm^-3.
+    pub central_density_g_cm3: Option<f64>,
+    /// Convective-core mass fraction of M.
+    pub convective_core_mass_fraction: Option<f64>,
+    /// log10(L / L_reference), dex.
+    pub dlog_luminosity_dex: Option<f64>,
+    /// log10(R / R_reference), dex.
+    pub dlog_radius_dex: Option<f64>,
+    /// log10(T_c / T_c,reference), dex.
+    pub dlog_central_temperature_dex: Option<f64>,
+    /// log10(rho_c / rho_c,reference), dex.
+    pub dlog_central_density_dex: Option<f64>,
+    /// Convective-core mass fraction minus the reference's (fraction of M).
+    pub delta_convective_core_mass_fraction: Option<f64>,
+    /// The one scale factor changed against the reference (`opacity-factor` or
+    /// `rates-factor`), if exactly one is and nothing else.
+    pub varied_factor: Option<String>,
+    /// That factor in the reference.
+    pub factor_reference: Option<f64>,
+    /// That factor in this variant.
+    pub factor_variant: Option<f64>,
+    /// dlog10 L / dlog10 factor.
+    pub sensitivity_luminosity: Option<f64>,
+    /// dlog10 R / dlog10 factor.
+    pub sensitivity_radius: Option<f64>,
+    /// dlog10 T_c / dlog10 factor.
+    pub sensitivity_central_temperature: Option<f64>,
+    /// dlog10 rho_c / dlog10 factor.
+    pub sensitivity_central_density: Option<f64>,
+}
+
+impl CompareRecord {
+    /// Whether the model converged.
+    pub fn converged(&self) -> bool {
+        self.status.starts_with("converged")
+    }
+}
+
+/// A whole comparison: its composition, the variants, the records mass by mass (variants in
+/// the order given within each mass).
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct CompareTable {
+    /// Name of the reference variant.
+    pub reference: String,
+    /// Hydrogen mass fraction.
+    pub x: f64,
+    /// Metal mass fraction.
+    pub z: f64,
+    /// The records.
+    pub records: Vec<CompareRecord>,
+}
+
+fn status(r: &PointResult) -> String {
+    match &r.outcome {
+        Ok(_) if r.continued => "converged (continuation)".to_string(),
+        Ok(_) => "converged".to_string(),
+        Err(why) => why.clone(),
+    }
+}
+
+impl CompareTable {
+    /// The table for the solved `results` of `grid` (a grid of one composition whose first
+    /// variant is the reference, built from the options `base`), ordered by `masses` and then
+    /// by variant. Points missing from `results` are skipped.
+    pub fn new(
+        grid: &Grid,
+        base: &PhysicsOptions,
+        masses: &[f64],
+        results: &[PointResult],
+    ) -> Self {
+        let find = |v: usize, m: f64| {
+            results
+                .iter()
+                .find(|r| r.point.variant == v && r.point.mass_msun == m)
+        };
+        let effective: Vec<PhysicsOptions> = grid
+            .variants
+            .iter()
+            .map(|v| base.overridden_by(&v.overrides))
+            .collect();
+        let mut records = Vec::new();
+        let (mut x, mut z) = (f64::NAN, f64::NAN);
+        for &m in masses {
+            let reference = find(0, m).and_then(|r| r.outcome.as_ref().ok());
+            for (v, variant) in grid.variants.iter().enumerate() {
+                let Some(r) = find(v, m) else { continue };
+                x = r.point.composition.x();
+                z = r.point.composition.z();
+                let own = r.outcome.as_ref().ok();
+                let d = match (reference, own) {
+                    (Some(a), Some(b)) => Some(differences(a, b)),
+                    _ => None,
+                };
+                let change = single_factor_change(&effective[0], &effective[v]);
+                let s = match (d, change) {
+                    (Some(d), Some(c)) => sensitivities(&d, c),
+                    _ => None,
+                };
+                records.push(CompareRecord {
+                    mass_msun: m,
+                    x,
+                    z,
+                    variant: variant.name.clone(),
+                    spec: variant.spec.clone(),
+                    reference: v == 0,
+                    status: status(r),
+                    luminosity_lsun: own.and_then(|s| s.luminosity_lsun),
+                    radius_rsun: own.and_then(|s| s.radius_rsun),
+                    teff_k: own.and_then(|s| s.teff_k),
+                    central_temperature_k: own.and_then(|s| s.central_temperature_k),
+                    central_density_g_cm3: own.and_then(|s| s.central_density_g_cm3),
+                    convective_core_mass_fraction: own
+                        .and_then(|s| s.convective_core_mass_fraction),
+                    dlog_luminosity_dex: d.and_then(|d| d.dlog_luminosity),
+                    dlog_radius_dex: d.and_then(|d| d.dlog_radius),
+                    dlog_central_temperature_dex: d.and_then(|d| d.dlog_central_temperature),
+                    dlog_central_density_dex: d.and_then(|d| d.dlog_central_density),
+                    delta_convective_core_mass_fraction: d
+                        .and_then(|d| d.delta_convective_core_mass_fraction),
+                    varied_factor: change.map(|c| c.factor.key().to_string()),
+                    factor_reference: change.map(|c| c.reference),
+                    factor_variant: change.map(|c| c.variant),
+                    sensitivity_luminosity: s.and_then(|s| s.luminosity),
+                    sensitivity_radius: s.and_then(|s| s.radius),
+                    sensitivity_central_temperature: s.and_then(|s| s.central_temperature),
+                    sensitivity_central_density: s.and_then(|s| s.central_density),
+                });
+            }
+        }
+        Self {
+            reference: grid
+                .variants
+                .first()
+                .map(|v| v.name.clone())
+                .unwrap_or_default(),
+            x,
+            z,
+            records,
+        }
+    }
+}
+
+/// Write the table to `path` (CSV of the records, or the whole table as JSON if the name ends
+/// in `.json`), atomically.
+pub fn write_table(path: &Path, table: &CompareTable) -> Result<()> {
+    crate::output::write_atomically(path, |w| {
+        if crate::output::sequence::is_json(path) {
+            serde_json::to_writer_pretty(&mut *w, table).map_err(std::io::Error::other)?;
+            w.write_all(b"\n")
+        } else {
+            let mut csv = csv::Writer::from_writer(w);
+            for r in &table.records {
+                csv.serialize(r).map_err(std::io::Error::other)?;
+            }
+            csv.flush()
+        }
+    })
+}

@@ -5,6 +5,7 @@ mod common;
 mod polytrope;
 mod probe;
 mod sequence;
+mod verify;
 mod zams;
 
 use clap::{Parser, Subcommand, ValueEnum};
@@ -32,6 +33,8 @@ enum Command {
     Polytrope(polytrope::PolytropeArgs),
     /// Evaluate every physics law at one density and temperature.
     Probe(probe::ProbeArgs),
+    /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
+    Verify(verify::VerifyArgs),
 }
 
 /// Output format of a summary.
@@ -52,6 +55,7 @@ pub fn run(cli: Cli) -> Result<()> {
         Command::Sequence(args) => sequence::run(*args),
         Command::Merge(args) => sequence::run_merge(args),
         Command::Probe(args) => probe::run(args),
+        Command::Verify(args) => verify::run(args),
     }
 }
 

@@ -87,6 +87,12 @@ pub enum Error {
         /// Models in the run.
         total: usize,
     },
+    /// Some of the built-in published checks of `verify` failed.
+    #[error("{failed} of the built-in checks failed")]
+    VerificationFailed {
+        /// How many checks failed.
+        failed: usize,
+    },
     /// Writing an output file failed.
     #[error("cannot write {path}: {reason}")]
     Io {

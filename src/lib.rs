@@ -14,5 +14,6 @@ pub mod physics;
 pub mod polytrope;
 pub mod reference;
 pub mod structure;
+pub mod verify;
 
 pub use error::{Error, Result};

@@ -7,6 +7,7 @@ mod plot;
 mod polytrope;
 mod probe;
 mod sequence;
+mod verify;
 mod zams;
 
 use clap::{Parser, Subcommand, ValueEnum};
@@ -39,6 +40,8 @@ enum Command {
     Polytrope(polytrope::PolytropeArgs),
     /// Evaluate every physics law at one density and temperature.
     Probe(probe::ProbeArgs),
+    /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
+    Verify(verify::VerifyArgs),
 }
 
 /// Output format of a summary.
@@ -61,6 +64,7 @@ pub fn run(cli: Cli) -> Result<()> {
         Command::Merge(args) => sequence::run_merge(args),
         Command::Plot(args) => plot::run(args),
         Command::Probe(args) => probe::run(args),
+        Command::Verify(args) => verify::run(args),
     }
 }
 

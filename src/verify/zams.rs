@@ -1,0 +1,186 @@
+//! Checks of whole ZAMS models with the default (`refined`) physics at X = 0.70, Z = 0.02: the
+//! published figures of the ZAMS Sun, the mass–luminosity slope, the virial and energy checks,
+//! and the Tout et al. (1996) fits.
+//!
+//! The two models these checks need (1 and 10 M_sun) are solved at most once per process and
+//! shared; a model that fails to converge fails every check that uses it, with its message.
+
+use super::{Check, Tolerance};
+use crate::error::{Error, Result};
+use crate::output::zams::ZamsSummary;
+use crate::physics::{Composition, PhysicsOptions};
+use crate::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
+use crate::structure::{solve, ZamsSettings};
+use std::sync::OnceLock;
+
+const GROUP: &str = "zams";
+
+/// The masses the checks use, M_sun; `MODELS[i]` caches the model of `MASSES_MSUN[i]`.
+const MASSES_MSUN: [f64; 2] = [1.0, 10.0];
+static MODELS: [OnceLock<Option<ZamsSummary>>; 2] = [OnceLock::new(), OnceLock::new()];
+
+/// Hydrogen and metal mass fractions of every model here: Z = 0.02 of the Tout et al. (1996)
+/// fit, whose underlying X = 0.76 - 3Z is 0.70 (reference-values.md §6, memory).
+const X: f64 = 0.70;
+const Z: f64 = 0.02;
+
+const ZAMS_SUN_L: &str = "ZAMS Sun L about 0.70 of today's (review of solar evolution; confirmed)";
+const ZAMS_SUN_INTERIOR: &str =
+    "ZAMS Sun R about 0.87-0.89, T_c about 13.5 MK, rho_c about 75-90 (memory)";
+const TOUT: &str =
+    "Tout, Pols, Eggleton & Han 1996, MNRAS 281, 257, Z = 0.02 fit (coefficients: memory)";
+
+/// The checks of this group.
+pub fn checks() -> Vec<Check> {
+    vec![
+        // Bands as in the ZAMS tests: wide enough for the spread of published ZAMS models.
+        Check::new(
+            "zams.sun.luminosity",
+            GROUP,
+            "1 M_sun ZAMS luminosity, L_sun",
+            ZAMS_SUN_L,
+            0.70,
+            Tolerance::Range(0.6, 0.8),
+            || quantity(0, "luminosity_lsun", |s| s.luminosity_lsun),
+        ),
+        Check::new(
+            "zams.sun.radius",
+            GROUP,
+            "1 M_sun ZAMS radius, R_sun",
+            ZAMS_SUN_INTERIOR,
+            0.88,
+            Tolerance::Range(0.85, 0.93),
+            || quantity(0, "radius_rsun", |s| s.radius_rsun),
+        ),
+        Check::new(
+            "zams.sun.central-temperature",
+            GROUP,
+            "1 M_sun ZAMS central temperature, K",
+            ZAMS_SUN_INTERIOR,
+            13.5e6,
+            Tolerance::Range(13.0e6, 14.0e6),
+            || quantity(0, "central_temperature_k", |s| s.central_temperature_k),
+        ),
+        Check::new(
+            "zams.sun.central-density",
+            GROUP,
+            "1 M_sun ZAMS central density, g/cm^3",
+            ZAMS_SUN_INTERIOR,
+            82.5,
+            Tolerance::Range(70.0, 95.0),
+            || quantity(0, "central_density_g_cm3", |s| s.central_density_g_cm3),
+        ),
+        // The requirement every converged model of the ZAMS solver meets.
+        Check::new(
+            "zams.sun.virial-residual",
+            GROUP,
+            "1 M_sun: |integral 3P/rho dm / integral Gm/r dm - 1| (virial theorem)",
+            "fact of the trade (virial theorem of hydrostatic equilibrium)",
+            0.0,
+            Tolerance::Absolute(1e-4),
+            || quantity(0, "virial_residual", |s| s.virial_residual),
+        ),
+        Check::new(
+            "zams.sun.luminosity-residual",
+            GROUP,
+            "1 M_sun: |integral eps dm / L - 1| (energy conservation)",
+            "fact of the trade (thermal equilibrium of a ZAMS star)",
+            0.0,
+            Tolerance::Absolute(1e-6),
+            || quantity(0, "luminosity_residual", |s| s.luminosity_residual),
+        ),
+        // About 4-5 near 1 M_sun and about 3 near 10 M_sun: the 1-10 average lies between.
+        Check::new(
+            "zams.mass-luminosity-slope",
+            GROUP,
+            "dlog L / dlog M between 1 and 10 M_sun",
+            "fact of the trade",
+            3.75,
+            Tolerance::Range(3.0, 4.5),
+            mass_luminosity_slope,
+        ),
+        // The fit is good to a few per cent of the models it fits; the bounds are those of the
+        // ZAMS tests over 0.5-50 M_sun. The refined opacity's guillotine factor was calibrated
+        // on this comparison, so it checks consistency rather than independent agreement.
+        Check::new(
+            "zams.tout1996.luminosity.1msun",
+            GROUP,
+            "log10(L / L_fit) at 1 M_sun (opacity calibrated on this fit)",
+            TOUT,
+            0.0,
+            Tolerance::Absolute(0.15),
+            || tout_dlog_l(0),
+        ),
+        Check::new(
+            "zams.tout1996.radius.1msun",
+            GROUP,
+            "log10(R / R_fit) at 1 M_sun (opacity calibrated on this fit)",
+            TOUT,
+            0.0,
+            Tolerance::Absolute(0.085),
+            || tout_dlog_r(0),
+        ),
+        Check::new(
+            "zams.tout1996.luminosity.10msun",
+            GROUP,
+            "log10(L / L_fit) at 10 M_sun (opacity calibrated on this fit)",
+            TOUT,
+            0.0,
+            Tolerance::Absolute(0.15),
+            || tout_dlog_l(1),
+        ),
+        Check::new(
+            "zams.tout1996.radius.10msun",
+            GROUP,
+            "log10(R / R_fit) at 10 M_sun (opacity calibrated on this fit)",
+            TOUT,
+            0.0,
+            Tolerance::Absolute(0.085),
+            || tout_dlog_r(1),
+        ),
+    ]
+}
+
+fn solve_mass(mass_msun: f64) -> Result<ZamsSummary> {
+    let physics = PhysicsOptions::default().build()?;
+    let settings =
+        ZamsSettings::new(mass_msun, Composition::new(X, Z)?, physics)?.with_profile(false);
+    Ok(solve(&settings)?.summary)
+}
+
+/// The summary of model `i`, solved on first use. A model that failed is solved again only to
+/// recover its error (the solve is deterministic, so it fails the same way).
+fn model(i: usize) -> Result<ZamsSummary> {
+    let mass = MASSES_MSUN[i];
+    match MODELS[i].get_or_init(|| solve_mass(mass).ok()) {
+        Some(s) => Ok(s.clone()),
+        None => solve_mass(mass),
+    }
+}
+
+/// One summary field of model `i`; a converged model has every field, so a missing one means
+/// the model did not converge.
+fn quantity(i: usize, name: &str, field: fn(&ZamsSummary) -> Option<f64>) -> Result<f64> {
+    let s = model(i)?;
+    field(&s).ok_or_else(|| Error::NoConvergence {
+        iterations: s.iterations,
+        residual: s.fit_mismatch,
+        reason: format!("{name} missing from the {} M_sun model", s.mass_msun),
+    })
+}
+
+fn mass_luminosity_slope() -> Result<f64> {
+    let l1 = quantity(0, "luminosity_lsun", |s| s.luminosity_lsun)?;
+    let l10 = quantity(1, "luminosity_lsun", |s| s.luminosity_lsun)?;
+    Ok((l10 / l1).log10() / (MASSES_MSUN[1] / MASSES_MSUN[0]).log10())
+}
+
+fn tout_dlog_l(i: usize) -> Result<f64> {
+    let l = quantity(i, "luminosity_lsun", |s| s.luminosity_lsun)?;
+    Ok((l / tout1996_luminosity_lsun(MASSES_MSUN[i])).log10())
+}
+
+fn tout_dlog_r(i: usize) -> Result<f64> {
+    let r = quantity(i, "radius_rsun", |s| s.radius_rsun)?;
+    Ok((r / tout1996_radius_rsun(MASSES_MSUN[i])).log10())
+}

@@ -100,19 +100,25 @@ pub fn run(args: CompareArgs) -> Result<()> {
     Ok(())
 }
 
-/// A number in scientific notation right-aligned in `width`, or `-`.
-fn sci(v: Option<f64>, width: usize, prec: usize) -> String {
-    v.map_or_else(
-        || format!("{:>width$}", "-"),
-        |x| format!("{x:>width$.prec$e}"),
-    )
+/// A number with six significant figures right-aligned in `width`, or `-`.
+fn sci(v: Option<f64>, width: usize) -> String {
+    let text = v.map_or_else(|| "-".to_string(), super::zams::num);
+    format!("{text:>width$}")
 }
 
-/// A signed fixed-point number right-aligned in `width`, or `-`.
+/// A signed fixed-point number right-aligned in `width`, or `-`; a value that rounds to zero
+/// prints as +0 (no "-0.0000").
 fn signed(v: Option<f64>, width: usize, prec: usize) -> String {
     v.map_or_else(
         || format!("{:>width$}", "-"),
-        |x| format!("{x:>+width$.prec$}"),
+        |x| {
+            let shown = if x.abs() < 0.5 * 10f64.powi(-(prec as i32)) {
+                0.0
+            } else {
+                x
+            };
+            format!("{shown:>+width$.prec$}")
+        },
     )
 }
 
@@ -144,11 +150,11 @@ fn row(r: &CompareRecord) -> String {
     }
     let mut line = format!(
         "{name} {} {} {:>7} {} {} {:>6} | {} {} {} {} {}\n",
-        sci(r.luminosity_lsun, 10, 4),
-        sci(r.radius_rsun, 10, 4),
+        sci(r.luminosity_lsun, 10),
+        sci(r.radius_rsun, 10),
         r.teff_k.map_or("-".to_string(), |v| format!("{v:.0}")),
-        sci(r.central_temperature_k, 10, 4),
-        sci(r.central_density_g_cm3, 10, 4),
+        sci(r.central_temperature_k, 10),
+        sci(r.central_density_g_cm3, 10),
         r.convective_core_mass_fraction
             .map_or("-".to_string(), |v| format!("{v:.3}")),
         signed(r.dlog_luminosity_dex, 8, 4),

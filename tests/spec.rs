@@ -175,11 +175,11 @@ fn clear_errors() {
     });
     assert_eq!(n, "--opacity");
     let (n, _, a) = invalid(&PhysicsOptions {
-        rates: Some("power-law:eps0=1,nu=4".into()),
+        rates: Some("power-law:eps0=1,gamma=4".into()),
         ..opts()
     });
     assert_eq!(n, "--rates");
-    assert!(a.contains("eps0, t0 and nu"));
+    assert!(a.contains("eps0") && a.contains("t0") && a.contains("nu"));
     let (n, _, a) = invalid(&PhysicsOptions {
         rates: Some("cf88".into()),
         ..opts()
@@ -227,4 +227,21 @@ fn clear_errors() {
         Err(Error::BadFile { path, .. }) => assert!(path.contains("file.csv")),
         other => panic!("{other:?}"),
     }
+}
+
+/// Unset power-law parameters take their documented defaults: t0 = 1.5e7 K, nu = 4, and eps0
+/// the analytic pp rate per unit rho X^2 at t0 (2.38e6 T6^(-2/3) exp(-33.80 T6^(-1/3)),
+/// Kippenhahn & Weigert 1990 §18.5, memory): at T = t0 the two laws agree exactly.
+#[test]
+fn power_law_defaults_match_the_analytic_pp_rate_at_t0() {
+    use starpoise::physics::Composition;
+    let set = PhysicsOptions { physics: Some("analytic".into()), rates: Some("power-law:nu=4".into()), ..Default::default() }
+        .build()
+        .unwrap();
+    let comp = Composition::new(0.7, 0.02).unwrap();
+    let power = set.rates.rate(80.0, 1.5e7, &comp).unwrap();
+    let analytic = PhysicsOptions { physics: Some("analytic".into()), ..Default::default() }.build().unwrap();
+    let pp = analytic.rates.rate(80.0, 1.5e7, &comp).unwrap();
+    assert!((power.eps_pp_erg_g_s / pp.eps_pp_erg_g_s - 1.0).abs() < 1e-12);
+    assert_eq!(power.nu_pp, 4.0);
 }

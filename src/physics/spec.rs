@@ -13,7 +13,7 @@
 
 use super::convection::{Adiabatic, Convection, MixingLength};
 use super::eos::{DegenerateGas, EquationOfState, IdealGas, RefinedEos, SahaGas};
-use super::nuclear::{AnalyticRates, EnergyGeneration, PowerLawRates, SFactorRates};
+use super::nuclear::{power_law, AnalyticRates, EnergyGeneration, PowerLawRates, SFactorRates};
 use super::opacity::{
     AnalyticOpacity, Conductive, ElectronScattering, HMinus, Kramers, Opacity, RefinedOpacity,
     TableOpacity,
@@ -190,13 +190,13 @@ pub fn rates_by_name(spec: &str) -> Result<Arc<dyn EnergyGeneration>> {
             Arc::new(SFactorRates::default())
         }
         "power-law" => {
-            let allowed =
-                "power-law needs all of eps0, t0 and nu, e.g. power-law:eps0=0.1,t0=1.5e7,nu=4";
+            let allowed = "power-law takes eps0 (default 0.437, the analytic pp rate at t0), t0 (default 1.5e7 K) and nu (default 4), e.g. power-law:nu=4 or power-law:eps0=0.1,t0=1.5e7,nu=4";
             let [e, t, n] = parse_params(flag, spec, params, ["eps0", "t0", "nu"], allowed)?;
-            match (e, t, n) {
-                (Some(e), Some(t), Some(n)) => Arc::new(PowerLawRates::new(e, t, n)?),
-                _ => return Err(Error::invalid(flag, spec, allowed)),
-            }
+            Arc::new(PowerLawRates::new(
+                e.unwrap_or_else(power_law::default_eps0),
+                t.unwrap_or(power_law::DEFAULT_T0_K),
+                n.unwrap_or(power_law::DEFAULT_NU),
+            )?)
         }
         _ => return Err(Error::invalid(flag, spec, RATES_NAMES)),
     })

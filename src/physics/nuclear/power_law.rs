@@ -15,6 +15,19 @@ pub struct PowerLawRates {
     nu: f64,
 }
 
+/// Default reference temperature T0 of `power-law`, K.
+pub const DEFAULT_T0_K: f64 = 1.5e7;
+/// Default exponent nu of `power-law` (the pp chain near 1.5e7 K; textbook value).
+pub const DEFAULT_NU: f64 = 4.0;
+
+/// Default eps0 of `power-law`: the `analytic` pp rate per unit rho X^2 at T0 = 1.5e7 K,
+/// 2.38e6 T6^(-2/3) exp(-33.80 T6^(-1/3)) = 0.437 erg cm^3 g^-2 s^-1 (Kippenhahn & Weigert 1990,
+/// §18.5), so that `power-law` with its defaults matches the analytic pp chain at 15 MK.
+pub fn default_eps0() -> f64 {
+    let t6 = DEFAULT_T0_K * 1e-6;
+    2.38e6 * t6.powf(-2.0 / 3.0) * (-33.80 * t6.powf(-1.0 / 3.0)).exp()
+}
+
 impl PowerLawRates {
     /// The law with coefficient `eps0` (erg cm^3 g^-2 s^-1, > 0), reference temperature `t0_k`
     /// (K, > 0) and exponent `nu` (finite).

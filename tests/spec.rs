@@ -235,12 +235,21 @@ fn clear_errors() {
 #[test]
 fn power_law_defaults_match_the_analytic_pp_rate_at_t0() {
     use starpoise::physics::Composition;
-    let set = PhysicsOptions { physics: Some("analytic".into()), rates: Some("power-law:nu=4".into()), ..Default::default() }
-        .build()
-        .unwrap();
+    let set = PhysicsOptions {
+        physics: Some("analytic".into()),
+        rates: Some("power-law:nu=4".into()),
+        ..Default::default()
+    }
+    .build()
+    .unwrap();
     let comp = Composition::new(0.7, 0.02).unwrap();
     let power = set.rates.rate(80.0, 1.5e7, &comp).unwrap();
-    let analytic = PhysicsOptions { physics: Some("analytic".into()), ..Default::default() }.build().unwrap();
+    let analytic = PhysicsOptions {
+        physics: Some("analytic".into()),
+        ..Default::default()
+    }
+    .build()
+    .unwrap();
     let pp = analytic.rates.rate(80.0, 1.5e7, &comp).unwrap();
     assert!((power.eps_pp_erg_g_s / pp.eps_pp_erg_g_s - 1.0).abs() < 1e-12);
     assert_eq!(power.nu_pp, 4.0);

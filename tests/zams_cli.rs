@@ -179,6 +179,39 @@ fn bad_input_exits_2_names_the_value_and_writes_nothing() {
         assert!(!profile.exists(), "{all:?} wrote a file");
     }
     assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 1, "stray files");
+    // An output path that is a directory is bad input too, for every command that writes.
+    let d = dir.to_str().unwrap();
+    for args in [
+        vec![
+            "zams",
+            "--mass",
+            "1",
+            "--physics",
+            "analytic",
+            "--profile",
+            d,
+        ],
+        vec!["zams", "--mass", "1", "--physics", "analytic", "--plot", d],
+        vec![
+            "sequence",
+            "--masses",
+            "1,2",
+            "--physics",
+            "analytic",
+            "--out",
+            d,
+        ],
+        vec!["polytrope", "--index", "3", "--profile", d],
+        vec!["merge", "x.csv", "--out", d],
+    ] {
+        let out = starpoise(&args);
+        assert_eq!(out.status.code(), Some(2), "{args:?}: {}", stderr(&out));
+        assert!(
+            stderr(&out).contains("directory"),
+            "{args:?}: {}",
+            stderr(&out)
+        );
+    }
     let _ = std::fs::remove_dir_all(&dir);
 }
 

@@ -105,6 +105,9 @@ impl TryFrom<PolytropeArgs> for PolytropeRequest {
 /// Run `starpoise polytrope`: validate, solve, write the profile if asked, print the summary.
 pub fn run(args: PolytropeArgs) -> Result<()> {
     let request = PolytropeRequest::try_from(args)?;
+    if let Some(path) = &request.profile {
+        starpoise::output::check_output_path("--profile", path)?;
+    }
     let solution = solve_lane_emden(request.index, &request.settings)?;
     let scaled = match &request.star {
         Some(star) => Some(scale_to_star(&solution, star, request.radiation)?),

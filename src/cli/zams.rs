@@ -240,21 +240,10 @@ pub fn run(args: ZamsArgs) -> Result<()> {
     }
 }
 
-/// Refuse an output path whose directory does not exist before spending time on the model.
+/// Refuse, before any time is spent, an output path that cannot be a new file: see
+/// [`starpoise::output::check_output_path`].
 pub fn check_writable(flag: &str, path: &Path) -> Result<()> {
-    let dir = path
-        .parent()
-        .filter(|d| !d.as_os_str().is_empty())
-        .unwrap_or(Path::new("."));
-    if dir.is_dir() {
-        Ok(())
-    } else {
-        Err(Error::invalid(
-            flag,
-            path.display(),
-            "the directory of the output file must exist",
-        ))
-    }
+    starpoise::output::check_output_path(flag, path)
 }
 
 fn to_json<T: serde::Serialize>(v: &T) -> Result<String> {

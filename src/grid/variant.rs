@@ -111,9 +111,18 @@ mod tests {
         assert_eq!(v.overrides.rates.as_deref(), Some("power-law:nu=4"));
         assert_eq!(v.overrides.alpha, Some(1.5));
         // The examples this module prints must also build.
-        for spec in ["hot=opacity-factor:2", "soft=rates:power-law:nu=4;alpha:1.5"] {
+        for spec in [
+            "hot=opacity-factor:2",
+            "soft=rates:power-law:nu=4;alpha:1.5",
+        ] {
             let v = Variant::parse(spec).unwrap();
-            assert!(PhysicsOptions::default().overridden_by(&v.overrides).build().is_ok(), "{spec}");
+            assert!(
+                PhysicsOptions::default()
+                    .overridden_by(&v.overrides)
+                    .build()
+                    .is_ok(),
+                "{spec}"
+            );
         }
         assert_eq!(
             Variant::parse("base=").unwrap().overrides,

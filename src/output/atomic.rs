@@ -18,6 +18,31 @@ fn temporary_path(path: &Path) -> PathBuf {
     }
 }
 
+/// Check, before any work is done, that `path` (given with flag `flag`) can take a new file: its
+/// directory exists and it is not itself a directory. Errors are [`Error::InvalidInput`] (exit
+/// code 2) naming the flag and the path.
+pub fn check_output_path(flag: &str, path: &Path) -> Result<()> {
+    let dir = path
+        .parent()
+        .filter(|d| !d.as_os_str().is_empty())
+        .unwrap_or(Path::new("."));
+    if path.is_dir() {
+        Err(Error::invalid(
+            flag,
+            path.display(),
+            "this is a directory; give a file name, e.g. out/star.csv",
+        ))
+    } else if !dir.is_dir() {
+        Err(Error::invalid(
+            flag,
+            path.display(),
+            "the directory of the output file must exist",
+        ))
+    } else {
+        Ok(())
+    }
+}
+
 /// Write `path` through `fill`, atomically: the content goes to a temporary file in the same
 /// directory, which is renamed onto `path` only after `fill` succeeded and the data was flushed.
 /// On any error the temporary file is removed and `path` is untouched.
@@ -53,6 +78,14 @@ where
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn output_paths_are_checked_first() {
+        let dir = std::env::temp_dir();
+        assert!(check_output_path("--out", &dir).is_err());
+        assert!(check_output_path("--out", &dir.join("no-such-dir-starpoise/x.csv")).is_err());
+        assert!(check_output_path("--out", &dir.join("fine.csv")).is_ok());
+    }
 
     #[test]
     fn failure_leaves_no_file() {

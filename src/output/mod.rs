@@ -8,5 +8,5 @@ pub mod probe;
 pub mod sequence;
 pub mod zams;
 
-pub use atomic::write_atomically;
+pub use atomic::{check_output_path, write_atomically};
 pub use probe::ProbeReport;

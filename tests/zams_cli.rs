@@ -151,6 +151,7 @@ fn bad_input_exits_2_names_the_value_and_writes_nothing() {
         (vec!["--mass", "0.01"], "--mass"),
         (vec!["--mass", "200"], "--mass"),
         (vec!["--mass", "1", "--x", "0.9", "--z", "0.2"], "X + Z"),
+        (vec!["--mass", "1", "--x", "0", "--z", "0.02"], "--x"),
         (
             vec!["--mass", "1", "--opacity", "no-such-law"],
             "no-such-law",

@@ -95,7 +95,13 @@ impl PolytropeSummary {
         let mut rows: Vec<(&str, String, &str)> = vec![
             ("polytropic index n", number(self.index), ""),
             ("first zero xi_1", optional(self.xi1), ""),
-            ("dtheta/dxi at xi_1", optional(self.dtheta_dxi_at_xi1), ""),
+            (
+                "dtheta/dxi at xi_1",
+                // For n = 5, theta' -> 0 as xi -> infinity.
+                self.dtheta_dxi_at_xi1
+                    .map_or_else(|| "0 (limit)".to_string(), number),
+                "",
+            ),
             ("omega_n = -xi_1^2 theta'(xi_1)", number(self.omega_n), ""),
             ("rho_c / rho_mean", optional(self.rho_c_over_rho_mean), ""),
             ("W_n (P_c = W_n G M^2/R^4)", optional(self.w_n), ""),

@@ -45,7 +45,8 @@ pub struct ZamsSummary {
     /// radiative).
     pub convective_core_mass_fraction: Option<f64>,
     /// Mass fraction of the outermost convective region if it reaches within 1e-3 M of the
-    /// surface (0 otherwise). A fully convective star has 1 for both core and envelope.
+    /// surface (0 otherwise). A star convective from the centre to there is fully convective
+    /// and has 1 for both core and envelope (they are the same region: do not add them).
     pub convective_envelope_mass_fraction: Option<f64>,
     /// Fraction of L supplied by the CNO cycle.
     pub cno_luminosity_fraction: Option<f64>,

@@ -63,6 +63,13 @@ impl ZamsSettings {
                 ),
             ));
         }
+        if composition.x() <= 0.0 {
+            return Err(Error::invalid(
+                "--x",
+                composition.x(),
+                "a zero-age main-sequence star burns hydrogen: X must be above 0, e.g. --x 0.70",
+            ));
+        }
         if physics.preset == "analytic" && mass_msun < ANALYTIC_MIN_MASS_MSUN {
             return Err(Error::invalid(
                 "--mass",

@@ -83,45 +83,24 @@ fn row(ctx: &LegContext, leg: Leg, x: f64, y: &State, radius_cm: f64) -> Result<
     })
 }
 
-/// Mass fractions of the convective core and of the convective envelope from the profile;
-/// boundaries are placed by linear interpolation of nabla_rad - nabla_ad between rows.
+/// Mass fractions of the convective core and of the convective envelope from the profile (used
+/// when a leg met more boundaries than it locates); boundaries are placed by linear
+/// interpolation of nabla_rad - nabla_ad between rows.
 pub fn convective_extent(profile: &[ProfileRow]) -> (f64, f64) {
     let excess = |r: &ProfileRow| r.nabla_rad - r.nabla_ad;
-    let boundary = |a: &ProfileRow, b: &ProfileRow| {
-        let (ea, eb) = (excess(a), excess(b));
-        let f = if ea != eb { ea / (ea - eb) } else { 0.5 };
-        a.m_over_m + f.clamp(0.0, 1.0) * (b.m_over_m - a.m_over_m)
-    };
     let Some(first) = profile.first() else {
         return (0.0, 0.0);
     };
-    let core = if first.convective == 1 {
-        profile
-            .windows(2)
-            .find(|w| w[0].convective == 1 && w[1].convective == 0)
-            .map(|w| boundary(&w[0], &w[1]))
-            .unwrap_or(1.0)
-    } else {
-        0.0
-    };
-    // The outermost convective zone, if its top lies within 1e-3 M of the surface.
-    let mut envelope = 0.0;
-    if let Some(top) = profile.iter().rposition(|r| r.convective == 1) {
-        let top_m = if top + 1 < profile.len() {
-            boundary(&profile[top], &profile[top + 1])
-        } else {
-            1.0
-        };
-        if top_m > 1.0 - 1e-3 {
-            let base = profile[..=top]
-                .windows(2)
-                .rposition(|w| w[0].convective == 0 && w[1].convective == 1)
-                .map(|i| boundary(&profile[i], &profile[i + 1]))
-                .unwrap_or(0.0);
-            envelope = 1.0 - base;
-        }
-    }
-    (core, envelope)
+    let boundaries: Vec<f64> = profile
+        .windows(2)
+        .filter(|w| w[0].convective != w[1].convective)
+        .map(|w| {
+            let (ea, eb) = (excess(&w[0]), excess(&w[1]));
+            let f = if ea != eb { ea / (ea - eb) } else { 0.5 };
+            w[0].m_over_m + f.clamp(0.0, 1.0) * (w[1].m_over_m - w[0].m_over_m)
+        })
+        .collect();
+    extent_from_zones(&convective_zones(first.convective == 1, &boundaries))
 }
 
 /// Convective zones as (lower, upper) mass fractions, from the located boundaries and whether
@@ -145,13 +124,26 @@ pub fn convective_zones(centre_convective: bool, boundaries: &[f64]) -> Vec<(f64
     zones
 }
 
+/// How close (in mass fraction) to the surface a convective zone must reach to count as reaching
+/// it: the photosphere and a thin layer below it can be radiative above a convective envelope.
+pub const SURFACE_ZONE_MARGIN: f64 = 1e-3;
+
 /// Mass fractions of the convective core (the zone containing the centre, else 0) and of the
-/// convective envelope (the outermost zone if its top lies within 1e-3 M of the surface, else 0).
+/// convective envelope (the outermost zone if its top lies within [`SURFACE_ZONE_MARGIN`] of the
+/// surface, else 0). A star convective from the centre to within that margin of the surface is
+/// fully convective and reports 1 for both.
 pub fn extent_from_zones(zones: &[(f64, f64)]) -> (f64, f64) {
-    let core = zones.first().filter(|z| z.0 == 0.0).map_or(0.0, |z| z.1);
+    let reaches_surface = |z: &(f64, f64)| z.1 > 1.0 - SURFACE_ZONE_MARGIN;
+    let core = zones.first().filter(|z| z.0 == 0.0).map_or(0.0, |z| {
+        if reaches_surface(z) {
+            1.0
+        } else {
+            z.1
+        }
+    });
     let envelope = zones
         .last()
-        .filter(|z| z.1 > 1.0 - 1e-3)
+        .filter(|z| reaches_surface(z))
         .map_or(0.0, |z| 1.0 - z.0);
     (core, envelope)
 }
@@ -308,5 +300,35 @@ impl ZamsSummary {
             luminosity_residual: None,
             rhs_evaluations,
         }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn zones_and_extents() {
+        // Radiative centre, one boundary at 0.98: a convective envelope of 0.02 M.
+        let z = convective_zones(false, &[0.98]);
+        assert_eq!(z, vec![(0.98, 1.0)]);
+        assert_eq!(extent_from_zones(&z), (0.0, 0.020000000000000018));
+        // Convective core to 0.2, radiative above, thin surface zone from 0.9999999.
+        let z = convective_zones(true, &[0.9999999, 0.2]);
+        assert_eq!(z, vec![(0.0, 0.2), (0.9999999, 1.0)]);
+        let (core, env) = extent_from_zones(&z);
+        assert_eq!(core, 0.2);
+        assert!((env - 1e-7).abs() < 1e-15);
+        // Convective from the centre to 1 - 1e-9 (a radiative photosphere on top): fully
+        // convective.
+        assert_eq!(
+            extent_from_zones(&convective_zones(true, &[1.0 - 1e-9])),
+            (1.0, 1.0)
+        );
+        // A zone ending well below the surface is not an envelope.
+        assert_eq!(
+            extent_from_zones(&convective_zones(false, &[0.5, 0.9])),
+            (0.0, 0.0)
+        );
     }
 }

@@ -33,14 +33,16 @@ const TOUT: &str =
 /// The checks of this group.
 pub fn checks() -> Vec<Check> {
     vec![
-        // Bands as in the ZAMS tests: wide enough for the spread of published ZAMS models.
+        // Bands around the quoted figures: L 0.70 +- 0.05; R the quoted 0.87-0.89 widened by 2
+        // per cent each way (values from memory; this program's 0.895 lies just above the
+        // quoted range); T_c 13.5 +- 0.5 MK; rho_c exactly the quoted 75-90.
         Check::new(
             "zams.sun.luminosity",
             GROUP,
             "1 M_sun ZAMS luminosity, L_sun",
             ZAMS_SUN_L,
             0.70,
-            Tolerance::Range(0.6, 0.8),
+            Tolerance::Range(0.65, 0.75),
             || quantity(0, "luminosity_lsun", |s| s.luminosity_lsun),
         ),
         Check::new(
@@ -49,7 +51,7 @@ pub fn checks() -> Vec<Check> {
             "1 M_sun ZAMS radius, R_sun",
             ZAMS_SUN_INTERIOR,
             0.88,
-            Tolerance::Range(0.85, 0.93),
+            Tolerance::Range(0.853, 0.908),
             || quantity(0, "radius_rsun", |s| s.radius_rsun),
         ),
         Check::new(
@@ -67,7 +69,7 @@ pub fn checks() -> Vec<Check> {
             "1 M_sun ZAMS central density, g/cm^3",
             ZAMS_SUN_INTERIOR,
             82.5,
-            Tolerance::Range(70.0, 95.0),
+            Tolerance::Range(75.0, 90.0),
             || quantity(0, "central_density_g_cm3", |s| s.central_density_g_cm3),
         ),
         // The requirement every converged model of the ZAMS solver meets.

@@ -64,8 +64,8 @@ fn new_laws_reduce_to_the_ideal_gas() {
 }
 
 /// Complete degeneracy: P_e -> K (rho/mu_e)^(5/3) with K = (3/pi)^(2/3) h^2 / (20 m_e m_u^(5/3))
-/// = 1.0036e13 cgs (e.g. Kippenhahn & Weigert 1990, eq. 15.23; value from the issue, confirmed
-/// here from CODATA constants). Metal-free mixture so that mu_e = 2/(1+X) holds exactly.
+/// = 1.0036e13 cgs (e.g. Kippenhahn & Weigert 1990, eq. 15.23, memory; the value computed here
+/// from CODATA 2018 constants). Metal-free mixture so that mu_e = 2/(1+X) holds exactly.
 #[test]
 fn complete_degeneracy_limit() {
     let k = (3.0 / std::f64::consts::PI).powf(2.0 / 3.0) * H_ERG_S * H_ERG_S

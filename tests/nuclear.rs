@@ -47,7 +47,7 @@ fn kw_cno(rho: f64, t: f64, x: f64, x_cno: f64) -> f64 {
     8.67e27 * rho * x * x_cno * t6.powf(-2.0 / 3.0) * (-152.28 * t6.powf(-1.0 / 3.0)).exp()
 }
 
-/// Solar centre (rho 150, T 1.57e7, X 0.34; Bahcall, Serenelli & Basu 2005): eps of order
+/// Solar centre (rho 150, T 1.57e7, X 0.34; Bahcall, Serenelli & Basu 2005, ApJ 621, L85, via secondary sources): eps of order
 /// 10–20 erg/g/s with pp dominating (reference-values.md §4: eps_pp about 11 with psi = f = 1;
 /// ppII, screening and the S-factor slope raise it by tens of per cent). Against the textbook
 /// formulas: pp within a factor 2; CNO between 0.35 and 1 of the textbook value (modern
@@ -220,7 +220,8 @@ fn cno_rate_matches_the_modern_closed_form() {
         let n_p = rho * x / (1.007_825 * M_U_G);
         let n_14 = rho * x14 / (14.003_074 * M_U_G);
         let eps = n_p * n_14 * sv * Q_CN_MEV * MEV_ERG / rho;
-        let closed = 4.34e27 * rho * x * x14 * t6.powf(-2.0 / 3.0) * (-152.28 * t6.powf(-1.0 / 3.0)).exp();
+        let closed =
+            4.34e27 * rho * x * x14 * t6.powf(-2.0 / 3.0) * (-152.28 * t6.powf(-1.0 / 3.0)).exp();
         let ratio = eps / closed;
         assert!((ratio - 1.0).abs() < 0.03, "T6 = {t6}: ratio {ratio}");
     }

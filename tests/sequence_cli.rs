@@ -167,3 +167,92 @@ fn bad_grids_exit_2() {
     }
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+/// The CSV header is the documented column list; an empty shard still writes it; the fits in the
+/// JSON table are the least-squares slopes of its own rows.
+#[test]
+fn header_empty_shards_and_fits() {
+    let dir = scratch_dir("header");
+    let full = dir.join("t.csv");
+    assert!(run_to(&full, &[]).status.success());
+    let header: Vec<String> = csv::Reader::from_path(&full)
+        .unwrap()
+        .headers()
+        .unwrap()
+        .iter()
+        .map(str::to_string)
+        .collect();
+    assert_eq!(
+        header,
+        starpoise::output::sequence::SEQUENCE_COLUMNS.to_vec()
+    );
+    // One mass in 50 shards: most shards are empty.
+    let empty = (1..=50)
+        .map(|k| {
+            let p = dir.join(format!("e{k}.csv"));
+            let shard = format!("{k}/50");
+            let out = starpoise(&[
+                "sequence",
+                "--quiet",
+                "--masses",
+                "1",
+                "--physics",
+                "analytic",
+                "--shard",
+                &shard,
+                "--out",
+                p.to_str().unwrap(),
+            ]);
+            assert!(out.status.success(), "{}", stderr(&out));
+            p
+        })
+        .find(|p| std::fs::read_to_string(p).unwrap().lines().count() == 1)
+        .expect("an empty shard");
+    let text = std::fs::read_to_string(&empty).unwrap();
+    assert_eq!(
+        text.trim_end(),
+        starpoise::output::sequence::SEQUENCE_COLUMNS.join(",")
+    );
+    // Fits: L ~ M^a over 2-20 M_sun from the rows themselves.
+    let json_path = dir.join("t.json");
+    let out = starpoise(&[
+        "sequence",
+        "--quiet",
+        "--masses",
+        "2,4,8,16",
+        "--physics",
+        "analytic",
+        "--out",
+        json_path.to_str().unwrap(),
+    ]);
+    assert!(out.status.success());
+    let t: serde_json::Value =
+        serde_json::from_str(&std::fs::read_to_string(&json_path).unwrap()).unwrap();
+    let pts: Vec<(f64, f64)> = t["rows"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|r| {
+            (
+                r["mass_msun"].as_f64().unwrap().log10(),
+                r["luminosity_lsun"].as_f64().unwrap().log10(),
+            )
+        })
+        .collect();
+    let n = pts.len() as f64;
+    let (mx, my) = (
+        pts.iter().map(|p| p.0).sum::<f64>() / n,
+        pts.iter().map(|p| p.1).sum::<f64>() / n,
+    );
+    let slope = pts.iter().map(|p| (p.0 - mx) * (p.1 - my)).sum::<f64>()
+        / pts.iter().map(|p| (p.0 - mx).powi(2)).sum::<f64>();
+    let fit = t["fits"][0]["ranges"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|r| r["from_msun"] == 2.0)
+        .unwrap();
+    assert_eq!(fit["models"], 4);
+    assert!((fit["luminosity_exponent"].as_f64().unwrap() - slope).abs() < 1e-12);
+    let _ = std::fs::remove_dir_all(&dir);
+}

@@ -186,6 +186,42 @@ impl From<PowerLawFit> for PowerLawFitRow {
     }
 }
 
+/// The CSV columns of a sequence table, in order (the fields of [`SequenceRow`]).
+pub const SEQUENCE_COLUMNS: [&str; 32] = [
+    "grid_fingerprint",
+    "grid_index",
+    "grid_size",
+    "variant",
+    "status",
+    "mass_msun",
+    "x",
+    "z",
+    "physics_preset",
+    "eos",
+    "opacity",
+    "rates",
+    "convection",
+    "atmosphere",
+    "iterations",
+    "radius_rsun",
+    "luminosity_lsun",
+    "teff_k",
+    "log_g_cgs",
+    "central_temperature_k",
+    "central_density_g_cm3",
+    "central_pressure_dyn_cm2",
+    "central_degeneracy",
+    "convective_core_mass_fraction",
+    "convective_envelope_mass_fraction",
+    "cno_luminosity_fraction",
+    "eddington_ratio",
+    "kelvin_helmholtz_time_yr",
+    "dynamical_time_s",
+    "nuclear_time_yr",
+    "virial_residual",
+    "luminosity_residual",
+];
+
 /// Whether a path names a JSON file (by extension), else CSV.
 pub fn is_json(path: &Path) -> bool {
     path.extension()
@@ -200,6 +236,11 @@ pub fn write_table(path: &Path, table: &SequenceTable) -> Result<()> {
             w.write_all(b"\n")
         } else {
             let mut csv = csv::Writer::from_writer(w);
+            if table.rows.is_empty() {
+                // An empty shard still names its columns.
+                csv.write_record(SEQUENCE_COLUMNS)
+                    .map_err(std::io::Error::other)?;
+            }
             for r in &table.rows {
                 csv.serialize(r).map_err(std::io::Error::other)?;
             }

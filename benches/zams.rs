@@ -22,15 +22,13 @@ fn settings(mass: f64, preset: &str) -> ZamsSettings {
 fn zams_models(c: &mut Criterion) {
     let mut group = c.benchmark_group("zams");
     group.sample_size(20);
-    for (name, mass, preset) in [
-        ("analytic_10msun", 10.0, "analytic"),
-        ("refined_1msun", 1.0, "refined"),
-    ] {
-        let s = settings(mass, preset).with_profile(false);
-        if solve(&s).is_err() {
-            eprintln!("skipping {name}: the model does not converge with this build");
-            continue;
-        }
+    let cases = [
+        ("analytic_10msun", 10.0, "analytic", false),
+        ("refined_1msun", 1.0, "refined", false),
+        ("refined_1msun_with_400_row_profile", 1.0, "refined", true),
+    ];
+    for (name, mass, preset, profile) in cases {
+        let s = settings(mass, preset).with_profile(profile);
         group.bench_function(name, |b| {
             b.iter(|| solve(black_box(&s)).expect("converges"))
         });

@@ -331,7 +331,7 @@ pub fn text_summary(s: &ZamsSummary) -> String {
     line(
         "central degeneracy psi",
         f(s.central_degeneracy),
-        "(mu_e / kT; < 0: non-degenerate)",
+        "(electron chemical potential / kT; < 0: not degenerate)",
     );
     line(
         "convective core",

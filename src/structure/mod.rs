@@ -271,7 +271,10 @@ pub fn solve_detailed(settings: &ZamsSettings) -> Result<ZamsOutcome> {
     // have taken it below the setting), so that its legs meet as well as the solution's did.
     let mut final_ctx = ctx;
     final_ctx.tolerance = problem.ctx.tolerance.min(settings.tolerance);
-    let model = model::build(settings, &final_ctx, &report, evaluations)?;
+    let legs = problem
+        .last_legs(&report.solution)
+        .filter(|l| l.tolerance == final_ctx.tolerance);
+    let model = model::build(settings, &final_ctx, &report, evaluations, legs)?;
     Ok(ZamsOutcome::Converged(Box::new(model)))
 }
 

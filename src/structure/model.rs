@@ -4,6 +4,7 @@ use super::equations::{
     local_physics, Point, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL, LN_P, LN_R, LN_T, LUM,
 };
 use super::legs::{integrate, integrate_through, step_points, Leg, LegContext, LegMonitor};
+use super::shooting::LegEnds;
 use super::{centre, surface, ZamsSettings};
 use crate::constants::{G_CGS, L_SUN_ERG_S, R_SUN_CM, YEAR_S};
 use crate::error::Result;
@@ -180,34 +181,51 @@ fn profile(
     Ok(rows)
 }
 
-/// Integrate the converged legs once more, assemble the summary and, if asked, the profile.
+/// Assemble the summary and, if asked, the profile of the converged unknowns.
 ///
-/// The summary's integrals and convective boundaries come from the same single integration of
-/// each leg that the iteration converged on; the profile re-integrates segment by segment onto
-/// its mesh.
+/// The summary's integrals and convective boundaries come from the converged legs themselves:
+/// `legs`, the iteration's last evaluation when it is at the solution, or else one fresh
+/// integration of each leg. The profile re-integrates segment by segment onto its mesh.
 pub fn build(
     settings: &ZamsSettings,
     ctx: &LegContext,
     report: &NewtonReport<4>,
     rhs_before: u64,
+    legs: Option<&LegEnds>,
 ) -> Result<ZamsModel> {
     let u = report.solution;
     let monitor = LegMonitor::default();
     let q = settings.fit_mass_fraction();
     let start = centre::start(ctx, u[0], u[1])?;
     let top = surface::start(ctx, u[2], u[3])?;
-    let out_end = integrate(ctx, Leg::Outward, start.x0, q.ln(), start.y0, &monitor)?;
-    let in_end = integrate(ctx, Leg::Inward, top.x0, (1.0 - q).ln(), top.y0, &monitor)?;
-    let boundaries = monitor.boundaries.borrow().clone();
-    let profile_rows = if settings.wants_profile() || monitor.boundary_limit_reached.get() {
+    let fresh;
+    let legs = match legs {
+        Some(l) => l,
+        None => {
+            let out = integrate(ctx, Leg::Outward, start.x0, q.ln(), start.y0, &monitor)?;
+            let inn = integrate(ctx, Leg::Inward, top.x0, (1.0 - q).ln(), top.y0, &monitor)?;
+            fresh = LegEnds {
+                u,
+                tolerance: ctx.tolerance,
+                out,
+                inn,
+                boundaries: monitor.boundaries.borrow().clone(),
+                boundary_limit_reached: monitor.boundary_limit_reached.get(),
+            };
+            &fresh
+        }
+    };
+    let (out_end, in_end) = (legs.out, legs.inn);
+    let boundaries = &legs.boundaries;
+    let profile_rows = if settings.wants_profile() || legs.boundary_limit_reached {
         profile(settings, ctx, &u, &monitor)?
     } else {
         Vec::new()
     };
-    let (core, envelope) = if monitor.boundary_limit_reached.get() {
+    let (core, envelope) = if legs.boundary_limit_reached {
         convective_extent(&profile_rows)
     } else {
-        extent_from_zones(&convective_zones(start.centre.convective(), &boundaries))
+        extent_from_zones(&convective_zones(start.centre.convective(), boundaries))
     };
     let profile = if settings.wants_profile() {
         profile_rows

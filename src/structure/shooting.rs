@@ -10,6 +10,24 @@ use crate::error::{Error, Result};
 use crate::numerics::newton::NewtonProblem;
 use nalgebra::{SMatrix, SVector};
 
+/// What one residual evaluation found: both legs' end states (with their running integrals) and
+/// the convective boundaries located on the way, at unknowns `u` and integrator `tolerance`.
+#[derive(Debug, Clone, PartialEq)]
+pub struct LegEnds {
+    /// The unknowns.
+    pub u: Unknowns,
+    /// The integrator tolerance used.
+    pub tolerance: f64,
+    /// Outward leg at the fitting mass.
+    pub out: State,
+    /// Inward leg at the fitting mass.
+    pub inn: State,
+    /// Mass fractions of the convective boundaries located on both legs.
+    pub boundaries: Vec<f64>,
+    /// Whether a leg met more boundaries than it locates.
+    pub boundary_limit_reached: bool,
+}
+
 /// The finest integrator tolerance `sharpen` goes to.
 const SHARPEST_TOLERANCE: f64 = 1e-13;
 
@@ -28,8 +46,8 @@ pub struct ShootingProblem<'a> {
     pub monitor: LegMonitor,
     /// Legs integrated (each outward or inward integration counts one).
     pub legs_integrated: u64,
-    /// The last residual evaluation: unknowns, tolerance, outward and inward end states.
-    last: Option<(Unknowns, f64, State, State)>,
+    /// The last residual evaluation.
+    last: Option<LegEnds>,
 }
 
 impl<'a> ShootingProblem<'a> {
@@ -130,11 +148,34 @@ impl<'a> ShootingProblem<'a> {
     }
 }
 
+impl ShootingProblem<'_> {
+    /// The legs of the last residual evaluation, if it was at `u` with the current tolerance:
+    /// at convergence, the converged model's legs.
+    pub fn last_legs(&self, u: &Unknowns) -> Option<&LegEnds> {
+        self.last
+            .as_ref()
+            .filter(|l| l.u == *u && l.tolerance == self.ctx.tolerance)
+    }
+}
+
 impl NewtonProblem<4> for ShootingProblem<'_> {
     fn residual(&mut self, u: &Unknowns) -> Result<SVector<f64, 4>, Error> {
+        // The same unknowns at the same tolerance give the same legs: reuse them.
+        if let Some(l) = self.last_legs(u) {
+            return Ok(self.mismatch(&l.out, &l.inn));
+        }
+        self.monitor.boundaries.borrow_mut().clear();
+        self.monitor.boundary_limit_reached.set(false);
         let out = self.outward(u[0], u[1])?;
         let inn = self.inward(u[2], u[3])?;
-        self.last = Some((*u, self.ctx.tolerance, out, inn));
+        self.last = Some(LegEnds {
+            u: *u,
+            tolerance: self.ctx.tolerance,
+            out,
+            inn,
+            boundaries: self.monitor.boundaries.borrow().clone(),
+            boundary_limit_reached: self.monitor.boundary_limit_reached.get(),
+        });
         Ok(self.mismatch(&out, &inn))
     }
 
@@ -146,9 +187,9 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
         _f: &SVector<f64, 4>,
     ) -> Result<SMatrix<f64, 4, 4>, Error> {
         let h = self.difference_step();
-        let (out0, in0) = match self.last {
-            Some((v, tol, o, i)) if v == *u && tol == self.ctx.tolerance => (o, i),
-            _ => {
+        let (out0, in0) = match self.last_legs(u) {
+            Some(l) => (l.out, l.inn),
+            None => {
                 let f = self.residual(u)?;
                 return self.jacobian(u, &f);
             }

@@ -35,28 +35,30 @@ pub struct PhysicsFlags {
     /// Physics preset: analytic or refined [default: refined].
     #[arg(long, value_name = "SET")]
     pub physics: Option<String>,
-    /// Equation of state law.
+    /// Equation of state: ideal, saha, degenerate, refined.
     #[arg(long, value_name = "LAW")]
     pub eos: Option<String>,
-    /// Opacity law (e.g. kramers, table:models/demo-opacity.csv).
+    /// Opacity: electron-scattering, kramers[:guillotine=T], h-minus, conductive, analytic,
+    /// refined[:guillotine=T0,exponent=Q], table:PATH, table-clamped:PATH.
     #[arg(long, value_name = "LAW")]
     pub opacity: Option<String>,
-    /// Energy generation law (e.g. analytic, sfactor, power-law:eps0=1,t0=1.5e7,nu=4).
+    /// Energy generation: analytic, sfactor, power-law[:eps0=E,t0=T,nu=N] (defaults 0.437,
+    /// 1.5e7 K, 4).
     #[arg(long, value_name = "LAW")]
     pub rates: Option<String>,
     /// Convection law: adiabatic or mlt.
     #[arg(long, value_name = "LAW")]
     pub convection: Option<String>,
-    /// Mixing-length parameter alpha (for mlt).
+    /// Mixing-length parameter alpha for mlt [default: 1.8].
     #[arg(long, value_name = "A")]
     pub alpha: Option<f64>,
-    /// Factor multiplying the opacity.
+    /// Factor multiplying the opacity [default: 1].
     #[arg(long, value_name = "F")]
     pub opacity_factor: Option<f64>,
-    /// Factor multiplying the nuclear energy generation rate.
+    /// Factor multiplying the nuclear energy generation rate [default: 1].
     #[arg(long, value_name = "F")]
     pub rates_factor: Option<f64>,
-    /// Outer boundary: photosphere or grey.
+    /// Outer boundary: photosphere or grey [default: the preset's].
     #[arg(long, value_name = "KIND")]
     pub atmosphere: Option<String>,
 }

@@ -24,7 +24,7 @@ pub struct ZamsArgs {
     /// Fitting mass as a fraction of M [default: 0.4].
     #[arg(long, value_name = "FRACTION")]
     fit_mass: Option<f64>,
-    /// Finest integrator tolerance [default: 1e-10].
+    /// Finest integrator tolerance [default: 1e-11].
     #[arg(long, value_name = "TOL")]
     tolerance: Option<f64>,
     /// Maximum Newton iterations [default: 60].

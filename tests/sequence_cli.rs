@@ -256,3 +256,35 @@ fn header_empty_shards_and_fits() {
     assert!((fit["luminosity_exponent"].as_f64().unwrap() - slope).abs() < 1e-12);
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+/// A run stopped part-way (here killed, which is harsher than Ctrl-C) leaves no output file and
+/// no temporary file: the table is written only after the last model, to a temporary name that
+/// is renamed into place.
+#[test]
+fn an_interrupted_run_leaves_no_file() {
+    let dir = scratch_dir("interrupted");
+    let out = dir.join("grid.csv");
+    let mut child = std::process::Command::new(env!("CARGO_BIN_EXE_starpoise"))
+        .args([
+            "sequence",
+            "--quiet",
+            "--masses",
+            "0.1:100:400",
+            "--out",
+            out.to_str().unwrap(),
+        ])
+        .spawn()
+        .unwrap();
+    std::thread::sleep(std::time::Duration::from_millis(300));
+    let finished_already = child.try_wait().unwrap().is_some();
+    child.kill().unwrap();
+    let _ = child.wait();
+    if !finished_already {
+        assert_eq!(
+            std::fs::read_dir(&dir).unwrap().count(),
+            0,
+            "files left behind"
+        );
+    }
+    let _ = std::fs::remove_dir_all(&dir);
+}

@@ -2,3 +2,4 @@
 
 pub mod newton;
 pub mod scalar;
+pub mod smooth;

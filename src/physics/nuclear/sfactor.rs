@@ -175,23 +175,18 @@ pub fn screening(z1: f64, z2: f64, rho: f64, t: f64, comp: &Composition) -> (f64
 pub const SCREENING_BLEND_START: f64 = 0.8;
 
 /// ln f and d ln f / d ln T joining weak screening w ~ T^(-3/2) and strong screening s ~ T^(-1):
-/// w where w < 0.8 s, s where w > 1.25 s, and between them the blend w (1 - h) + s h with
-/// h = 6 t^5 - 15 t^4 + 10 t^3 of t = ln(1.25 w/s) / ln(1.25^2) (twice continuously
-/// differentiable). A plain min() puts a kink in eps(T) at the crossing that the integrator's
-/// error estimate does not see, which left a tolerance-dependent error of ~1e-6 in L of
-/// 0.3 M_sun models. Capped at [`MAX_LN_SCREENING`].
+/// w where w < 0.8 s, s where w > 1.25 s, and between them the twice-differentiable blend
+/// w (1 - h) + s h of [`crate::numerics::smooth::switch_weight`]. A plain min() puts a kink in
+/// eps(T) at the crossing that the integrator's error estimate does not see, which left a
+/// tolerance-dependent error of ~1e-6 in L of 0.3 M_sun models. Capped at [`MAX_LN_SCREENING`].
 fn bridge(weak: f64, strong: f64) -> (f64, f64) {
     if !(weak > 0.0 && strong > 0.0) {
         return (0.0, 0.0);
     }
-    let lo = SCREENING_BLEND_START.ln();
-    let t = (((weak / strong).ln() - lo) / (-2.0 * lo)).clamp(0.0, 1.0);
-    let h = t * t * t * (10.0 + t * (6.0 * t - 15.0));
-    let dh_dt = 30.0 * t * t * (1.0 - t) * (1.0 - t);
-    // d t / d ln T = d ln(w/s) / d ln T / (-2 ln 0.8) with d ln(w/s) / d ln T = -1/2.
-    let dt = -0.5 / (-2.0 * lo);
+    let (h, dh) = crate::numerics::smooth::switch_weight(weak, strong, SCREENING_BLEND_START);
+    // d ln(w/s) / d ln T = -3/2 + 1 = -1/2.
     let ln_f = weak * (1.0 - h) + strong * h;
-    let dln_f = -1.5 * weak * (1.0 - h) - strong * h + (strong - weak) * dh_dt * dt;
+    let dln_f = -1.5 * weak * (1.0 - h) - strong * h + (strong - weak) * dh * -0.5;
     if ln_f > MAX_LN_SCREENING {
         (MAX_LN_SCREENING, 0.0)
     } else {

@@ -93,9 +93,15 @@ impl RefinedOpacity {
         self.density_exponent
     }
 
-    /// The guillotine factor t = max(1, t_0 rho^q) at density `rho`.
+    /// The guillotine factor t = max(1, t_0 rho^q) at density `rho`, with the corner rounded
+    /// (exact outside 0.8 < t_0 rho^q < 1.25; [`crate::numerics::smooth::smooth_max`]) so that
+    /// kappa stays twice differentiable in rho.
     pub fn guillotine_at(&self, rho: f64) -> f64 {
-        (self.guillotine * rho.powf(self.density_exponent)).max(1.0)
+        crate::numerics::smooth::smooth_max(
+            self.guillotine * rho.powf(self.density_exponent),
+            1.0,
+            0.8,
+        )
     }
 
     /// Radiative part kappa_rad alone (no conduction), without checks.

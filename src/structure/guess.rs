@@ -19,6 +19,7 @@
 use super::shooting::Unknowns;
 use crate::constants::{G_CGS, K_B_ERG_K, L_SUN_ERG_S, M_SUN_G, M_U_G, R_SUN_CM};
 use crate::physics::Composition;
+use crate::polytrope::eddington_beta;
 use crate::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
 
 /// A row of the reference table: (ln P_c with P_c in dyn cm^-2, ln T_c with T_c in K,
@@ -113,24 +114,14 @@ pub fn polytrope_guess(mass_msun: f64, comp: &Composition) -> Unknowns {
     let ln_theta_n = (1.0 - w) * 0.538_494f64.ln() + w * 0.854_316f64.ln();
     let ln_pc = ln_w_n + (G_CGS * m_g * m_g / r_cm.powi(4)).ln();
     // Radiation pressure lowers T_c at given P_c by the gas fraction beta of Eddington's
-    // standard model, (1 - beta) / beta^4 = 0.003 mu^4 M^2 (Kippenhahn & Weigert 1990, §19.10).
-    let beta = eddington_beta(0.003 * comp.mu().powi(4) * mass_msun * mass_msun);
+    // standard model (omega_3 = 2.018235951, Chandrasekhar 1939 Table 4). The mass and mu are
+    // positive here, so the solve cannot fail; beta = 1 would only weaken the guess.
+    let beta = eddington_beta(mass_msun, comp.mu(), OMEGA_3).unwrap_or(1.0);
     let ln_tc =
         ln_theta_n + beta.ln() + (comp.mu() * M_U_G * G_CGS * m_g / (K_B_ERG_K * r_cm)).ln();
     Unknowns::new(ln_pc, ln_tc, r_cm.ln(), l_erg_s.ln())
 }
 
-/// Root in (0, 1] of (1 - beta) / beta^4 = c, by bisection (the left side falls monotonically
-/// from infinity to 0 on (0, 1]).
-fn eddington_beta(c: f64) -> f64 {
-    let (mut lo, mut hi) = (1e-6f64, 1.0f64);
-    for _ in 0..60 {
-        let mid = 0.5 * (lo + hi);
-        if (1.0 - mid) / mid.powi(4) > c {
-            lo = mid;
-        } else {
-            hi = mid;
-        }
-    }
-    0.5 * (lo + hi)
-}
+/// omega_3 = -xi_1^2 theta'(xi_1) of the n = 3 polytrope (Chandrasekhar 1939, Table 4;
+/// reference-values.md §1).
+const OMEGA_3: f64 = 2.018_235_951;

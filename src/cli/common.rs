@@ -100,3 +100,18 @@ impl ModelArgs {
         ))
     }
 }
+
+/// A number with six significant figures: plain between 1e-3 and 1e6, else in exponent form.
+pub fn num(v: f64) -> String {
+    let a = v.abs();
+    if !v.is_finite() {
+        "n/a".to_string()
+    } else if a == 0.0 {
+        "0".to_string()
+    } else if (1e-3..1e6).contains(&a) {
+        let decimals = (5 - a.log10().floor() as i32).clamp(0, 8) as usize;
+        format!("{v:.decimals$}")
+    } else {
+        format!("{v:.5e}")
+    }
+}

@@ -55,7 +55,7 @@ pub fn run(args: CompareArgs) -> Result<()> {
     let variants = parse_variants(&args.variants)?;
     let composition = args.composition.composition(None, None)?;
     if let Some(path) = &args.out {
-        super::zams::check_writable("--out", path)?;
+        starpoise::output::check_output_path("--out", path)?;
     }
     let base = args.physics.options();
     let grid = Grid::product(
@@ -102,7 +102,7 @@ pub fn run(args: CompareArgs) -> Result<()> {
 
 /// A number with six significant figures right-aligned in `width`, or `-`.
 fn sci(v: Option<f64>, width: usize) -> String {
-    let text = v.map_or_else(|| "-".to_string(), super::zams::num);
+    let text = v.map_or_else(|| "-".to_string(), super::common::num);
     format!("{text:>width$}")
 }
 

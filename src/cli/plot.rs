@@ -25,7 +25,7 @@ pub fn run(args: PlotArgs) -> Result<()> {
         .out
         .clone()
         .unwrap_or_else(|| args.input.with_extension("svg"));
-    super::zams::check_writable("--out", &out)?;
+    starpoise::output::check_output_path("--out", &out)?;
     let title = args.title.clone().unwrap_or_else(|| {
         args.input
             .file_name()

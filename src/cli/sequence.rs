@@ -99,10 +99,10 @@ pub fn run(args: SequenceArgs) -> Result<()> {
     };
     let fit = args.fit_mass.unwrap_or(DEFAULT_FIT_MASS_FRACTION);
     if let Some(path) = &args.out {
-        super::zams::check_writable("--out", path)?;
+        starpoise::output::check_output_path("--out", path)?;
     }
     if let Some(path) = &args.plot {
-        super::zams::check_writable("--plot", path)?;
+        starpoise::output::check_output_path("--plot", path)?;
     }
     let grid = Grid::product(&args.physics.options(), variants, &masses, &xs, &zs, fit)?;
     let points = grid.select(shard);
@@ -181,7 +181,7 @@ fn fit_groups(rows: &[SequenceRow], ranges: &[(f64, f64)]) -> Vec<FitGroup> {
 }
 
 fn opt(v: Option<f64>, width: usize) -> String {
-    let text = v.map_or_else(|| "-".to_string(), super::zams::num);
+    let text = v.map_or_else(|| "-".to_string(), super::common::num);
     format!("{text:>width$}")
 }
 
@@ -241,7 +241,7 @@ pub struct MergeArgs {
 
 /// Run `starpoise merge`.
 pub fn run_merge(args: MergeArgs) -> Result<()> {
-    super::zams::check_writable("--out", &args.out)?;
+    starpoise::output::check_output_path("--out", &args.out)?;
     let files = args
         .files
         .iter()

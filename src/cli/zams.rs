@@ -1,11 +1,11 @@
 //! `starpoise zams`: one zero-age main-sequence model.
 
-use super::common::{CompositionFlags, PhysicsFlags};
+use super::common::{num, CompositionFlags, PhysicsFlags};
 use super::Format;
 use clap::{Args, ValueEnum};
 use serde::Deserialize;
-use starpoise::output::write_atomically;
 use starpoise::output::zams::{ProfileRow, ZamsSummary};
+use starpoise::output::{check_output_path, write_atomically};
 use starpoise::physics::PhysicsOptions;
 use starpoise::structure::{solve_detailed, ZamsOutcome, ZamsSettings};
 use starpoise::{Error, Result};
@@ -176,10 +176,10 @@ impl ZamsArgs {
 pub fn run(args: ZamsArgs) -> Result<()> {
     let settings = args.settings()?;
     if let Some(p) = &args.profile {
-        check_writable("--profile", p)?;
+        check_output_path("--profile", p)?;
     }
     if let Some(p) = &args.plot {
-        check_writable("--plot", p)?;
+        check_output_path("--plot", p)?;
     }
     match solve_detailed(&settings)? {
         ZamsOutcome::Converged(model) => {
@@ -240,12 +240,6 @@ pub fn run(args: ZamsArgs) -> Result<()> {
     }
 }
 
-/// Refuse, before any time is spent, an output path that cannot be a new file: see
-/// [`starpoise::output::check_output_path`].
-pub fn check_writable(flag: &str, path: &Path) -> Result<()> {
-    starpoise::output::check_output_path(flag, path)
-}
-
 fn to_json<T: serde::Serialize>(v: &T) -> Result<String> {
     serde_json::to_string_pretty(v).map_err(|e| Error::Io {
         path: "stdout".to_string(),
@@ -268,21 +262,6 @@ pub fn write_profile(path: &Path, rows: &[ProfileRow], format: ProfileFormat) ->
             w.write_all(b"\n")
         }
     })
-}
-
-/// A number with six significant figures: plain between 1e-3 and 1e6, else in exponent form.
-pub fn num(v: f64) -> String {
-    let a = v.abs();
-    if !v.is_finite() {
-        "n/a".to_string()
-    } else if a == 0.0 {
-        "0".to_string()
-    } else if (1e-3..1e6).contains(&a) {
-        let decimals = (5 - a.log10().floor() as i32).clamp(0, 8) as usize;
-        format!("{v:.decimals$}")
-    } else {
-        format!("{v:.5e}")
-    }
 }
 
 /// The summary as aligned text with units.

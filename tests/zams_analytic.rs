@@ -1,6 +1,8 @@
 //! ZAMS models with the `analytic` physics set: convergence over its mass range, internal
 //! consistency, and independence of the numerical knobs.
 
+mod common;
+use common::relative_change;
 use starpoise::output::zams::ZamsSummary;
 use starpoise::physics::{Composition, PhysicsOptions, PhysicsSet};
 use starpoise::structure::{solve, ZamsSettings};
@@ -51,19 +53,6 @@ fn converges_from_0_7_to_40_msun_and_passes_the_global_checks() {
             s.virial_residual
         );
     }
-}
-
-fn relative_change(a: &ZamsSummary, b: &ZamsSummary) -> f64 {
-    let pairs = [
-        (a.radius_rsun, b.radius_rsun),
-        (a.luminosity_lsun, b.luminosity_lsun),
-        (a.central_temperature_k, b.central_temperature_k),
-        (a.central_density_g_cm3, b.central_density_g_cm3),
-    ];
-    pairs
-        .iter()
-        .map(|(x, y)| (x.unwrap() / y.unwrap() - 1.0).abs())
-        .fold(0.0, f64::max)
 }
 
 /// Moving the fitting mass over 0.2–0.6 M, or tightening the integrator tolerance 100x, changes

@@ -2,6 +2,8 @@
 //! three compositions from the built-in guess alone, published ZAMS figures, and facts of the
 //! trade.
 
+mod common;
+use common::relative_change;
 use starpoise::output::zams::ZamsSummary;
 use starpoise::physics::{Composition, PhysicsOptions};
 use starpoise::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
@@ -118,18 +120,6 @@ fn cno_cycle_takes_over_in_intermediate_mass_stars() {
     assert!(solar(1.5).cno_luminosity_fraction.unwrap() < 0.25);
     assert!(solar(2.5).cno_luminosity_fraction.unwrap() > 0.5);
     assert!(solar(10.0).cno_luminosity_fraction.unwrap() > 0.95);
-}
-
-fn relative_change(a: &ZamsSummary, b: &ZamsSummary) -> f64 {
-    [
-        (a.radius_rsun, b.radius_rsun),
-        (a.luminosity_lsun, b.luminosity_lsun),
-        (a.central_temperature_k, b.central_temperature_k),
-        (a.central_density_g_cm3, b.central_density_g_cm3),
-    ]
-    .iter()
-    .map(|(x, y)| (x.unwrap() / y.unwrap() - 1.0).abs())
-    .fold(0.0, f64::max)
 }
 
 /// Refined models do not depend on the numerical knobs either: fitting mass 0.2 or 0.6 instead of

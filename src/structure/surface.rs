@@ -212,18 +212,13 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
     y0[LN_R] = ln_r;
     y0[LN_P] = pressure.ln();
     y0[LN_T] = teff.ln();
-    y0[LUM] = ctx_luminosity_component(ctx, ln_l);
+    y0[LUM] = super::legs::Leg::Inward
+        .luminosity_form(ctx)
+        .component(ln_l.exp());
     Ok(SurfaceStart {
         x0: d0.ln(),
         y0,
         teff_k: teff,
         pressure_dyn_cm2: pressure,
     })
-}
-
-/// The inward leg's luminosity component at the photosphere.
-fn ctx_luminosity_component(ctx: &LegContext, ln_l: f64) -> f64 {
-    super::legs::Leg::Inward
-        .luminosity_form(ctx)
-        .component(ln_l.exp())
 }

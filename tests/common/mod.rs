@@ -59,3 +59,19 @@ pub fn assert_digits(actual: f64, published: &str, what: &str) {
 pub fn relative(a: f64, b: f64) -> f64 {
     (a - b).abs() / b.abs()
 }
+
+/// The largest relative change of R, L, T_c and rho_c between two ZAMS summaries.
+pub fn relative_change(
+    a: &starpoise::output::zams::ZamsSummary,
+    b: &starpoise::output::zams::ZamsSummary,
+) -> f64 {
+    [
+        (a.radius_rsun, b.radius_rsun),
+        (a.luminosity_lsun, b.luminosity_lsun),
+        (a.central_temperature_k, b.central_temperature_k),
+        (a.central_density_g_cm3, b.central_density_g_cm3),
+    ]
+    .iter()
+    .map(|(x, y)| (x.unwrap() / y.unwrap() - 1.0).abs())
+    .fold(0.0, f64::max)
+}

@@ -197,11 +197,12 @@ pub fn build(
     let monitor = LegMonitor::default();
     let q = settings.fit_mass_fraction();
     let start = centre::start(ctx, u[0], u[1])?;
-    let top = surface::start(ctx, u[2], u[3])?;
     let fresh;
     let legs = match legs {
         Some(l) => l,
         None => {
+            // The atmosphere is integrated only here: the summary needs just T_eff from R and L.
+            let top = surface::start(ctx, u[2], u[3])?;
             let out = integrate(ctx, Leg::Outward, start.x0, q.ln(), start.y0, &monitor)?;
             let inn = integrate(ctx, Leg::Inward, top.x0, (1.0 - q).ln(), top.y0, &monitor)?;
             fresh = LegEnds {
@@ -254,7 +255,7 @@ pub fn build(
         fit_mass_fraction: q,
         radius_rsun: Some(radius_cm / R_SUN_CM),
         luminosity_lsun: Some(luminosity / L_SUN_ERG_S),
-        teff_k: Some(top.teff_k),
+        teff_k: Some(surface::effective_temperature_k(radius_cm, luminosity)),
         log_g_cgs: Some((G_CGS * m / (radius_cm * radius_cm)).log10()),
         central_temperature_k: Some(u[1].exp()),
         central_density_g_cm3: Some(centre_eos.density_g_cm3),

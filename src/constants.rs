@@ -53,7 +53,7 @@ pub const YEAR_S: f64 = 365.25 * 86_400.0;
 mod tests {
     use super::*;
 
-    /// a = 4 sigma / c = 7.565733e-15 (reference-values.md §2, computed from CODATA 2018).
+    /// a = 4 sigma / c = 7.565733e-15 (docs/references.md §2, computed from CODATA 2018).
     #[test]
     fn radiation_constant_matches_codata() {
         assert!((A_RAD_CGS / 7.565_733e-15 - 1.0).abs() < 1e-6);

@@ -2,7 +2,7 @@
 
 /// Zero-age main-sequence luminosity (L_sun) at Z = 0.02 for mass `m` (M_sun), from the analytic
 /// fit of Tout, Pols, Eggleton & Han (1996, MNRAS 281, 257), eq. 1 with the Z = 0.02
-/// coefficients (reference-values.md §6, from memory; they reproduce the quoted ZAMS Sun
+/// coefficients (docs/references.md §6, from memory; they reproduce the quoted ZAMS Sun
 /// L = 0.698). Valid 0.1–100 M_sun to a few per cent of the models it fits.
 pub fn tout1996_luminosity_lsun(m: f64) -> f64 {
     let (a, b, g, d, e, z, h) = (
@@ -19,7 +19,7 @@ pub fn tout1996_luminosity_lsun(m: f64) -> f64 {
 }
 
 /// Zero-age main-sequence radius (R_sun) at Z = 0.02 for mass `m` (M_sun), from Tout et al.
-/// (1996), eq. 2 with the Z = 0.02 coefficients (reference-values.md §6, from memory; they
+/// (1996), eq. 2 with the Z = 0.02 coefficients (docs/references.md §6, from memory; they
 /// reproduce the quoted ZAMS Sun R = 0.888).
 pub fn tout1996_radius_rsun(m: f64) -> f64 {
     let (th, io, ka, la, mu) = (
@@ -38,7 +38,7 @@ pub fn tout1996_radius_rsun(m: f64) -> f64 {
 mod tests {
     use super::*;
 
-    /// Sample values computed from the fit (reference-values.md §6, computed flag).
+    /// Sample values computed from the fit (docs/references.md §6, computed flag).
     #[test]
     fn reproduces_the_tabulated_samples() {
         let cases = [

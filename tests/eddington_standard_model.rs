@@ -1,7 +1,7 @@
 //! Eddington's standard model: (1 - beta)/beta^4 = C mu^4 (M/M_sun)^2 with
 //! C = pi G^3 a m_u^4 M_sun^2 / (48 omega_3^2 k^4).
 //!
-//! Reference values from reference-values.md §1 (computed with CODATA 2018 and m_u):
+//! Reference values from docs/references.md §1 (computed with CODATA 2018 and m_u):
 //! C = 2.990e-3; for mu = 0.61, 1 - beta = 0.00041 (1 M_sun), 0.0358 (10), 0.432 (100).
 //! Textbook form 1 - beta = 0.003 mu^4 beta^4 M^2 (Kippenhahn & Weigert 1990; memory).
 

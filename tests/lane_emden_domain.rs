@@ -3,7 +3,7 @@
 //!
 //! Facts used (common practice, no source): theta decreases monotonically from 1 to its first
 //! zero; xi_1 grows with n and diverges as n -> 5. omega_n falls with n over 0 <= n <= 4.5, as
-//! the table of reference-values.md §1 shows (computed); it is not checked beyond, because close
+//! the table of docs/references.md §1 shows (computed); it is not checked beyond, because close
 //! to n = 5 it dips below its n = 5 limit sqrt 3 (xi^2 |theta'| of the n = 5 solution approaches
 //! sqrt 3 from below; an independent fixed-step check gives omega = 1.73077 at n = 4.99).
 

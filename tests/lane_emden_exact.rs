@@ -1,5 +1,5 @@
 //! The three closed-form Lane–Emden solutions (Chandrasekhar 1939, *An Introduction to the Study
-//! of Stellar Structure*, ch. IV, §4; reference-values.md §1, confirmed):
+//! of Stellar Structure*, ch. IV, §4; docs/references.md §1, confirmed):
 //! n = 0: theta = 1 - xi^2/6, xi_1 = sqrt 6; n = 1: theta = sin xi / xi, xi_1 = pi;
 //! n = 5: theta = (1 + xi^2/3)^(-1/2), no zero, -xi^2 theta' -> sqrt 3.
 //!

@@ -1,6 +1,6 @@
 //! The centre series that starts the integration.
 //!
-//! theta = 1 - xi^2/6 + n xi^4/120 - n(8n - 5) xi^6/15120 + ... (reference-values.md §1,
+//! theta = 1 - xi^2/6 + n xi^4/120 - n(8n - 5) xi^6/15120 + ... (docs/references.md §1,
 //! computed; Chandrasekhar 1939, *An Introduction to the Study of Stellar Structure*, ch. IV).
 
 use approx::assert_relative_eq;

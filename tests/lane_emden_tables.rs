@@ -3,7 +3,7 @@
 //! Sources: Chandrasekhar 1939, *An Introduction to the Study of Stellar Structure*, Table 4
 //! (5–6 figures), and Horedt 1986, Astrophys. Space Sci. 126, 357, "Seven-digit tables of
 //! Lane–Emden functions" (7 figures). The ten-figure values below are typed from
-//! reference-values.md §1, whose digits are flagged "computed" (an independent high-precision
+//! docs/references.md §1, whose digits are flagged "computed" (an independent high-precision
 //! integration) and stated there to agree with both tables wherever they overlap; the table
 //! values themselves are flagged "memory" there. Each value is checked to every digit given:
 //! within half a unit in its last place.
@@ -17,7 +17,7 @@ fn solve(n: f64) -> LaneEmdenSolution {
     solve_lane_emden(n, &LaneEmdenSettings::default().with_points(2).unwrap()).unwrap()
 }
 
-/// (n, xi_1, omega_n, rho_c/rho_mean) from reference-values.md §1 (computed).
+/// (n, xi_1, omega_n, rho_c/rho_mean) from docs/references.md §1 (computed).
 const TABLE: [(f64, &str, &str, &str); 7] = [
     (1.5, "3.653753736", "2.714055120", "5.990704516"),
     (2.0, "4.352874596", "2.411046012", "11.40254286"),
@@ -42,7 +42,7 @@ fn xi1_omega_and_density_contrast_match_the_tables() {
     }
 }
 
-/// W_n and Theta_n (reference-values.md §1, computed; Chandrasekhar 1939 Table 4 gives
+/// W_n and Theta_n (docs/references.md §1, computed; Chandrasekhar 1939 Table 4 gives
 /// the same to its 5–6 figures, memory).
 #[test]
 fn central_pressure_and_temperature_constants() {
@@ -61,7 +61,7 @@ fn central_pressure_and_temperature_constants() {
     }
 }
 
-/// Horedt 1986 seven-digit values, as quoted in reference-values.md §1 (memory).
+/// Horedt 1986 seven-digit values, as quoted in docs/references.md §1 (memory).
 #[test]
 fn seven_digit_table_values() {
     assert_digits(

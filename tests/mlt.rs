@@ -19,7 +19,7 @@ fn point(rho: f64, t: f64, p: f64, g: f64, kappa: f64, nabla_rad: f64) -> Convec
 }
 
 /// The root solves the cubic of Böhm-Vitense (1958) in its original form
-/// (xi - U)^3 + (8U/9)(xi^2 - U^2 - W) = 0 (reference-values.md §5), checked by an independent
+/// (xi - U)^3 + (8U/9)(xi^2 - U^2 - W) = 0 (docs/references.md §5), checked by an independent
 /// bisection written here, over 16 decades of U. Tolerance 1e-9 relative on nabla - nabla_ad.
 #[test]
 fn root_solves_the_original_cubic() {
@@ -54,7 +54,7 @@ fn root_solves_the_original_cubic() {
 /// Deep interior (solar-centre-like rho 100, T 1e7, g 1e5, P 1e17): convection is efficient
 /// (U ~ 1e-9) and nabla -> nabla_ad to better than 1e-4 of W. Thin photosphere (rho 1e-9,
 /// T 6e3, g 3e4, P 1e5, kappa 1e-3): inefficient, nabla -> nabla_rad within 1 per cent of W.
-/// (The two limits of reference-values.md §5.)
+/// (The two limits of docs/references.md §5.)
 #[test]
 fn limits_of_efficient_and_inefficient_convection() {
     let law = MixingLength::default();

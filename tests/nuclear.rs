@@ -6,7 +6,7 @@ use starpoise::physics::nuclear::{AnalyticRates, EnergyGeneration, PowerLawRates
 use starpoise::physics::{Composition, Scaled};
 use std::sync::Arc;
 
-/// tau T6^(1/3) = 33.80 for p + p and 152.28 for p + 14N (reference-values.md §4, computed from
+/// tau T6^(1/3) = 33.80 for p + p and 152.28 for p + 14N (docs/references.md §4, computed from
 /// CODATA with nuclear masses; Clayton 1968 ch. 4 gives 42.487 (Z1^2 Z2^2 A)^(1/3), memory).
 /// Tolerance 0.01 and 0.02: the last printed digit.
 #[test]
@@ -24,7 +24,7 @@ fn gamow_constants() {
 }
 
 /// Weak screening ln f = 0.188 Z1 Z2 zeta rho^(1/2) T6^(-3/2) (Salpeter 1954; coefficient
-/// 0.18791 computed in reference-values.md §4), about 1.05 for p + p at the solar centre.
+/// 0.18791 computed in docs/references.md §4), about 1.05 for p + p at the solar centre.
 #[test]
 fn weak_screening_coefficient() {
     let c = Composition::new(0.34, 0.02).unwrap();
@@ -48,10 +48,10 @@ fn kw_cno(rho: f64, t: f64, x: f64, x_cno: f64) -> f64 {
 }
 
 /// Solar centre (rho 150, T 1.57e7, X 0.34; Bahcall, Serenelli & Basu 2005, ApJ 621, L85, via secondary sources): eps of order
-/// 10–20 erg/g/s with pp dominating (reference-values.md §4: eps_pp about 11 with psi = f = 1;
+/// 10–20 erg/g/s with pp dominating (docs/references.md §4: eps_pp about 11 with psi = f = 1;
 /// ppII, screening and the S-factor slope raise it by tens of per cent). Against the textbook
 /// formulas: pp within a factor 2; CNO between 0.35 and 1 of the textbook value (modern
-/// S-factors halve its prefactor, reference-values.md §4).
+/// S-factors halve its prefactor, docs/references.md §4).
 #[test]
 fn solar_centre() {
     let c = Composition::new(0.34, 0.02).unwrap();
@@ -67,7 +67,7 @@ fn solar_centre() {
 }
 
 /// CNO overtakes pp between 1.7e7 and 2.0e7 K for X = 0.7, Z = 0.02 (X_CNO = 0.014), rho = 100
-/// (textbook fact, common practice; reference-values.md §4 computes 17.6–18.4 MK).
+/// (textbook fact, common practice; docs/references.md §4 computes 17.6–18.4 MK).
 #[test]
 fn cno_overtakes_pp_between_17_and_20_mk() {
     let c = Composition::new(0.70, 0.02).unwrap();
@@ -206,7 +206,7 @@ fn law_matches_its_formulas() {
 
 /// The unscreened CN-cycle rate from the S-factor of 14N(p,gamma)15O (Adelberger et al. 2011)
 /// against its closed form with the modern prefactor, eps_CNO = 4.34e27 rho X X_14N
-/// T6^(-2/3) exp(-152.28 T6^(-1/3)) erg/g/s (reference-values.md §4, computed). The closed form
+/// T6^(-2/3) exp(-152.28 T6^(-1/3)) erg/g/s (docs/references.md §4, computed). The closed form
 /// leaves out the S_eff corrections (5/(12 tau) and the S' term, a few per cent here), so the
 /// two agree to 3 per cent across the CNO-burning range.
 #[test]

@@ -11,7 +11,7 @@ fn solar() -> Composition {
     Composition::new(0.70, 0.02).unwrap()
 }
 
-/// kappa_es = sigma_T / m_u (1 + X)/2 to 1e-4 (reference-values.md §3: 0.20031 (1+X), computed
+/// kappa_es = sigma_T / m_u (1 + X)/2 to 1e-4 (docs/references.md §3: 0.20031 (1+X), computed
 /// from CODATA 2018 sigma_T and m_u; confirmed constants).
 #[test]
 fn electron_scattering_is_thomson() {
@@ -24,7 +24,7 @@ fn electron_scattering_is_thomson() {
 }
 
 /// Kramers: ff 3.68e22 (1-Z)(1+X) rho T^-3.5 and bf 4.34e25 (Z/t)(1+X) rho T^-3.5
-/// (reference-values.md §3, confirmed), evaluated by hand at rho = 1, T = 1e6.
+/// (docs/references.md §3, confirmed), evaluated by hand at rho = 1, T = 1e6.
 #[test]
 fn kramers_by_hand() {
     let c = solar();
@@ -38,7 +38,7 @@ fn kramers_by_hand() {
     assert!(Kramers::new(f64::NAN).is_err());
 }
 
-/// H-minus 2.5e-31 (Z/0.02) rho^(1/2) T^9 (reference-values.md §3, memory) by hand, and its
+/// H-minus 2.5e-31 (Z/0.02) rho^(1/2) T^9 (docs/references.md §3, memory) by hand, and its
 /// domain 2e3..1e4 K, rho <= 1e-2.
 #[test]
 fn h_minus_by_hand_and_domain() {
@@ -49,7 +49,7 @@ fn h_minus_by_hand_and_domain() {
     assert!(HMinus.kappa(1.0, 5e3, &c).is_err());
 }
 
-/// Conduction is negligible at the solar centre (reference-values.md §3: negligible for ZAMS
+/// Conduction is negligible at the solar centre (docs/references.md §3: negligible for ZAMS
 /// stars above 0.1 M_sun): kappa_cd > 100 kappa_rad there. In degenerate matter it follows the
 /// Lorentz-gas closed form kappa_cd = 16 a c T^2 e^4 Lambda m_e^2 <Z^2> / (3 pi^3 k^2 rho n_e hbar^3)
 /// (derived here with v = v_F; proportional to T^2 / rho^2 at fixed Lambda), tested to 1 per cent at

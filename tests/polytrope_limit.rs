@@ -2,7 +2,7 @@
 //! by a polytropic relation P = K rho^(1 + 1/n).
 //!
 //! Published values: xi_1 and rho_c/rho_mean for n = 1.5, 2 and 4 (Chandrasekhar 1939, *An
-//! Introduction to the Study of Stellar Structure*, Table 4; digits from reference-values.md §1,
+//! Introduction to the Study of Stellar Structure*, Table 4; digits from docs/references.md §1,
 //! flagged "computed": an independent high-precision integration agreeing with Chandrasekhar and
 //! with Horedt 1986 where they overlap).
 //!

@@ -2,7 +2,7 @@
 //!
 //! Two checks. (1) The scaled central values follow the formulas of Chandrasekhar 1939
 //! (*An Introduction to the Study of Stellar Structure*, ch. IV) evaluated here with CODATA 2018
-//! and IAU 2015 B3 constants and the n = 3 constants of reference-values.md §1 (computed):
+//! and IAU 2015 B3 constants and the n = 3 constants of docs/references.md §1 (computed):
 //! rho_c = 54.18248111 * 3 M/(4 pi R^3), P_c = 11.05068 G M^2/R^4,
 //! T_c = 0.854316 mu m_u G M/(k R). Tolerance 1e-6 relative: the seven figures of W_3 and
 //! Theta_3. (2) The common textbook estimate rho_c ~ 76 g/cm^3, P_c ~ 1.25e17 dyn/cm^2,

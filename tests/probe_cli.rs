@@ -12,7 +12,7 @@ fn probe(args: &[&str]) -> std::process::Output {
 
 /// JSON output carries every documented key with its unit, and its numbers are the library's:
 /// at the solar centre P about 2.4e17 dyn/cm^2 (Bahcall, Serenelli & Basu 2005, ApJ 621, L85;
-/// secondary sources, via reference-values.md §6; the refined EOS agrees to 5 per cent), and the
+/// secondary sources, via docs/references.md §6; the refined EOS agrees to 5 per cent), and the
 /// JSON values equal a
 /// direct library evaluation.
 #[test]

@@ -34,12 +34,12 @@ fn timescales_gravity_and_eddington_ratio_scale_from_solar_values() {
         let t_dyn = 1593.0 * (r.powi(3) / mass).sqrt();
         assert!((s.dynamical_time_s.unwrap() / t_dyn - 1.0).abs() < 1e-3);
         // L_Edd = 4 pi G M c / (0.2 (1+X)) is 3.84e4 L_sun per M_sun for X = 0.7
-        // (reference-values.md §7, computed; 3.8414e4 to five figures; the program uses the
+        // (docs/references.md §7, computed; 3.8414e4 to five figures; the program uses the
         // Thomson value 0.20031 (1+X)).
         let eddington = l / (3.8414e4 * mass * 0.2 / 0.200_31);
         assert!((s.eddington_ratio.unwrap() / eddington - 1.0).abs() < 1e-3);
         // Main-sequence lifetime estimate 0.1 X M q / L with q = 26.731 MeV per 4 m(1H)
-        // (reference-values.md §4): 7.372 Gyr for X = 0.7 at L_sun (computed).
+        // (docs/references.md §4): 7.372 Gyr for X = 0.7 at L_sun (computed).
         let t_nuc = 7.372e9 * mass / l;
         assert!((s.nuclear_time_yr.unwrap() / t_nuc - 1.0).abs() < 1e-3);
     }

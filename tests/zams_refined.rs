@@ -70,7 +70,7 @@ fn zams_sun_lifetime_and_convection_zones() {
 }
 
 /// Against the ZAMS fits of Tout, Pols, Eggleton & Han (1996, MNRAS 281, 257; coefficients from
-/// memory, reference-values.md §6) at Z = 0.02 over 0.5–50 M_sun: within 0.15 dex in L and 0.085
+/// memory, docs/references.md §6) at Z = 0.02 over 0.5–50 M_sun: within 0.15 dex in L and 0.085
 /// dex in R. (The target for R is 0.08 dex; at 50 M_sun the models are 0.083 dex smaller
 /// than the fit — their envelopes lack the iron-group opacity bump — and the bound states that
 /// honestly.) The opacity's guillotine factor was calibrated on this comparison (see
@@ -86,7 +86,7 @@ fn follows_the_tout_1996_zams_from_0_5_to_50_msun() {
     }
 }
 
-/// Facts of the trade (common practice; reference-values.md §7): the mass–luminosity slope is
+/// Facts of the trade (common practice; docs/references.md §7): the mass–luminosity slope is
 /// between 3 and 4.5 for 1–10 M_sun; stars below about 0.35 M_sun are fully convective; a
 /// convective core appears around 1.1–1.3 M_sun; L/L_Edd rises steeply toward 100 M_sun.
 #[test]

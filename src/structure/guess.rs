@@ -123,5 +123,5 @@ pub fn polytrope_guess(mass_msun: f64, comp: &Composition) -> Unknowns {
 }
 
 /// omega_3 = -xi_1^2 theta'(xi_1) of the n = 3 polytrope (Chandrasekhar 1939, Table 4;
-/// reference-values.md §1).
+/// docs/references.md §1).
 const OMEGA_3: f64 = 2.018_235_951;

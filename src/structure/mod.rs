@@ -317,7 +317,7 @@ pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
 }
 
 /// Energy released per unit mass of hydrogen burnt to helium, Q / (4 m_H c^2) c^2 with
-/// Q = 26.731 MeV (reference-values.md §4) and m_H = 1.007825 u (atomic mass of 1H), erg g^-1.
+/// Q = 26.731 MeV (docs/references.md §4) and m_H = 1.007825 u (atomic mass of 1H), erg g^-1.
 pub fn hydrogen_burning_energy_erg_g() -> f64 {
     26.731 * MEV_ERG / (4.0 * 1.007_825 * M_U_G)
 }

@@ -4,7 +4,7 @@
 //! A [`Check`] pairs a published (or otherwise outside) value with a function that computes the
 //! same quantity through the library, and a [`Tolerance`] saying how close is close enough.
 //! [`checks`] lists them all, grouped by topic; [`run`] evaluates one. Sources carry the flags
-//! of `reference-values.md`: *confirmed* (read in the source), *computed* (reproduced from
+//! of `docs/references.md`: *confirmed* (read in the source), *computed* (reproduced from
 //! confirmed inputs) or *memory* (recalled, not re-read); "fact of the trade" marks common
 //! practice without a single source.
 //!

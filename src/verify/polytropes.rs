@@ -11,14 +11,14 @@ use std::f64::consts::PI;
 
 const GROUP: &str = "polytropes";
 
-/// Closed-form solutions n = 0, 1, 5 (Chandrasekhar 1939, ch. IV; reference-values.md §1).
+/// Closed-form solutions n = 0, 1, 5 (Chandrasekhar 1939, ch. IV; docs/references.md §1).
 const EXACT: &str = "closed-form solution, Chandrasekhar 1939, Introduction to the Study of Stellar Structure, ch. IV (confirmed)";
-/// The n = 1.5 ... 4 tables. Flags as in reference-values.md §1: the tables themselves from
+/// The n = 1.5 ... 4 tables. Flags as in docs/references.md §1: the tables themselves from
 /// memory, the ten-figure digits computed by an independent integration and stated to agree
 /// with both tables where they overlap.
 const TABLES: &str =
     "Chandrasekhar 1939 Table 4; Horedt 1986, Ap&SS 126, 357 (tables: memory; digits: computed)";
-/// Eddington's quartic with CODATA 2018 constants and m_u (reference-values.md §1, computed);
+/// Eddington's quartic with CODATA 2018 constants and m_u (docs/references.md §1, computed);
 /// the textbook 0.003 is Kippenhahn & Weigert 1990 (memory).
 const EDDINGTON: &str = "Eddington standard model, C with CODATA 2018 and m_u (computed); Kippenhahn & Weigert 1990 give 0.003 (memory)";
 
@@ -100,7 +100,7 @@ pub fn checks() -> Vec<Check> {
             n5_mass_constant,
         ),
     ];
-    // xi_1, omega_n and rho_c/rho_mean with the digits of reference-values.md §1, each checked
+    // xi_1, omega_n and rho_c/rho_mean with the digits of docs/references.md §1, each checked
     // to half a unit in its last given place (the second number of each pair).
     table_row!(
         list,

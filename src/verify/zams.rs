@@ -20,7 +20,7 @@ const MASSES_MSUN: [f64; 2] = [1.0, 10.0];
 static MODELS: [OnceLock<Option<ZamsSummary>>; 2] = [OnceLock::new(), OnceLock::new()];
 
 /// Hydrogen and metal mass fractions of every model here: Z = 0.02 of the Tout et al. (1996)
-/// fit, whose underlying X = 0.76 - 3Z is 0.70 (reference-values.md §6, memory).
+/// fit, whose underlying X = 0.76 - 3Z is 0.70 (docs/references.md §6, memory).
 const X: f64 = 0.70;
 const Z: f64 = 0.02;
 

@@ -5,7 +5,7 @@ use crate::constants::{A_RAD_CGS, C_CM_S};
 use crate::error::{Error, PhysicsError, Result};
 
 /// Default mixing-length parameter alpha = l / H_P (solar calibrations give 1.5–2.2 depending
-/// on the physics; reference-values.md §5).
+/// on the physics; docs/references.md §5).
 pub const DEFAULT_ALPHA: f64 = 1.8;
 
 /// Mixing-length convection (Böhm-Vitense 1958, Z. Astrophys. 46, 108, as written in

@@ -20,11 +20,11 @@ const A_HE4: f64 = 4.002_603_25;
 const A_N14: f64 = 14.003_074_00;
 
 /// Energy per 4He released to the star by the ppI chain, MeV (Q = 26.731 MeV minus neutrino
-/// losses; reference-values.md §4, computed).
+/// losses; docs/references.md §4, computed).
 pub const Q_PP1_MEV: f64 = 26.20;
-/// Energy per 4He of the ppII chain, MeV (reference-values.md §4, computed).
+/// Energy per 4He of the ppII chain, MeV (docs/references.md §4, computed).
 pub const Q_PP2_MEV: f64 = 25.65;
-/// Energy per 4He of the CN cycle, MeV (reference-values.md §4, computed).
+/// Energy per 4He of the CN cycle, MeV (docs/references.md §4, computed).
 pub const Q_CN_MEV: f64 = 25.03;
 
 /// One non-resonant charged-particle reaction.
@@ -110,7 +110,7 @@ impl Reaction {
     }
 
     /// tau T6^(1/3), where tau = 3 E_0 / kT is the exponent of the non-resonant rate
-    /// (Clayton 1968, ch. 4; 33.80 for p + p and 152.28 for p + 14N, reference-values.md §4).
+    /// (Clayton 1968, ch. 4; 33.80 for p + p and 152.28 for p + 14N, docs/references.md §4).
     pub fn tau_times_t6_cbrt(&self) -> f64 {
         let kt = K_B_ERG_K * 1e6;
         3.0 * (self.gamow_b() * kt / 2.0).powf(2.0 / 3.0) / kt

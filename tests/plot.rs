@@ -9,7 +9,7 @@ use starpoise::output::plot::{
     format_mass, hr_diagram, profile_plot, read_table, render_hr_diagram, render_profile, HrPoint,
     HrSeries, PlotInput, MAX_MASS_LABELS, NABLA_AXIS_CAP,
 };
-use starpoise::output::zams::ProfileRow;
+use starpoise::structure::ProfileRow;
 use starpoise::Error;
 use std::f64::consts::PI;
 use std::path::PathBuf;
@@ -232,7 +232,7 @@ fn hr_file_is_written_and_bad_input_leaves_none() {
         let path = dir.join(format!("{name}.svg"));
         let err = hr_diagram(&path, &series, "x").unwrap_err();
         assert!(matches!(err, Error::InvalidInput { .. }), "{name}: {err}");
-        assert_eq!(err.exit_code(), 2);
+        assert_eq!(err.exit_code(), starpoise::error::ExitCode::BadInput);
         assert!(!path.exists(), "{name}: file written");
     }
     let err = hr_diagram(
@@ -454,7 +454,7 @@ fn bad_tables_name_file_and_line() {
         assert!(reason.contains(wanted), "{name}: {reason}");
     }
     // A profile row that does not parse.
-    let mut text = starpoise::output::zams::PROFILE_COLUMNS.join(",");
+    let mut text = starpoise::structure::PROFILE_COLUMNS.join(",");
     text.push('\n');
     text.push_str(&["1"; 20].join(","));
     text.push('\n');

@@ -9,7 +9,7 @@ use super::style::{
 };
 use super::{drawing_error, write_svg};
 use crate::error::{Error, Result};
-use crate::output::zams::ProfileRow;
+use crate::structure::ProfileRow;
 use plotters::coord::types::RangedCoordf64;
 use plotters::coord::Shift;
 use plotters::prelude::*;

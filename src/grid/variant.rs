@@ -15,7 +15,8 @@ pub struct Variant {
     pub overrides: PhysicsOverrides,
 }
 
-const EXAMPLE: &str = "e.g. --variant base= --variant hot=opacity-factor:2 --variant soft='rates:power-law:nu=4;alpha:1.5'";
+const EXAMPLE: &str =
+    "e.g. base= (the base set), hot=opacity-factor:2, soft=rates:power-law:nu=4;alpha:1.5";
 
 impl Variant {
     /// The base set unchanged, named `base`.

@@ -179,7 +179,7 @@ pub fn checks() -> Vec<Check> {
 /// The first zero of the polytrope of index `TENTHS / 10`.
 fn zero<const TENTHS: u32>() -> Result<FirstZero> {
     let n = f64::from(TENTHS) / 10.0;
-    first_zero(n)?.ok_or_else(|| Error::invalid("--index", n, INDEX_ALLOWED))
+    first_zero(n)?.ok_or_else(|| Error::invalid("index", n, INDEX_ALLOWED))
 }
 
 fn xi1<const TENTHS: u32>() -> Result<f64> {

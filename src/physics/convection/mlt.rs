@@ -42,9 +42,9 @@ impl MixingLength {
     pub fn new(alpha: f64) -> Result<Self> {
         if !(alpha.is_finite() && (0.1..=10.0).contains(&alpha)) {
             return Err(Error::invalid(
-                "--alpha",
+                "alpha",
                 alpha,
-                "the mixing-length parameter must be between 0.1 and 10, e.g. --alpha 1.8",
+                "the mixing-length parameter must be between 0.1 and 10, e.g. 1.8",
             ));
         }
         Ok(Self { alpha })

@@ -62,17 +62,21 @@ fn ode_solvers_run<const N: usize, S: ode_solvers::System<f64, SVector<f64, N>>>
     (y, stats)
 }
 
+/// Our integrator at the same tolerances, with the PI weight `beta`.
+fn ours_solver<const N: usize>(beta: f64) -> Dop853<N> {
+    let settings = Dop853Settings {
+        beta,
+        ..Dop853Settings::with_tolerances(TOL, TOL).expect("valid")
+    };
+    Dop853::new(settings).expect("valid")
+}
+
 fn ours_arenstorf(beta: f64) -> Outcome<4> {
     let mut system = FnSystem(|_x: f64, y: &SVector<f64, 4>, dy: &mut SVector<f64, 4>| {
         arenstorf::rhs(y, dy);
         Ok::<(), Infallible>(())
     });
-    let settings = Dop853Settings {
-        beta,
-        ..Dop853Settings::with_tolerances(TOL, TOL).expect("valid")
-    };
-    Dop853::new(settings)
-        .expect("valid")
+    ours_solver(beta)
         .integrate(
             &mut system,
             0.0,
@@ -88,12 +92,7 @@ fn ours_lane_emden(beta: f64) -> Outcome<2> {
         lane_emden_n3::rhs(xi, y, dy);
         Ok::<(), Infallible>(())
     });
-    let settings = Dop853Settings {
-        beta,
-        ..Dop853Settings::with_tolerances(TOL, TOL).expect("valid")
-    };
-    Dop853::new(settings)
-        .expect("valid")
+    ours_solver(beta)
         .integrate(
             &mut system,
             lane_emden_n3::XI_START,

@@ -11,7 +11,7 @@ use nalgebra::SVector;
 use ode_problems::{arenstorf, lane_emden_n3};
 use starpoise::numerics::ode::{
     AcceptedStep, Control, Crossing, Dop853, Dop853Settings, FnSystem, Observer, OdeError,
-    OdeSystem, RhsFailure, Stop,
+    OdeSystem, Outcome, RhsFailure, Stop,
 };
 use std::convert::Infallible;
 use std::f64::consts::{FRAC_PI_2, PI};
@@ -44,6 +44,22 @@ fn oscillator() -> impl OdeSystem<2, Error = Infallible> {
         dy[1] = -y[0];
         Ok(())
     })
+}
+
+/// The oscillator from (1, 0) at x = 0 to `x_end`, watched by `observer`.
+fn oscillate<O: Observer<2, Infallible>>(
+    s: &mut Dop853<2>,
+    x_end: f64,
+    observer: &mut O,
+) -> Outcome<2> {
+    s.integrate(
+        &mut oscillator(),
+        0.0,
+        &V2::from([1.0, 0.0]),
+        x_end,
+        observer,
+    )
+    .unwrap()
 }
 
 /// An observer with no events or outputs that stops nothing.
@@ -112,15 +128,7 @@ fn harmonic_oscillator_keeps_phase() {
     let (rtol, atol) = (1e-12, 1e-12);
     let mut s = Dop853::new(settings(rtol, atol)).unwrap();
     let x_end = 20.0 * PI;
-    let out = s
-        .integrate(
-            &mut oscillator(),
-            0.0,
-            &V2::from([1.0, 0.0]),
-            x_end,
-            &mut Quiet,
-        )
-        .unwrap();
+    let out = oscillate(&mut s, x_end, &mut Quiet);
     let bound = accumulated_bound(out.stats.accepted_steps, rtol, atol, 1.0);
     assert!((out.y[0] - x_end.cos()).abs() < bound, "{:?}", out.y);
     assert!((out.y[1] + x_end.sin()).abs() < bound, "{:?}", out.y);
@@ -330,15 +338,7 @@ fn output_points_do_not_change_the_steps() {
             points,
             ..Recorder::default()
         };
-        let out = s
-            .integrate(
-                &mut oscillator(),
-                0.0,
-                &V2::from([1.0, 0.0]),
-                x_end,
-                &mut rec,
-            )
-            .unwrap();
+        let out = oscillate(&mut s, x_end, &mut rec);
         (out, rec)
     };
     let (plain, plain_rec) = run(vec![]);
@@ -379,8 +379,7 @@ fn dense_output_is_of_order_seven() {
             dense_each: true,
             ..Recorder::default()
         };
-        s.integrate(&mut oscillator(), 0.0, &V2::from([1.0, 0.0]), h, &mut rec)
-            .unwrap();
+        oscillate(&mut s, h, &mut rec);
         let (x, y) = rec.interior[0];
         (y[0] - x.cos()).abs().max((y[1] + x.sin()).abs())
     };
@@ -401,15 +400,7 @@ fn dense_output_error_is_of_the_step_error() {
         dense_each: true,
         ..Recorder::default()
     };
-    let out = s
-        .integrate(
-            &mut oscillator(),
-            0.0,
-            &V2::from([1.0, 0.0]),
-            30.0,
-            &mut rec,
-        )
-        .unwrap();
+    let out = oscillate(&mut s, 30.0, &mut rec);
     let bound = accumulated_bound(out.stats.accepted_steps, rtol, atol, 1.0);
     assert_eq!(rec.interior.len(), out.stats.accepted_steps);
     for (x, y) in &rec.interior {
@@ -486,15 +477,7 @@ fn events_follow_the_oscillator() {
         action: Control::Stop,
         seen: vec![],
     };
-    let out = s
-        .integrate(
-            &mut oscillator(),
-            0.0,
-            &V2::from([1.0, 0.0]),
-            10.0,
-            &mut obs,
-        )
-        .unwrap();
+    let out = oscillate(&mut s, 10.0, &mut obs);
     let bound = accumulated_bound(out.stats.accepted_steps, rtol, atol, 1.0);
     assert_eq!(out.stop, Stop::Event { index: 0 });
     assert!((out.x - FRAC_PI_2).abs() < bound, "{}", out.x - FRAC_PI_2);
@@ -508,15 +491,7 @@ fn events_follow_the_oscillator() {
         action: Control::Continue,
         seen: vec![],
     };
-    let out = s
-        .integrate(
-            &mut oscillator(),
-            0.0,
-            &V2::from([1.0, 0.0]),
-            20.0 * PI,
-            &mut obs,
-        )
-        .unwrap();
+    let out = oscillate(&mut s, 20.0 * PI, &mut obs);
     let bound = accumulated_bound(out.stats.accepted_steps, rtol, atol, 1.0);
     assert_eq!(out.stop, Stop::End);
     assert_eq!(obs.seen.len(), 10);

@@ -308,37 +308,17 @@ impl<const N: usize> Dop853<N> {
             }
             let x_new = if last { x_end } else { x + h };
 
-            // The trial step and its error.
-            let mut trial = self.try_step(system, x, &y, h, x_new);
-            let mut err = 0.0;
-            if trial.is_ok() && !fixed {
-                err = self.error_norm(&y, h);
-                if !err.is_finite() {
-                    trial = Err(Failure::NonFinite);
+            // The trial step, its error and (if it passes) the right-hand side at its end.
+            let err = match self.attempt(system, x, &y, h, x_new) {
+                Ok(err) => err,
+                Err(failure) => {
+                    h = self.after_failure(failure, x, h, &mut last_failure)?;
+                    reject = true;
+                    continue;
                 }
-            }
-            if let Err(failure) = trial {
-                h = self.after_failure(failure, x, h, &mut last_failure)?;
-                reject = true;
-                self.run.rejected_steps += 1;
-                continue;
-            }
+            };
             if err > 1.0 {
                 h /= (1.0 / s.min_factor).min(err.powf(expo) / s.safety);
-                reject = true;
-                self.run.rejected_steps += 1;
-                continue;
-            }
-
-            // The right-hand side at the new point (stage 12, the next step's stage 0).
-            self.run.rhs_evaluations += 1;
-            let fsal = match system.rhs(x_new, &self.y_new, &mut self.k[12]) {
-                Ok(()) if self.k[12].iter().all(|v| v.is_finite()) => Ok(()),
-                Ok(()) => Err(Failure::NonFinite),
-                Err(source) => Err(Failure::Rhs { x: x_new, source }),
-            };
-            if let Err(failure) = fsal {
-                h = self.after_failure(failure, x, h, &mut last_failure)?;
                 reject = true;
                 self.run.rejected_steps += 1;
                 continue;
@@ -361,7 +341,6 @@ impl<const N: usize> Dop853<N> {
                 if let Err(failure) = self.prepare_dense(system, x, &y, h) {
                     h = self.after_failure(failure, x, h, &mut last_failure)?;
                     reject = true;
-                    self.run.rejected_steps += 1;
                     continue;
                 }
             }
@@ -448,6 +427,37 @@ impl<const N: usize> Dop853<N> {
         y + acc * h
     }
 
+    /// One trial step: its stages and error (0 with fixed steps), and, if the error is at most
+    /// 1, the right-hand side at the new point (stage 12, the next step's stage 0).
+    fn attempt<S: OdeSystem<N>>(
+        &mut self,
+        system: &mut S,
+        x: f64,
+        y: &SVector<f64, N>,
+        h: f64,
+        x_new: f64,
+    ) -> Result<f64, Failure<S::Error>> {
+        self.try_step(system, x, y, h, x_new)?;
+        let err = if self.settings.fixed_step.is_some() {
+            0.0
+        } else {
+            self.error_norm(y, h)
+        };
+        if !err.is_finite() {
+            return Err(Failure::NonFinite);
+        }
+        if err <= 1.0 {
+            self.run.rhs_evaluations += 1;
+            system
+                .rhs(x_new, &self.y_new, &mut self.k[12])
+                .map_err(|source| Failure::Rhs { x: x_new, source })?;
+            if !self.k[12].iter().all(|v| v.is_finite()) {
+                return Err(Failure::NonFinite);
+            }
+        }
+        Ok(err)
+    }
+
     /// Stages 1-11 and the 8th-order solution y_new (stage 0 is f at the start).
     fn try_step<S: OdeSystem<N>>(
         &mut self,
@@ -531,10 +541,10 @@ impl<const N: usize> Dop853<N> {
         h.abs() * err5 / (n as f64 * deno).sqrt()
     }
 
-    /// What a failed trial does: with `RejectStep` (and adaptive steps) the next step size, else
-    /// the error.
+    /// What a failed trial does: with `RejectStep` (and adaptive steps) it counts as a rejected
+    /// step and the next step size is returned, else the error.
     fn after_failure<E>(
-        &self,
+        &mut self,
         failure: Failure<E>,
         x: f64,
         h: f64,
@@ -545,6 +555,7 @@ impl<const N: usize> Dop853<N> {
                 if let Failure::Rhs { x, source } = failure {
                     *last_failure = Some((x, source));
                 }
+                self.run.rejected_steps += 1;
                 Ok(h * shrink)
             }
             _ => Err(match failure {

@@ -1,5 +1,7 @@
 //! General numerical tools that know nothing about stars.
 
+pub mod cube_root;
 pub mod newton;
+pub mod ode;
 pub mod scalar;
 pub mod smooth;

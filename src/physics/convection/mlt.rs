@@ -3,6 +3,7 @@
 use super::{Convection, ConvectionPoint};
 use crate::constants::{A_RAD_CGS, C_CM_S};
 use crate::error::{Error, PhysicsError, Result};
+use crate::numerics::cube_root::cbrt;
 
 /// Default mixing-length parameter alpha = l / H_P (solar calibrations give 1.5–2.2 depending
 /// on the physics; docs/references.md §5).
@@ -70,7 +71,7 @@ pub fn mlt_root(u: f64, w: f64) -> f64 {
     let a = 8.0 * u / 9.0;
     let b = 16.0 * u * u / 9.0;
     let c = a * w;
-    let mut y = c.cbrt().min(w / (2.0 * u));
+    let mut y = cbrt(c).min(w / (2.0 * u));
     for _ in 0..200 {
         let f = ((y + a) * y + b) * y - c;
         let df = (3.0 * y + 2.0 * a) * y + b;

@@ -3,6 +3,8 @@
 
 mod common;
 mod compare;
+mod completions;
+mod figure;
 mod plot;
 mod polytrope;
 mod probe;
@@ -42,6 +44,8 @@ enum Command {
     Probe(probe::ProbeArgs),
     /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
     Verify(verify::VerifyArgs),
+    /// Write a shell completion script to standard output.
+    Completions(completions::CompletionsArgs),
 }
 
 /// Output format of a summary.
@@ -65,6 +69,7 @@ pub fn run(cli: Cli) -> Result<()> {
         Command::Plot(args) => plot::run(args),
         Command::Probe(args) => probe::run(args),
         Command::Verify(args) => verify::run(args),
+        Command::Completions(args) => completions::run(&args),
     }
 }
 

@@ -39,9 +39,13 @@ pub struct ZamsArgs {
     /// Format of the profile file.
     #[arg(long, value_enum, default_value_t = ProfileFormat::Csv)]
     profile_format: ProfileFormat,
-    /// Draw the profile (T, rho, P, L, m and the gradients against r/R) to this SVG file.
-    #[arg(long, value_name = "FILE.svg")]
+    /// Draw the profile (T, rho, P, L, m and the gradients against r/R, m/M or log P) to this
+    /// figure, SVG or PNG by its extension.
+    #[arg(long, value_name = "FILE.svg|FILE.png")]
     plot: Option<PathBuf>,
+    /// The x axis of the --plot figure [default: radius].
+    #[arg(long, value_enum, requires = "plot")]
+    abscissa: Option<super::figure::AbscissaArg>,
     /// Number of profile rows [default: 400].
     #[arg(long, value_name = "K")]
     points: Option<usize>,
@@ -179,7 +183,7 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         check_output_path("--profile", p)?;
     }
     if let Some(p) = &args.plot {
-        check_output_path("--plot", p)?;
+        starpoise::output::plot::check_figure_path("--plot", p)?;
     }
     match solve_detailed(&settings)? {
         ZamsOutcome::Converged(model) => {
@@ -193,7 +197,8 @@ pub fn run(args: ZamsArgs) -> Result<()> {
                     model.summary.x,
                     model.summary.z
                 );
-                starpoise::output::plot::profile_plot(path, &model.profile, &title)?;
+                let abscissa = args.abscissa.map(Into::into).unwrap_or_default();
+                starpoise::output::plot::profile_plot(path, &model.profile, &title, abscissa)?;
             }
             match args.format {
                 Format::Json => println!("{}", to_json(&model.summary)?),

@@ -1,16 +1,21 @@
 //! Hertzsprung–Russell diagram: log10 T_eff (increasing to the left) against log10 L/L_sun,
-//! one line with marked, mass-labelled points per series.
+//! one line with marked, mass-labelled points per series, and the Sun.
 
-use super::labels::{format_mass, select_mass_labels, MAX_MASS_LABELS};
+use super::canvas::{drawing_error, figure_format, render, write_figure, Figure, ImageFormat};
+use super::font::text_box_px;
+use super::geometry::PixelBox;
+use super::labels::{format_mass, roundness, select_mass_labels, MAX_MASS_LABELS};
+use super::placement::{LabelPlacer, Placement};
 use super::style::{
-    draw_legend, draw_line, draw_marker, legend_size, series_style, text_style, LegendEntry,
-    LegendKey, AXIS_LABEL_SIZE, FONT, GRID_GREY, NOTE_SIZE, TICK_SIZE, TITLE_SIZE,
+    draw_label, draw_legend, draw_line, draw_marker, draw_sun_symbol, legend_size, series_style,
+    LegendEntry, LegendKey, AXIS_LABEL_SIZE, FONT, GRID_GREY, MARKER_RADIUS, NOTE_SIZE, TICK_SIZE,
+    TITLE_SIZE,
 };
-use super::{drawing_error, write_svg};
+use crate::constants::TEFF_SUN_K;
 use crate::error::{Error, Result};
 use plotters::coord::types::RangedCoordf64;
+use plotters::coord::Shift;
 use plotters::prelude::*;
-use plotters::style::text_anchor::{HPos, VPos};
 use std::path::Path;
 
 /// Figure width, pixels.
@@ -36,19 +41,6 @@ pub struct HrSeries {
     pub label: String,
     /// The models; they are joined in order of increasing mass.
     pub points: Vec<HrPoint>,
-}
-
-/// A rendered HR diagram, with what was drawn where (for checks and for callers that place
-/// further marks).
-#[derive(Debug, Clone, PartialEq)]
-pub struct HrFigure {
-    /// The SVG document.
-    pub svg: String,
-    /// Pixel position (x right, y down, origin top left) of every point, per series, in the
-    /// order the points were given.
-    pub points_px: Vec<Vec<(i32, i32)>>,
-    /// The mass labels written beside the points, per series, in order of increasing mass.
-    pub mass_labels: Vec<Vec<String>>,
 }
 
 fn check_input(series: &[HrSeries]) -> Result<()> {
@@ -109,40 +101,88 @@ fn tick_decimals(lo: f64, hi: f64, count: usize) -> usize {
         .unwrap_or(4) as usize
 }
 
-/// Pixel box (x0, y0, x1, y1) of a mass label of `chars` characters whose anchor is `at`,
-/// left-bottom anchored if `left_bottom`, else right-top. Widths at 0.6 em per character, a
-/// generous sans-serif average (common practice, no source).
-fn label_box(at: (i32, i32), chars: usize, left_bottom: bool) -> (i32, i32, i32, i32) {
-    let em = NOTE_SIZE / 1.24;
-    let w = (chars as f64 * 0.6 * em).ceil() as i32;
-    let h = em.ceil() as i32;
-    if left_bottom {
-        (at.0, at.1 - h, at.0 + w, at.1)
-    } else {
-        (at.0 - w, at.1, at.0, at.1 + h)
+/// Where the Sun sits on the diagram: the IAU 2015 Resolution B3 nominal effective temperature
+/// (5772 K; Prša et al. 2016, AJ 152, 41) and 1 L_sun (docs/references.md §2).
+fn sun_position() -> (f64, f64) {
+    (-TEFF_SUN_K.log10(), 0.0)
+}
+
+/// Text of the Sun's label.
+pub const SUN_LABEL: &str = "Sun";
+
+/// One text label written inside the plotting area.
+#[derive(Debug, Clone, PartialEq)]
+pub struct PlacedLabel {
+    /// The text.
+    pub text: String,
+    /// The series whose point it names (`None` for the Sun's label).
+    pub series: Option<usize>,
+    /// Pixel centre of the point or symbol it names.
+    pub anchor_px: (i32, i32),
+    /// Where it went.
+    pub placement: Placement,
+}
+
+/// What was drawn where on an HR diagram, in pixels (x right, y down, origin top left).
+#[derive(Debug, Clone, PartialEq)]
+pub struct HrLayout {
+    /// Pixel position of every point, per series, in the order the points were given.
+    pub points_px: Vec<Vec<(i32, i32)>>,
+    /// The mass labels written beside the points, per series, in order of increasing mass.
+    pub mass_labels: Vec<Vec<String>>,
+    /// Every label in the plotting area (mass labels and the Sun's), in the order placed.
+    pub labels: Vec<PlacedLabel>,
+    /// The box of every marker drawn in the plotting area, the Sun's symbol included.
+    pub markers_px: Vec<PixelBox>,
+    /// Centre of the Sun's symbol.
+    pub sun_px: (i32, i32),
+    /// The legend box.
+    pub legend_px: PixelBox,
+    /// The plotting area (inside the axes).
+    pub plot_area_px: PixelBox,
+}
+
+/// A rendered HR diagram: the file's bytes and what was drawn where.
+#[derive(Debug, Clone, PartialEq)]
+pub struct HrFigure {
+    /// The image: SVG text or PNG data, as asked.
+    pub image: Vec<u8>,
+    /// What was drawn where.
+    pub layout: HrLayout,
+}
+
+/// Half-size in pixels of the box a series marker covers (the triangle is one pixel larger
+/// than the others, outlines add one more).
+const MARKER_HALF_PX: i32 = MARKER_RADIUS + 2;
+
+/// The diagram of `series` with `title`, ready to draw on any backend.
+struct HrDrawing<'a> {
+    series: &'a [HrSeries],
+    title: &'a str,
+}
+
+impl Figure for HrDrawing<'_> {
+    type Layout = HrLayout;
+
+    fn size_px(&self) -> (u32, u32) {
+        (HR_WIDTH_PX, HR_HEIGHT_PX)
+    }
+
+    fn draw<DB: DrawingBackend>(&self, root: &DrawingArea<DB, Shift>) -> Result<HrLayout> {
+        draw_hr(root, self.series, self.title)
     }
 }
 
-fn boxes_overlap(a: (i32, i32, i32, i32), b: (i32, i32, i32, i32)) -> bool {
-    let gap = 2;
-    a.0 < b.2 + gap && b.0 < a.2 + gap && a.1 < b.3 + gap && b.1 < a.3 + gap
-}
-
-/// Render the diagram to memory. The x axis carries u = -log10 T_eff so that T_eff increases to
+/// Draw the diagram on `root`. The x axis carries u = -log10 T_eff so that T_eff increases to
 /// the left; its tick labels print log10 T_eff.
-///
-/// Errors: [`Error::InvalidInput`] for no series, a series without points, or a point whose
-/// mass, T_eff or L is not finite and positive.
-pub fn render_hr_diagram(series: &[HrSeries], title: &str) -> Result<HrFigure> {
-    check_input(series)?;
-    let all = series.iter().flat_map(|s| s.points.iter());
-    let (mut t_lo, mut t_hi, mut l_lo, mut l_hi) = (
-        f64::INFINITY,
-        f64::NEG_INFINITY,
-        f64::INFINITY,
-        f64::NEG_INFINITY,
-    );
-    for p in all {
+fn draw_hr<DB: DrawingBackend>(
+    root: &DrawingArea<DB, Shift>,
+    series: &[HrSeries],
+    title: &str,
+) -> Result<HrLayout> {
+    let sun = sun_position();
+    let (mut t_lo, mut t_hi, mut l_lo, mut l_hi) = (-sun.0, -sun.0, sun.1, sun.1);
+    for p in series.iter().flat_map(|s| s.points.iter()) {
         let (t, l) = (p.teff_k.log10(), p.luminosity_lsun.log10());
         t_lo = t_lo.min(t);
         t_hi = t_hi.max(t);
@@ -156,140 +196,257 @@ pub fn render_hr_diagram(series: &[HrSeries], title: &str) -> Result<HrFigure> {
     let x_format = move |u: &f64| format!("{:.*}", x_decimals, -u + 0.0);
     let y_format = move |v: &f64| format!("{:.*}", y_decimals, v + 0.0);
 
-    let mut svg = String::new();
-    let mut points_px = Vec::with_capacity(series.len());
-    let mut mass_labels = Vec::with_capacity(series.len());
-    {
-        let root =
-            SVGBackend::with_string(&mut svg, (HR_WIDTH_PX, HR_HEIGHT_PX)).into_drawing_area();
-        root.fill(&WHITE).map_err(drawing_error)?;
-        let mut builder = ChartBuilder::on(&root);
-        builder
-            .margin(16)
-            .margin_right(32)
-            .x_label_area_size(64)
-            .y_label_area_size(80);
-        if !title.is_empty() {
-            builder.caption(title, (FONT, TITLE_SIZE));
-        }
-        let mut chart = builder
-            .build_cartesian_2d(-t_hi..-t_lo, l_lo..l_hi)
-            .map_err(drawing_error)?;
-        chart
-            .configure_mesh()
-            .bold_line_style(GRID_GREY)
-            .light_line_style(WHITE.mix(0.0))
-            .x_labels(X_TICKS)
-            .y_labels(Y_TICKS)
-            .x_label_formatter(&x_format)
-            .y_label_formatter(&y_format)
-            .label_style((FONT, TICK_SIZE))
-            .axis_desc_style((FONT, AXIS_LABEL_SIZE))
-            .x_desc("log10 T_eff / K")
-            .y_desc("log10 L / L_sun")
-            .draw()
-            .map_err(drawing_error)?;
-        let area = chart.plotting_area();
-        area.draw(&Rectangle::new(
-            [(-t_hi, l_hi), (-t_lo, l_lo)],
-            ShapeStyle::from(&BLACK).stroke_width(1),
-        ))
+    let mut builder = ChartBuilder::on(root);
+    builder
+        .margin(16)
+        .margin_right(32)
+        .x_label_area_size(64)
+        .y_label_area_size(80);
+    if !title.is_empty() {
+        builder.caption(title, (FONT, TITLE_SIZE));
+    }
+    let mut chart = builder
+        .build_cartesian_2d(-t_hi..-t_lo, l_lo..l_hi)
         .map_err(drawing_error)?;
+    chart
+        .configure_mesh()
+        .bold_line_style(GRID_GREY)
+        .light_line_style(WHITE.mix(0.0))
+        .x_labels(X_TICKS)
+        .y_labels(Y_TICKS)
+        .x_label_formatter(&x_format)
+        .y_label_formatter(&y_format)
+        .label_style((FONT, TICK_SIZE))
+        .axis_desc_style((FONT, AXIS_LABEL_SIZE))
+        .x_desc("log10 T_eff / K")
+        .y_desc("log10 L / L_sun")
+        .draw()
+        .map_err(drawing_error)?;
+    let area = chart.plotting_area();
+    area.draw(&Rectangle::new(
+        [(-t_hi, l_hi), (-t_lo, l_lo)],
+        ShapeStyle::from(&BLACK).stroke_width(1),
+    ))
+    .map_err(drawing_error)?;
+    let (xs, ys) = area.get_pixel_range();
+    let plot_area_px = PixelBox {
+        left: xs.start,
+        top: ys.start,
+        right: xs.end - 1,
+        bottom: ys.end - 1,
+    };
 
-        let mut legend = Vec::with_capacity(series.len());
-        let mut occupied = Vec::new();
-        let mut label_boxes = Vec::new();
-        for (k, s) in series.iter().enumerate() {
-            let style = series_style(k);
-            let mut order: Vec<usize> = (0..s.points.len()).collect();
-            order.sort_by(|&a, &b| s.points[a].mass_msun.total_cmp(&s.points[b].mass_msun));
-            let coords: Vec<(f64, f64)> = order
-                .iter()
-                .map(|&i| {
-                    let p = &s.points[i];
-                    (-p.teff_k.log10(), p.luminosity_lsun.log10())
-                })
-                .collect();
-            draw_line(area, &coords, &style)?;
-            for &c in &coords {
-                draw_marker(area, c, style.marker, style.color)?;
-            }
-            // Labels above-right of the line for even series, below-left for odd ones, so
-            // that neighbouring sequences do not write over each other; a label that would
-            // overlap one already written is left out.
-            let (dx, dy, h, v) = if k % 2 == 0 {
-                (7, -6, HPos::Left, VPos::Bottom)
-            } else {
-                (-7, 6, HPos::Right, VPos::Top)
-            };
-            let masses: Vec<f64> = order.iter().map(|&i| s.points[i].mass_msun).collect();
-            let mut labels = Vec::new();
-            for j in select_mass_labels(&masses, MAX_MASS_LABELS) {
-                let text = format_mass(masses[j]);
-                let (px, py) = chart.backend_coord(&coords[j]);
-                let bx = label_box((px + dx, py + dy), text.chars().count(), k % 2 == 0);
-                if label_boxes.iter().any(|&b| boxes_overlap(b, bx)) {
-                    continue;
-                }
-                label_boxes.push(bx);
-                area.draw(
-                    &(EmptyElement::at(coords[j])
-                        + Text::new(
-                            text.clone(),
-                            (dx, dy),
-                            text_style(NOTE_SIZE, style.color, h, v),
-                        )),
-                )
-                .map_err(drawing_error)?;
-                occupied.extend([(bx.0, bx.1), (bx.2, bx.3)]);
-                labels.push(text);
-            }
-            let px: Vec<(i32, i32)> = s
-                .points
+    // Lines and markers first; their pixels are what the legend and the labels avoid.
+    let mut points_px = Vec::with_capacity(series.len());
+    let mut markers_px = Vec::new();
+    let mut lines_px: Vec<Vec<(i32, i32)>> = Vec::new();
+    let mut orders = Vec::with_capacity(series.len());
+    let mut legend = Vec::with_capacity(series.len());
+    for (k, s) in series.iter().enumerate() {
+        let style = series_style(k);
+        let mut order: Vec<usize> = (0..s.points.len()).collect();
+        order.sort_by(|&a, &b| s.points[a].mass_msun.total_cmp(&s.points[b].mass_msun));
+        let coords: Vec<(f64, f64)> = order
+            .iter()
+            .map(|&i| {
+                let p = &s.points[i];
+                (-p.teff_k.log10(), p.luminosity_lsun.log10())
+            })
+            .collect();
+        draw_line(area, &coords, &style)?;
+        for &c in &coords {
+            draw_marker(area, c, style.marker, style.color)?;
+        }
+        let line: Vec<(i32, i32)> = coords.iter().map(|c| chart.backend_coord(c)).collect();
+        markers_px.extend(
+            line.iter()
+                .map(|&p| PixelBox::around(p, MARKER_HALF_PX, MARKER_HALF_PX)),
+        );
+        lines_px.push(line);
+        points_px.push(
+            s.points
                 .iter()
                 .map(|p| chart.backend_coord(&(-p.teff_k.log10(), p.luminosity_lsun.log10())))
-                .collect();
-            occupied.extend(px.iter().copied());
-            points_px.push(px);
-            mass_labels.push(labels);
-            legend.push(LegendEntry {
-                label: s.label.clone(),
-                key: LegendKey::Line(style),
-            });
-        }
-        let corner = legend_corner(area.get_pixel_range(), legend_size(&legend), &occupied);
-        draw_legend(&root, corner, &legend)?;
-        root.present().map_err(drawing_error)?;
+                .collect::<Vec<_>>(),
+        );
+        orders.push(order);
+        legend.push(LegendEntry {
+            label: s.label.clone(),
+            key: LegendKey::Line(style),
+        });
     }
-    Ok(HrFigure {
-        svg,
+    let sun_px = chart.backend_coord(&sun);
+    let sun_box = draw_sun_symbol(root, sun_px)?;
+    markers_px.push(sun_box);
+
+    let legend_size = legend_size(&legend)?;
+    let corner = legend_corner(&plot_area_px, legend_size, &markers_px, &lines_px);
+    let legend_px = draw_legend(root, corner, &legend)?;
+
+    let mut placer = LabelPlacer::new(plot_area_px.grown(-2));
+    for b in &markers_px {
+        placer.block(*b);
+    }
+    placer.block(legend_px);
+    for line in &lines_px {
+        placer.avoid_line(line);
+    }
+    let mut labels = Vec::new();
+    // The Sun's label first, then mass labels in order of roundness (1, 10, 100 and 0.1
+    // before 2, 5, 20, ...), so that the roundest get the best places.
+    let sun_text_size = text_box_px(SUN_LABEL, NOTE_SIZE)?;
+    if let Some(placement) = placer.place(sun_box, sun_text_size, (0.0, -1.0)) {
+        draw_label(root, SUN_LABEL, placement.bbox, BLACK, placement.over_line)?;
+        labels.push(PlacedLabel {
+            text: SUN_LABEL.to_string(),
+            series: None,
+            anchor_px: sun_px,
+            placement,
+        });
+    }
+    let mut wanted: Vec<(u8, usize, usize)> = Vec::new();
+    for (k, s) in series.iter().enumerate() {
+        let masses: Vec<f64> = orders[k].iter().map(|&i| s.points[i].mass_msun).collect();
+        for j in select_mass_labels(&masses, MAX_MASS_LABELS) {
+            wanted.push((roundness(masses[j]), k, j));
+        }
+    }
+    wanted.sort_unstable();
+    let mut mass_labels: Vec<Vec<(f64, String)>> = vec![Vec::new(); series.len()];
+    for (_, k, j) in wanted {
+        let mass = series[k].points[orders[k][j]].mass_msun;
+        let text = format_mass(mass);
+        // Two models that print alike (1 and 1.003) get one label.
+        if mass_labels[k].iter().any(|(_, t)| *t == text) {
+            continue;
+        }
+        let size = text_box_px(&text, NOTE_SIZE)?;
+        let at = lines_px[k][j];
+        let mark = PixelBox::around(at, MARKER_HALF_PX, MARKER_HALF_PX);
+        let Some(placement) = placer.place(mark, size, label_direction(&lines_px, k, j)) else {
+            continue;
+        };
+        draw_label(
+            root,
+            &text,
+            placement.bbox,
+            series_style(k).color,
+            placement.over_line,
+        )?;
+        mass_labels[k].push((mass, text.clone()));
+        labels.push(PlacedLabel {
+            text,
+            series: Some(k),
+            anchor_px: at,
+            placement,
+        });
+    }
+    let mass_labels = mass_labels
+        .into_iter()
+        .map(|mut v| {
+            v.sort_by(|a, b| a.0.total_cmp(&b.0));
+            v.into_iter().map(|(_, t)| t).collect()
+        })
+        .collect();
+    Ok(HrLayout {
         points_px,
         mass_labels,
+        labels,
+        markers_px,
+        sun_px,
+        legend_px,
+        plot_area_px,
     })
 }
 
-/// Top-left pixel of the legend box: the corner of the plotting area (upper right, lower left,
-/// upper left, lower right, in that order of preference) whose box covers the fewest drawn
-/// points and labels.
+/// How far in pixels a label looks for a neighbouring line on either side of its point.
+const NEIGHBOUR_REACH_PX: f64 = 60.0;
+
+/// The preferred direction of the label of point `j` of series `k`: at right angles to the
+/// line through its neighbours, on the side where the nearest other series' line is farther
+/// away (so that labels stay outside the bundle of sequences); with no other line within
+/// reach on either side, above the line for even series and below it for odd ones.
+fn label_direction(lines: &[Vec<(i32, i32)>], k: usize, j: usize) -> (f64, f64) {
+    let line = &lines[k];
+    let a = line[j.saturating_sub(1)];
+    let b = line[(j + 1).min(line.len() - 1)];
+    let (dx, dy) = (f64::from(b.0 - a.0), f64::from(b.1 - a.1));
+    let length = dx.hypot(dy);
+    // Normal (dy, -dx) / length; a single point has no direction: label above or below.
+    let (nx, ny) = if length > 0.0 {
+        (dy / length, -dx / length)
+    } else {
+        (0.0, -1.0)
+    };
+    let upward = if ny <= 0.0 { (nx, ny) } else { (-nx, -ny) };
+    let downward = (-upward.0, -upward.1);
+    let at = line[j];
+    let reach = |n: (f64, f64)| {
+        let end = (
+            at.0 + (NEIGHBOUR_REACH_PX * n.0).round() as i32,
+            at.1 + (NEIGHBOUR_REACH_PX * n.1).round() as i32,
+        );
+        lines
+            .iter()
+            .enumerate()
+            .filter(|&(i, _)| i != k)
+            .flat_map(|(_, l)| l.windows(2))
+            .filter_map(|s| ray_hit(at, end, s[0], s[1]))
+            .fold(f64::INFINITY, f64::min)
+    };
+    let (up, down) = (reach(upward), reach(downward));
+    if up > down {
+        upward
+    } else if down > up {
+        downward
+    } else if k.is_multiple_of(2) {
+        upward
+    } else {
+        downward
+    }
+}
+
+/// Where the segment p0-p1 crosses the segment q0-q1, as a fraction of p0-p1 (None if not).
+fn ray_hit(p0: (i32, i32), p1: (i32, i32), q0: (i32, i32), q1: (i32, i32)) -> Option<f64> {
+    let f = |v: (i32, i32)| (f64::from(v.0), f64::from(v.1));
+    let (p0, p1, q0, q1) = (f(p0), f(p1), f(q0), f(q1));
+    let r = (p1.0 - p0.0, p1.1 - p0.1);
+    let s = (q1.0 - q0.0, q1.1 - q0.1);
+    let denominator = r.0 * s.1 - r.1 * s.0;
+    if denominator == 0.0 {
+        return None;
+    }
+    let w = (q0.0 - p0.0, q0.1 - p0.1);
+    let t = (w.0 * s.1 - w.1 * s.0) / denominator;
+    let u = (w.0 * r.1 - w.1 * r.0) / denominator;
+    ((0.0..=1.0).contains(&t) && (0.0..=1.0).contains(&u)).then_some(t)
+}
+
+/// Top-left pixel of the legend box of `size`: the corner of the plotting area (upper right,
+/// lower left, upper left, lower right, in that order of preference) whose box, with a margin,
+/// covers the fewest markers and line segments.
 fn legend_corner(
-    (xs, ys): (std::ops::Range<i32>, std::ops::Range<i32>),
+    frame: &PixelBox,
     (w, h): (i32, i32),
-    occupied: &[(i32, i32)],
+    markers: &[PixelBox],
+    lines: &[Vec<(i32, i32)>],
 ) -> (i32, i32) {
     let inset = 10;
-    let left = xs.start + inset;
-    let right = xs.end - inset - w;
-    let top = ys.start + inset;
-    let bottom = ys.end - inset - h;
+    let left = frame.left + inset;
+    let right = frame.right - inset - w;
+    let top = frame.top + inset;
+    let bottom = frame.bottom - inset - h;
     let corners = [(right, top), (left, bottom), (left, top), (right, bottom)];
-    let margin = 12;
+    let margin = 8;
     let covered = |&(x0, y0): &(i32, i32)| {
-        occupied
+        let bbox = PixelBox::at((x0, y0), (w, h)).grown(margin);
+        let hit_markers = markers.iter().filter(|m| m.overlaps(&bbox)).count();
+        let hit_segments = lines
             .iter()
-            .filter(|&&(x, y)| {
-                x >= x0 - margin && x <= x0 + w + margin && y >= y0 - margin && y <= y0 + h + margin
-            })
-            .count()
+            .flat_map(|l| l.windows(2))
+            .filter(|s| bbox.meets_segment(s[0], s[1]))
+            .count();
+        hit_markers + hit_segments
     };
     let mut best = corners[0];
     let mut best_count = covered(&best);
@@ -303,10 +460,32 @@ fn legend_corner(
     best
 }
 
-/// Draw the HR diagram of `series` to the SVG file `path` (800 x 600 px), written atomically.
+/// Render the diagram of `series` in `format` (800 x 600 px): one line per series with a
+/// marker per model and round masses labelled, the Sun marked with ⊙ and labelled, a legend
+/// in the emptiest corner. No label overlaps a marker, another label or the legend; a label
+/// that found room only across a line is set on a white backing; one that found no room is
+/// left out (see [`HrLayout::labels`]).
 ///
-/// Errors: as [`render_hr_diagram`]; [`Error::Io`] if the file cannot be written (no partial
-/// file is left).
-pub fn hr_diagram(path: &Path, series: &[HrSeries], title: &str) -> Result<()> {
-    write_svg(path, render_hr_diagram(series, title).map(|f| f.svg))
+/// Errors: [`Error::InvalidInput`] for no series, a series without points, or a point whose
+/// mass, T_eff or L is not finite and positive.
+pub fn render_hr_diagram(
+    series: &[HrSeries],
+    title: &str,
+    format: ImageFormat,
+) -> Result<HrFigure> {
+    check_input(series)?;
+    let (image, layout) = render(&HrDrawing { series, title }, format)?;
+    Ok(HrFigure { image, layout })
+}
+
+/// Draw the HR diagram of `series` (see [`render_hr_diagram`]) to `path`, written atomically,
+/// as SVG or PNG by the file name's extension; returns what was drawn where.
+///
+/// Errors: as [`render_hr_diagram`]; [`Error::InvalidInput`] for an extension other than
+/// `.svg` or `.png` (before anything is drawn); [`Error::Io`] if the file cannot be written (no
+/// partial file is left).
+pub fn hr_diagram(path: &Path, series: &[HrSeries], title: &str) -> Result<HrLayout> {
+    figure_format("figure file", path)?;
+    check_input(series)?;
+    write_figure(path, &HrDrawing { series, title })
 }

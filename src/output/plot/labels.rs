@@ -25,7 +25,7 @@ pub fn format_mass(mass_msun: f64) -> String {
 
 /// How round a mass is, smaller is rounder: 1×10^k first, then 2 and 5×10^k, then other
 /// one-digit mantissas, then one-decimal mantissas (1.5, 2.5), then the rest.
-fn roundness(mass_msun: f64) -> u8 {
+pub(crate) fn roundness(mass_msun: f64) -> u8 {
     let mantissa = mass_msun / 10f64.powf(mass_msun.log10().floor());
     // Relative tolerance for "equals a round number": masses come from grids built by
     // multiplication, so allow a few parts in 1e6 of rounding (common practice, no source).

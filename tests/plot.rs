@@ -10,8 +10,9 @@
 
 use starpoise::output::plot::{
     format_mass, hr_diagram, profile_plot, read_table, render_hr_diagram, render_profile, Abscissa,
-    HrFigure, HrPoint, HrSeries, ImageFormat, PlotInput, ProfileFigure, HR_HEIGHT_PX, HR_WIDTH_PX,
-    MAX_MASS_LABELS, NABLA_AXIS_CAP, PROFILE_HEIGHT_PX, PROFILE_WIDTH_PX, SUN_LABEL,
+    HrFigure, HrLayout, HrPoint, HrSeries, ImageFormat, PlacedLabel, PlotInput, ProfileFigure,
+    HR_HEIGHT_PX, HR_WIDTH_PX, MAX_MASS_LABELS, NABLA_AXIS_CAP, PROFILE_HEIGHT_PX,
+    PROFILE_WIDTH_PX, SUN_LABEL,
 };
 use starpoise::output::zams::ProfileRow;
 use starpoise::Error;
@@ -630,6 +631,15 @@ fn assert_labels_collide_with_nothing(figure: &HrFigure) {
     }
 }
 
+/// The Sun's label of a diagram.
+fn sun_label(layout: &HrLayout) -> &PlacedLabel {
+    layout
+        .labels
+        .iter()
+        .find(|l| l.text == SUN_LABEL)
+        .expect("a Sun label")
+}
+
 #[test]
 fn sun_is_marked_at_the_nominal_point() {
     let mut series = zams_like("demo", 25, 0.7);
@@ -649,13 +659,7 @@ fn sun_is_marked_at_the_nominal_point() {
         c.contains(&format!("cx=\"{}\" cy=\"{}\"", sun.0, sun.1)) && c.contains("#E69F00")
     });
     assert!(ring, "no orange ring at {sun:?}");
-    let sun_label = figure
-        .layout
-        .labels
-        .iter()
-        .find(|l| l.text == SUN_LABEL)
-        .expect("Sun label");
-    assert_eq!(sun_label.anchor_px, sun);
+    assert_eq!(sun_label(&figure.layout).anchor_px, sun);
     assert!(figure
         .layout
         .markers_px
@@ -675,13 +679,7 @@ fn sun_is_marked_at_the_nominal_point() {
         r > 200 && g > 120 && g < 200 && b < 60
     });
     assert!(orange, "no orange ring right of {sun:?}");
-    let label = png
-        .layout
-        .labels
-        .iter()
-        .find(|l| l.text == SUN_LABEL)
-        .unwrap();
-    let b = label.placement.bbox;
+    let b = sun_label(&png.layout).placement.bbox;
     let dark = (b.left..=b.right)
         .flat_map(|x| (b.top..=b.bottom).map(move |y| (x, y)))
         .filter(|&p| pixel(&rgb, width, p).iter().all(|&c| c < 100))

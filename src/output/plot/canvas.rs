@@ -43,15 +43,14 @@ impl ImageFormat {
 }
 
 /// The format of the figure file `path` given with `flag`, before anything is computed: its
-/// extension must name a format ([`ImageFormat::from_path`]) and its directory must exist
-/// ([`crate::output::check_output_path`]).
+/// directory must exist and it must not be a directory ([`crate::output::check_output_path`]),
+/// and its extension must name a format ([`ImageFormat::from_path`]).
 ///
 /// Errors: [`Error::InvalidInput`] (exit code 2) naming the flag, the value and the allowed
 /// extensions, or the directory problem.
 pub fn check_figure_path(flag: &str, path: &Path) -> Result<ImageFormat> {
-    let format = figure_format(flag, path)?;
     crate::output::check_output_path(flag, path)?;
-    Ok(format)
+    figure_format(flag, path)
 }
 
 /// The format of `path`, or [`Error::InvalidInput`] naming `what` and the allowed extensions.
@@ -81,6 +80,17 @@ pub(crate) trait Figure {
     fn draw<DB: DrawingBackend>(&self, root: &DrawingArea<DB, Shift>) -> Result<Self::Layout>;
 }
 
+/// Fill `root` white, draw `figure` on it and finish the drawing.
+fn paint<DB: DrawingBackend, F: Figure>(
+    root: DrawingArea<DB, Shift>,
+    figure: &F,
+) -> Result<F::Layout> {
+    root.fill(&WHITE).map_err(drawing_error)?;
+    let layout = figure.draw(&root)?;
+    root.present().map_err(drawing_error)?;
+    Ok(layout)
+}
+
 /// Render `figure` in `format`: the file's bytes and the figure's layout.
 pub(crate) fn render<F: Figure>(figure: &F, format: ImageFormat) -> Result<(Vec<u8>, F::Layout)> {
     register_embedded_font()?;
@@ -88,24 +98,18 @@ pub(crate) fn render<F: Figure>(figure: &F, format: ImageFormat) -> Result<(Vec<
     match format {
         ImageFormat::Svg => {
             let mut svg = String::new();
-            let layout = {
-                let root = SVGBackend::with_string(&mut svg, size).into_drawing_area();
-                root.fill(&WHITE).map_err(drawing_error)?;
-                let layout = figure.draw(&root)?;
-                root.present().map_err(drawing_error)?;
-                layout
-            };
+            let layout = paint(
+                SVGBackend::with_string(&mut svg, size).into_drawing_area(),
+                figure,
+            )?;
             Ok((svg.into_bytes(), layout))
         }
         ImageFormat::Png => {
             let mut rgb = vec![255u8; 3 * size.0 as usize * size.1 as usize];
-            let layout = {
-                let root = RasterCanvas::new(&mut rgb, size).into_drawing_area();
-                root.fill(&WHITE).map_err(drawing_error)?;
-                let layout = figure.draw(&root)?;
-                root.present().map_err(drawing_error)?;
-                layout
-            };
+            let layout = paint(
+                RasterCanvas::new(&mut rgb, size).into_drawing_area(),
+                figure,
+            )?;
             let png = encode_png(&rgb, size).map_err(drawing_error)?;
             Ok((png, layout))
         }

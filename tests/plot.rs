@@ -840,3 +840,53 @@ fn profile_takes_radius_mass_or_pressure_as_abscissa() {
         assert!(texts.iter().any(|t| t == tick), "no tick {tick}: {texts:?}");
     }
 }
+
+#[test]
+fn decades_between_models_are_ticked_on_the_line_and_labelled() {
+    // 60 invented masses log-spaced from 0.08 to 150 M_sun: no model at 0.1, 1, 10 or 100.
+    let masses: Vec<f64> = (0..60)
+        .map(|i| 0.08 * (150.0_f64 / 0.08).powf(i as f64 / 59.0))
+        .collect();
+    let series = HrSeries {
+        label: "dense".into(),
+        points: power_law("dense", &masses, 3.5, 0.8).points,
+    };
+    let (figure, _) = svg_hr(&[series], "");
+    assert_labels_collide_with_nothing(&figure);
+    let px = &figure.layout.points_px[0];
+    for decade in ["0.1", "1", "10", "100"] {
+        let label = figure
+            .layout
+            .labels
+            .iter()
+            .find(|l| l.text == decade)
+            .unwrap_or_else(|| panic!("{decade} missing"));
+        assert!(label.interpolated, "{decade}");
+        // The tick lies on the drawn segment between the two neighbouring models (within
+        // the rounding of pixel coordinates).
+        let m: f64 = decade.parse().unwrap();
+        let below = masses.iter().rposition(|&x| x < m).unwrap();
+        let (a, b) = (px[below], px[below + 1]);
+        let (p, q) = (label.anchor_px, (b.0 - a.0, b.1 - a.1));
+        let cross = f64::from((p.0 - a.0) * q.1 - (p.1 - a.1) * q.0);
+        let distance = cross.abs() / f64::from(q.0).hypot(f64::from(q.1));
+        assert!(distance <= 1.5, "{decade}: {distance} px off the line");
+        let inside = |v: i32, e0: i32, e1: i32| v >= e0.min(e1) - 1 && v <= e0.max(e1) + 1;
+        assert!(
+            inside(p.0, a.0, b.0) && inside(p.1, a.1, b.1),
+            "{decade} off the segment"
+        );
+        // Its tick is a mark the labels avoid.
+        assert!(figure.layout.markers_px.iter().any(|b| b.contains_point(p)));
+    }
+    // With the decades labelled, masses that are not round (0.117 ...) are not: only the
+    // decades, the two ends and the Sun.
+    let mut texts: Vec<&str> = figure
+        .layout
+        .labels
+        .iter()
+        .map(|l| l.text.as_str())
+        .collect();
+    texts.sort_unstable();
+    assert_eq!(texts, ["0.08", "0.1", "1", "10", "100", "150", SUN_LABEL]);
+}

@@ -4,12 +4,14 @@
 use super::canvas::{drawing_error, figure_format, render, write_figure, Figure, ImageFormat};
 use super::font::text_box_px;
 use super::geometry::PixelBox;
-use super::labels::{format_mass, roundness, select_mass_labels, MAX_MASS_LABELS};
+use super::labels::{
+    decade_ticks, format_mass, roundness, select_mass_labels, MAX_MASS_LABELS, MIN_LABELS,
+};
 use super::placement::{LabelPlacer, Placement};
 use super::style::{
-    draw_label, draw_legend, draw_line, draw_marker, draw_sun_symbol, legend_size, series_style,
-    LegendEntry, LegendKey, AXIS_LABEL_SIZE, FONT, GRID_GREY, MARKER_RADIUS, NOTE_SIZE, TICK_SIZE,
-    TITLE_SIZE,
+    draw_label, draw_legend, draw_line, draw_marker, draw_sun_symbol, draw_tick, legend_size,
+    series_style, LegendEntry, LegendKey, AXIS_LABEL_SIZE, FONT, GRID_GREY, MARKER_RADIUS,
+    NOTE_SIZE, TICK_SIZE, TITLE_SIZE,
 };
 use crate::constants::TEFF_SUN_K;
 use crate::error::{Error, Result};
@@ -110,6 +112,19 @@ fn sun_position() -> (f64, f64) {
 /// Text of the Sun's label.
 pub const SUN_LABEL: &str = "Sun";
 
+/// A label the diagram asks for, before it is placed.
+struct WantedLabel {
+    /// Roundness of the mass (labels are placed roundest first).
+    level: u8,
+    series: usize,
+    mass_msun: f64,
+    /// Pixel centre of the model or tick.
+    at: (i32, i32),
+    /// The neighbouring points of the line there (its direction).
+    along: ((i32, i32), (i32, i32)),
+    interpolated: bool,
+}
+
 /// One text label written inside the plotting area.
 #[derive(Debug, Clone, PartialEq)]
 pub struct PlacedLabel {
@@ -117,8 +132,12 @@ pub struct PlacedLabel {
     pub text: String,
     /// The series whose point it names (`None` for the Sun's label).
     pub series: Option<usize>,
-    /// Pixel centre of the point or symbol it names.
+    /// Pixel centre of the point, tick or symbol it names.
     pub anchor_px: (i32, i32),
+    /// Whether it names a power-of-ten mass that no model has, marked by a tick across the line
+    /// where the line between the two neighbouring models passes it in log M (see
+    /// [`decade_ticks`](super::labels::decade_ticks)).
+    pub interpolated: bool,
     /// Where it went.
     pub placement: Placement,
 }
@@ -241,6 +260,7 @@ fn draw_hr<DB: DrawingBackend>(
     let mut markers_px = Vec::new();
     let mut lines_px: Vec<Vec<(i32, i32)>> = Vec::new();
     let mut orders = Vec::with_capacity(series.len());
+    let mut ticks = Vec::with_capacity(series.len());
     let mut legend = Vec::with_capacity(series.len());
     for (k, s) in series.iter().enumerate() {
         let style = series_style(k);
@@ -262,6 +282,17 @@ fn draw_hr<DB: DrawingBackend>(
             line.iter()
                 .map(|&p| PixelBox::around(p, MARKER_HALF_PX, MARKER_HALF_PX)),
         );
+        let masses: Vec<f64> = order.iter().map(|&i| s.points[i].mass_msun).collect();
+        let mut series_ticks = Vec::new();
+        for tick in decade_ticks(&masses) {
+            let (a, b) = (coords[tick.below], coords[tick.below + 1]);
+            let f = tick.fraction;
+            let at = chart.backend_coord(&(a.0 + f * (b.0 - a.0), a.1 + f * (b.1 - a.1)));
+            let (pa, pb) = (line[tick.below], line[tick.below + 1]);
+            markers_px.push(draw_tick(root, at, (pa, pb), style.color)?);
+            series_ticks.push((tick, at));
+        }
+        ticks.push(series_ticks);
         lines_px.push(line);
         points_px.push(
             s.points
@@ -301,29 +332,57 @@ fn draw_hr<DB: DrawingBackend>(
             text: SUN_LABEL.to_string(),
             series: None,
             anchor_px: sun_px,
+            interpolated: false,
             placement,
         });
     }
-    let mut wanted: Vec<(u8, usize, usize)> = Vec::new();
+    let mut wanted: Vec<WantedLabel> = Vec::new();
     for (k, s) in series.iter().enumerate() {
+        let line = &lines_px[k];
         let masses: Vec<f64> = orders[k].iter().map(|&i| s.points[i].mass_msun).collect();
-        for j in select_mass_labels(&masses, MAX_MASS_LABELS) {
-            wanted.push((roundness(masses[j]), k, j));
+        let mut series_wanted: Vec<WantedLabel> = select_mass_labels(&masses, MAX_MASS_LABELS)
+            .into_iter()
+            .map(|j| WantedLabel {
+                level: roundness(masses[j]),
+                series: k,
+                mass_msun: masses[j],
+                at: line[j],
+                along: (line[j.saturating_sub(1)], line[(j + 1).min(line.len() - 1)]),
+                interpolated: false,
+            })
+            .collect();
+        series_wanted.extend(ticks[k].iter().map(|&(tick, at)| WantedLabel {
+            level: 0,
+            series: k,
+            mass_msun: tick.mass_msun,
+            at,
+            along: (line[tick.below], line[tick.below + 1]),
+            interpolated: true,
+        }));
+        // Masses that are not round only while fewer than a few round ones are labelled.
+        let round = series_wanted.iter().filter(|w| w.level < 8).count();
+        if round >= MIN_LABELS {
+            series_wanted.retain(|w| w.level < 8);
         }
+        wanted.extend(series_wanted);
     }
-    wanted.sort_unstable();
+    wanted.sort_by(|a, b| {
+        (a.level, a.series)
+            .cmp(&(b.level, b.series))
+            .then(a.mass_msun.total_cmp(&b.mass_msun))
+    });
     let mut mass_labels: Vec<Vec<(f64, String)>> = vec![Vec::new(); series.len()];
-    for (_, k, j) in wanted {
-        let mass = series[k].points[orders[k][j]].mass_msun;
-        let text = format_mass(mass);
+    for w in wanted {
+        let k = w.series;
+        let text = format_mass(w.mass_msun);
         // Two models that print alike (1 and 1.003) get one label.
         if mass_labels[k].iter().any(|(_, t)| *t == text) {
             continue;
         }
         let size = text_box_px(&text, NOTE_SIZE)?;
-        let at = lines_px[k][j];
-        let mark = PixelBox::around(at, MARKER_HALF_PX, MARKER_HALF_PX);
-        let Some(placement) = placer.place(mark, size, label_direction(&lines_px, k, j)) else {
+        let mark = PixelBox::around(w.at, MARKER_HALF_PX, MARKER_HALF_PX);
+        let direction = label_direction(&lines_px, k, w.at, w.along);
+        let Some(placement) = placer.place(mark, size, direction) else {
             continue;
         };
         draw_label(
@@ -333,11 +392,12 @@ fn draw_hr<DB: DrawingBackend>(
             series_style(k).color,
             placement.over_line,
         )?;
-        mass_labels[k].push((mass, text.clone()));
+        mass_labels[k].push((w.mass_msun, text.clone()));
         labels.push(PlacedLabel {
             text,
             series: Some(k),
-            anchor_px: at,
+            anchor_px: w.at,
+            interpolated: w.interpolated,
             placement,
         });
     }
@@ -362,14 +422,18 @@ fn draw_hr<DB: DrawingBackend>(
 /// How far in pixels a label looks for a neighbouring line on either side of its point.
 const NEIGHBOUR_REACH_PX: f64 = 60.0;
 
-/// The preferred direction of the label of point `j` of series `k`: at right angles to the
-/// line through its neighbours, on the side where the nearest other series' line is farther
-/// away (so that labels stay outside the bundle of sequences); with no other line within
-/// reach on either side, above the line for even series and below it for odd ones.
-fn label_direction(lines: &[Vec<(i32, i32)>], k: usize, j: usize) -> (f64, f64) {
-    let line = &lines[k];
-    let a = line[j.saturating_sub(1)];
-    let b = line[(j + 1).min(line.len() - 1)];
+/// The preferred direction of a label of series `k` at pixel `at` on its line, where the line
+/// runs along `along` (the neighbouring points): at right angles to the line, on the side where
+/// the nearest other series' line is farther away (so that labels stay outside the bundle of
+/// sequences); with no other line within reach on either side, above the line for even
+/// series and below it for odd ones.
+fn label_direction(
+    lines: &[Vec<(i32, i32)>],
+    k: usize,
+    at: (i32, i32),
+    along: ((i32, i32), (i32, i32)),
+) -> (f64, f64) {
+    let (a, b) = along;
     let (dx, dy) = (f64::from(b.0 - a.0), f64::from(b.1 - a.1));
     let length = dx.hypot(dy);
     // Normal (dy, -dx) / length; a single point has no direction: label above or below.
@@ -380,7 +444,6 @@ fn label_direction(lines: &[Vec<(i32, i32)>], k: usize, j: usize) -> (f64, f64) 
     };
     let upward = if ny <= 0.0 { (nx, ny) } else { (-nx, -ny) };
     let downward = (-upward.0, -upward.1);
-    let at = line[j];
     let reach = |n: (f64, f64)| {
         let end = (
             at.0 + (NEIGHBOUR_REACH_PX * n.0).round() as i32,

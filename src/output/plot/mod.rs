@@ -31,7 +31,9 @@ pub use hr::{
     hr_diagram, render_hr_diagram, HrFigure, HrLayout, HrPoint, HrSeries, PlacedLabel,
     HR_HEIGHT_PX, HR_WIDTH_PX, SUN_LABEL,
 };
-pub use labels::{format_mass, select_mass_labels, MAX_MASS_LABELS};
+pub use labels::{
+    decade_ticks, format_mass, select_mass_labels, MassTick, MAX_MASS_LABELS, MAX_TICK_RATIO,
+};
 pub use placement::Placement;
 pub use profile::{
     profile_plot, render_profile, Abscissa, ProfileFigure, ProfileLayout, NABLA_AXIS_CAP,

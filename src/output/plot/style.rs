@@ -288,6 +288,46 @@ pub(crate) fn draw_sun_symbol<DB: DrawingBackend>(
     Ok(PixelBox::around(at, SUN_RADIUS + 1, SUN_RADIUS + 1))
 }
 
+/// Half-length in pixels of the tick that marks a round mass between two models.
+pub(crate) const TICK_HALF_LENGTH: i32 = 7;
+
+/// Draw a short tick across the line running from `along.0` to `along.1`, centred at pixel
+/// `at` of `area`, in `color`; returns the box it covers.
+pub(crate) fn draw_tick<DB: DrawingBackend>(
+    area: &DrawingArea<DB, Shift>,
+    at: (i32, i32),
+    along: ((i32, i32), (i32, i32)),
+    color: RGBColor,
+) -> Result<PixelBox> {
+    let (dx, dy) = (
+        f64::from(along.1 .0 - along.0 .0),
+        f64::from(along.1 .1 - along.0 .1),
+    );
+    let length = dx.hypot(dy);
+    let (nx, ny) = if length > 0.0 {
+        (-dy / length, dx / length)
+    } else {
+        (0.0, 1.0)
+    };
+    let h = f64::from(TICK_HALF_LENGTH);
+    let end = |s: f64| {
+        (
+            at.0 + (s * h * nx).round() as i32,
+            at.1 + (s * h * ny).round() as i32,
+        )
+    };
+    area.draw(&PathElement::new(
+        vec![end(-1.0), end(1.0)],
+        ShapeStyle::from(&color).stroke_width(3),
+    ))
+    .map_err(drawing_error)?;
+    Ok(PixelBox::around(
+        at,
+        TICK_HALF_LENGTH + 1,
+        TICK_HALF_LENGTH + 1,
+    ))
+}
+
 /// Write `text` centred in the pixel box `within` of `area`, in `color`; with `backing`, on a
 /// white box first (for a label that had to be set over a line).
 pub(crate) fn draw_label<DB: DrawingBackend>(

@@ -10,9 +10,9 @@
 //! `DIR/zams-profile-M-ABSCISSA.png` (PNG, the format following the extension).
 
 use starpoise::output::plot::{hr_diagram, profile_plot, Abscissa, HrPoint, HrSeries};
-use starpoise::output::zams::ProfileRow;
-use starpoise::physics::{Composition, PhysicsOptions};
-use starpoise::structure::{solve_detailed, ZamsOutcome, ZamsSettings};
+use starpoise::physics::{Composition, PhysicsSet};
+use starpoise::structure::ProfileRow;
+use starpoise::structure::{solve, ZamsSettings};
 use std::f64::consts::PI;
 use std::path::Path;
 
@@ -85,7 +85,7 @@ fn polytrope_profile(n: usize) -> Vec<ProfileRow> {
 }
 
 fn solved(dir: &Path) -> Result<(), Box<dyn std::error::Error>> {
-    let physics = PhysicsOptions::default().build()?;
+    let physics = PhysicsSet::refined();
     let masses = [
         0.3, 0.5, 0.7, 1.0, 1.5, 2.0, 3.0, 5.0, 7.0, 10.0, 15.0, 20.0, 30.0, 50.0,
     ];
@@ -96,23 +96,25 @@ fn solved(dir: &Path) -> Result<(), Box<dyn std::error::Error>> {
         let mut points = Vec::new();
         for &m in &masses {
             let settings = ZamsSettings::new(m, comp, physics.clone())?;
-            let ZamsOutcome::Converged(model) = solve_detailed(&settings)? else {
-                eprintln!("{label}: {m} M_sun did not converge");
-                continue;
+            let model = match solve(&settings) {
+                Ok(model) => model,
+                Err(e) => {
+                    eprintln!("{label}: {e}");
+                    continue;
+                }
             };
             let s = &model.summary;
-            if let (Some(teff_k), Some(luminosity_lsun)) = (s.teff_k, s.luminosity_lsun) {
-                points.push(HrPoint {
-                    mass_msun: m,
-                    teff_k,
-                    luminosity_lsun,
-                });
-            }
+            points.push(HrPoint {
+                mass_msun: m,
+                teff_k: s.teff_k,
+                luminosity_lsun: s.luminosity_lsun,
+            });
             if z == 0.02 && (m == 1.0 || m == 5.0) {
+                let rows = model.profile(400)?;
                 for abscissa in Abscissa::ALL {
                     let file = dir.join(format!("zams-profile-{m}-{abscissa}.png"));
                     let title = format!("ZAMS {m} M_sun, {label}");
-                    profile_plot(&file, &model.profile, &title, abscissa)?;
+                    profile_plot(&file, &rows, &title, abscissa)?;
                     println!("{}", file.display());
                 }
             }

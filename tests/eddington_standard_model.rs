@@ -66,7 +66,7 @@ fn radiation_needs_index_three() {
     let solution = solve_lane_emden(2.5, &LaneEmdenSettings::default()).unwrap();
     let star = StarParameters::new(1.0, 1.0, 0.61).unwrap();
     let err = scale_to_star(&solution, &star, true).unwrap_err();
-    assert_eq!(err.exit_code(), 2);
+    assert_eq!(err.exit_code(), starpoise::error::ExitCode::BadInput);
     assert!(err.to_string().contains("--radiation"), "{err}");
 }
 

@@ -14,7 +14,7 @@ use starpoise::output::plot::{
     HR_HEIGHT_PX, HR_WIDTH_PX, MAX_MASS_LABELS, NABLA_AXIS_CAP, PROFILE_HEIGHT_PX,
     PROFILE_WIDTH_PX, SUN_LABEL,
 };
-use starpoise::output::zams::ProfileRow;
+use starpoise::structure::ProfileRow;
 use starpoise::Error;
 use std::f64::consts::PI;
 use std::path::PathBuf;
@@ -291,7 +291,7 @@ fn hr_file_is_written_and_bad_input_leaves_none() {
         let path = dir.join(format!("{name}.svg"));
         let err = hr_diagram(&path, &series, "x").unwrap_err();
         assert!(matches!(err, Error::InvalidInput { .. }), "{name}: {err}");
-        assert_eq!(err.exit_code(), 2);
+        assert_eq!(err.exit_code(), starpoise::error::ExitCode::BadInput);
         assert!(!path.exists(), "{name}: file written");
     }
     let err = hr_diagram(
@@ -516,7 +516,7 @@ fn bad_tables_name_file_and_line() {
         assert!(reason.contains(wanted), "{name}: {reason}");
     }
     // A profile row that does not parse.
-    let mut text = starpoise::output::zams::PROFILE_COLUMNS.join(",");
+    let mut text = starpoise::structure::PROFILE_COLUMNS.join(",");
     text.push('\n');
     text.push_str(&["1"; 20].join(","));
     text.push('\n');
@@ -766,7 +766,11 @@ fn figure_format_follows_the_extension() {
             hr_diagram(&path, &demo_series(), "").unwrap_err(),
             profile_plot(&path, &rows, "", Abscissa::Radius).unwrap_err(),
         ] {
-            assert_eq!(err.exit_code(), 2, "{name}: {err}");
+            assert_eq!(
+                err.exit_code(),
+                starpoise::error::ExitCode::BadInput,
+                "{name}: {err}"
+            );
             let text = err.to_string();
             assert!(
                 text.contains(name) && text.contains(".svg") && text.contains(".png"),

@@ -2,11 +2,12 @@
 
 pub mod atomic;
 pub mod compare;
+pub mod format;
 pub mod plot;
 pub mod polytrope;
 pub mod probe;
 pub mod sequence;
 pub mod zams;
 
+pub use crate::physics::probe::ProbeReport;
 pub use atomic::{check_output_path, write_atomically};
-pub use probe::ProbeReport;

@@ -117,17 +117,19 @@ fn integration_error(stage: &str, e: IntegrationError) -> Error {
         | IntegrationError::StiffnessDetected { x } => x,
     };
     Error::Integration {
-        leg: "lane-emden",
-        mass_g: x,
+        what: "lane-emden",
+        variable: "xi",
+        at: x,
         reason: format!("{stage}: {e}"),
     }
 }
 
 fn integration_failure(stage: &str, x: f64, what: &str) -> Error {
     Error::Integration {
-        leg: "lane-emden",
-        mass_g: x,
-        reason: format!("{stage}: {what} (independent variable {x:e})"),
+        what: "lane-emden",
+        variable: "the leg's independent variable",
+        at: x,
+        reason: format!("{stage}: {what}"),
     }
 }
 

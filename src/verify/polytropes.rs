@@ -206,8 +206,9 @@ fn n5_mass_constant() -> Result<f64> {
         .with_unbounded_xi_max(1000.0)?;
     let s = solve_lane_emden(5.0, &settings)?;
     let last = s.profile.last().ok_or_else(|| Error::Integration {
-        leg: "lane-emden",
-        mass_g: 1000.0,
+        what: "lane-emden",
+        variable: "xi",
+        at: 1000.0,
         reason: "empty profile".to_string(),
     })?;
     Ok(-last.xi * last.xi * last.dtheta_dxi)

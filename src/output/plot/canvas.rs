@@ -158,7 +158,7 @@ mod tests {
     #[test]
     fn refusal_names_flag_value_and_extensions() {
         let err = check_figure_path("--plot", Path::new("star.pdf")).unwrap_err();
-        assert_eq!(err.exit_code(), 2);
+        assert_eq!(err.exit_code(), crate::error::ExitCode::BadInput);
         let text = err.to_string();
         for wanted in ["--plot", "star.pdf", ".svg", ".png"] {
             assert!(text.contains(wanted), "{text}");

@@ -43,7 +43,7 @@ pub use table::{read_table, PlotInput};
 
 /// One HR series per (variant, X, Z) of a sequence table, from its converged rows, labelled by
 /// the variant and, when the table holds several compositions, the composition.
-pub fn series_from_rows(rows: &[crate::output::sequence::SequenceRow]) -> Vec<HrSeries> {
+pub fn series_from_rows(rows: &[crate::grid::GridRow]) -> Vec<HrSeries> {
     let mut keys: Vec<(String, f64, f64)> = Vec::new();
     for r in rows {
         let k = (r.variant.clone(), r.x, r.z);
@@ -62,12 +62,13 @@ pub fn series_from_rows(rows: &[crate::output::sequence::SequenceRow]) -> Vec<Hr
             };
             let points = rows
                 .iter()
-                .filter(|r| &r.variant == variant && r.x == *x && r.z == *z && r.converged())
+                .filter(|r| &r.variant == variant && r.x == *x && r.z == *z)
                 .filter_map(|r| {
+                    let s = r.summary.as_ref()?;
                     Some(HrPoint {
                         mass_msun: r.mass_msun,
-                        teff_k: r.teff_k?,
-                        luminosity_lsun: r.luminosity_lsun?,
+                        teff_k: s.teff_k,
+                        luminosity_lsun: s.luminosity_lsun,
                     })
                 })
                 .collect();

@@ -2,7 +2,7 @@
 //! centre to the surface, and the convective regions along it.
 
 use crate::error::{Error, Result};
-use crate::output::zams::ProfileRow;
+use crate::structure::ProfileRow;
 use std::fmt;
 use std::str::FromStr;
 
@@ -170,7 +170,7 @@ mod tests {
             assert_eq!(a.to_string().parse::<Abscissa>().unwrap(), a);
         }
         let err = "log-p".parse::<Abscissa>().unwrap_err();
-        assert_eq!(err.exit_code(), 2);
+        assert_eq!(err.exit_code(), crate::error::ExitCode::BadInput);
         assert!(
             err.to_string().contains("radius, mass or pressure"),
             "{err}"

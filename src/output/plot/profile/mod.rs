@@ -10,7 +10,7 @@ pub use abscissa::Abscissa;
 use super::canvas::{figure_format, render, write_figure, Figure, ImageFormat};
 use super::style::{series_style, Dash, Marker, SeriesStyle, BLACK_OI, BLUE_OI, ORANGE_OI};
 use crate::error::{Error, Result};
-use crate::output::zams::ProfileRow;
+use crate::structure::ProfileRow;
 use abscissa::{convective_bands, coordinates};
 use panel::{draw_panel, Curve, Panel};
 use plotters::coord::Shift;

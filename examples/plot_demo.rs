@@ -6,9 +6,10 @@
 //!
 //! `cargo run --release --example plot_demo -- DIR --solved` also solves ZAMS models with the
 //! library (default physics set, X = 0.70 with Z = 0.02 and Z = 0.004) and draws
-//! `DIR/zams-hr.svg` and `DIR/zams-profile-1.svg`, `DIR/zams-profile-5.svg`.
+//! `DIR/zams-hr.png` and the profiles of 1 and 5 M_sun against each abscissa,
+//! `DIR/zams-profile-M-ABSCISSA.png` (PNG, the format following the extension).
 
-use starpoise::output::plot::{hr_diagram, profile_plot, HrPoint, HrSeries};
+use starpoise::output::plot::{hr_diagram, profile_plot, Abscissa, HrPoint, HrSeries};
 use starpoise::physics::{Composition, PhysicsSet};
 use starpoise::structure::ProfileRow;
 use starpoise::structure::{solve, ZamsSettings};
@@ -109,15 +110,18 @@ fn solved(dir: &Path) -> Result<(), Box<dyn std::error::Error>> {
                 luminosity_lsun: s.luminosity_lsun,
             });
             if z == 0.02 && (m == 1.0 || m == 5.0) {
-                let file = dir.join(format!("zams-profile-{m}.svg"));
                 let rows = model.profile(400)?;
-                profile_plot(&file, &rows, &format!("ZAMS {m} M_sun, {label}"))?;
-                println!("{}", file.display());
+                for abscissa in Abscissa::ALL {
+                    let file = dir.join(format!("zams-profile-{m}-{abscissa}.png"));
+                    let title = format!("ZAMS {m} M_sun, {label}");
+                    profile_plot(&file, &rows, &title, abscissa)?;
+                    println!("{}", file.display());
+                }
             }
         }
         series.push(HrSeries { label, points });
     }
-    let file = dir.join("zams-hr.svg");
+    let file = dir.join("zams-hr.png");
     hr_diagram(&file, &series, "ZAMS, refined physics")?;
     println!("{}", file.display());
     Ok(())
@@ -143,6 +147,7 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
         &file,
         &polytrope_profile(301),
         "Demo profile (n = 1 polytrope shape)",
+        Abscissa::Radius,
     )?;
     println!("{}", file.display());
     if args.next().as_deref() == Some("--solved") {

@@ -3,6 +3,8 @@
 
 mod common;
 mod compare;
+mod completions;
+mod figure;
 mod model_file;
 mod plot;
 mod polytrope;
@@ -43,6 +45,8 @@ enum Command {
     Probe(probe::ProbeArgs),
     /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
     Verify(verify::VerifyArgs),
+    /// Write a shell completion script to standard output.
+    Completions(completions::CompletionsArgs),
 }
 
 /// Output format of a summary.
@@ -119,6 +123,7 @@ fn dispatch(command: Command) -> Result<()> {
         Command::Plot(args) => plot::run(args),
         Command::Probe(args) => probe::run(args),
         Command::Verify(args) => verify::run(args),
+        Command::Completions(args) => completions::run(&args),
     }
 }
 

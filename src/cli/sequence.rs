@@ -39,8 +39,9 @@ pub struct SequenceArgs {
     /// Write the table here: CSV, or JSON if the name ends in .json (atomically).
     #[arg(long, value_name = "FILE")]
     out: Option<PathBuf>,
-    /// Draw the HR diagram of the converged models to this SVG file (atomically).
-    #[arg(long, value_name = "FILE.svg")]
+    /// Draw the HR diagram of the converged models to this figure, SVG or PNG by its
+    /// extension (atomically).
+    #[arg(long, value_name = "FILE.svg|FILE.png")]
     plot: Option<PathBuf>,
     /// Run only the K-th of N deterministic slices of the grid.
     #[arg(long, value_name = "K/N")]
@@ -102,7 +103,7 @@ pub fn run(args: SequenceArgs) -> Result<()> {
         starpoise::output::check_output_path("--out", path)?;
     }
     if let Some(path) = &args.plot {
-        starpoise::output::check_output_path("--plot", path)?;
+        starpoise::output::plot::check_figure_path("--plot", path)?;
     }
     let grid = Grid::product(&args.physics.overrides(), variants, &masses, &xs, &zs, fit)?;
     let points = grid.select(shard);

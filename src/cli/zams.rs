@@ -42,9 +42,13 @@ pub struct ZamsArgs {
     /// Format of the profile file.
     #[arg(long, value_enum, default_value_t = ProfileFileFormat::Csv)]
     profile_format: ProfileFileFormat,
-    /// Draw the profile (T, rho, P, L, m and the gradients against r/R) to this SVG file.
-    #[arg(long, value_name = "FILE.svg")]
+    /// Draw the profile (T, rho, P, L, m and the gradients against r/R, m/M or log P) to this
+    /// figure, SVG or PNG by its extension.
+    #[arg(long, value_name = "FILE.svg|FILE.png")]
     plot: Option<PathBuf>,
+    /// The x axis of the --plot figure [default: radius].
+    #[arg(long, value_enum, requires = "plot")]
+    abscissa: Option<super::figure::AbscissaArg>,
     /// Number of profile rows [default: 400].
     #[arg(long, value_name = "K")]
     points: Option<usize>,
@@ -124,7 +128,7 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         check_output_path("--profile", p)?;
     }
     if let Some(p) = &args.plot {
-        check_output_path("--plot", p)?;
+        starpoise::output::plot::check_figure_path("--plot", p)?;
     }
     let model = match solve(&settings) {
         Ok(m) => m,
@@ -150,7 +154,8 @@ pub fn run(args: ZamsArgs) -> Result<()> {
                 c.x(),
                 c.z()
             );
-            starpoise::output::plot::profile_plot(path, &rows, &title)?;
+            let abscissa = args.abscissa.map(Into::into).unwrap_or_default();
+            starpoise::output::plot::profile_plot(path, &rows, &title, abscissa)?;
         }
     }
     match args.format {

@@ -5,6 +5,7 @@ mod common;
 mod compare;
 mod completions;
 mod figure;
+mod limits;
 mod model_file;
 mod plot;
 mod polytrope;
@@ -43,6 +44,8 @@ enum Command {
     Polytrope(polytrope::PolytropeArgs),
     /// Evaluate every physics law at one density and temperature.
     Probe(probe::ProbeArgs),
+    /// Find the hydrogen-burning minimum mass for a composition and set of laws.
+    Limits(limits::LimitsArgs),
     /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
     Verify(verify::VerifyArgs),
     /// Write a shell completion script to standard output.
@@ -122,6 +125,7 @@ fn dispatch(command: Command) -> Result<()> {
         Command::Merge(args) => sequence::run_merge(args),
         Command::Plot(args) => plot::run(args),
         Command::Probe(args) => probe::run(args),
+        Command::Limits(args) => limits::run(args),
         Command::Verify(args) => verify::run(args),
         Command::Completions(args) => completions::run(&args),
     }

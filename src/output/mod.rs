@@ -3,6 +3,7 @@
 pub mod atomic;
 pub mod compare;
 pub mod format;
+pub mod limits;
 pub mod meta;
 pub mod plot;
 pub mod polytrope;

@@ -16,6 +16,7 @@
 //!
 //! The driver knows nothing about what F means.
 
+use super::newton::max_norm;
 use nalgebra::{DMatrix, DVector, SMatrix, SVector};
 
 /// A branch of solutions of F(u, lambda) = 0, u of dimension `N`.
@@ -117,16 +118,6 @@ pub struct Fold<const N: usize> {
     pub point: BranchPoint<N>,
     /// The points visited, start first (the fold not included).
     pub branch: Vec<BranchPoint<N>>,
-}
-
-fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
-    v.iter().fold(0.0f64, |a, x| {
-        if x.is_nan() {
-            f64::INFINITY
-        } else {
-            a.max(x.abs())
-        }
-    })
 }
 
 /// The unit tangent at (u, lambda) from dF/du = `j` and dF/dlambda = `fl`, oriented along

@@ -79,6 +79,15 @@ pub enum Error {
         /// Why it stopped.
         reason: String,
     },
+    /// The search for oscillation modes of one degree failed: a mode could not be converged,
+    /// classified, or the orders asked for could not all be found.
+    #[error("mode search for degree {degree}: {reason}")]
+    ModeSearch {
+        /// Spherical degree l.
+        degree: u32,
+        /// What went wrong, with the frequency or orders concerned.
+        reason: String,
+    },
     /// Some models of a grid or comparison did not converge (the others were written).
     #[error("{failed} of {total} models did not converge (see their status)")]
     Incomplete {
@@ -114,11 +123,11 @@ impl Error {
     }
 
     /// The process exit code for this error: 2 for bad input, 3 for a model that did not
-    /// converge, 1 for anything else.
+    /// converge or a mode search that failed, 1 for anything else.
     pub fn exit_code(&self) -> i32 {
         match self {
             Error::InvalidInput { .. } | Error::BadFile { .. } => 2,
-            Error::NoConvergence { .. } | Error::Incomplete { .. } => 3,
+            Error::NoConvergence { .. } | Error::Incomplete { .. } | Error::ModeSearch { .. } => 3,
             _ => 1,
         }
     }

@@ -103,6 +103,7 @@ pub fn step<const D: usize, const K: usize, const N: usize>(
 
 /// Solve m X = rhs in place (rhs becomes X) by Gaussian elimination with partial pivoting.
 /// `None` if a pivot is zero or not finite.
+#[allow(clippy::needless_range_loop)] // index loops over two rows at once vectorise best here
 pub fn solve<const N: usize, const K: usize>(
     m: &mut [[f64; N]; N],
     rhs: &mut [[f64; K]; N],
@@ -121,27 +122,37 @@ pub fn solve<const N: usize, const K: usize>(
         }
         m.swap(col, pivot);
         rhs.swap(col, pivot);
-        let inverse = 1.0 / m[col][col];
+        // Copies of the pivot row let the updates below run without aliasing.
+        let pivot_row = m[col];
+        let pivot_rhs = rhs[col];
+        let inverse = 1.0 / pivot_row[col];
         for row in col + 1..N {
             let factor = m[row][col] * inverse;
             if factor != 0.0 {
+                let line = &mut m[row];
                 for k in col + 1..N {
-                    m[row][k] -= factor * m[col][k];
+                    line[k] -= factor * pivot_row[k];
                 }
+                let right = &mut rhs[row];
                 for k in 0..K {
-                    rhs[row][k] -= factor * rhs[col][k];
+                    right[k] -= factor * pivot_rhs[k];
                 }
             }
         }
     }
     for col in (0..N).rev() {
-        for k in 0..K {
-            let mut sum = rhs[col][k];
-            for j in col + 1..N {
-                sum -= m[col][j] * rhs[j][k];
+        let mut sum = rhs[col];
+        let line = &m[col];
+        for j in col + 1..N {
+            for k in 0..K {
+                sum[k] -= line[j] * rhs[j][k];
             }
-            rhs[col][k] = sum / m[col][col];
         }
+        let inverse = 1.0 / line[col];
+        for v in sum.iter_mut() {
+            *v *= inverse;
+        }
+        rhs[col] = sum;
     }
     Some(())
 }

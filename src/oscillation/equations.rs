@@ -107,13 +107,19 @@ impl<const D: usize> NodeMatrix<D> {
         m
     }
 
-    /// The local oscillation rate (radians per unit x) of the leading 2 x 2 block at w: the
-    /// imaginary part of its eigenvalues, zero where the solutions are not oscillatory.
-    pub fn phase_rate(&self, w: f64) -> f64 {
+    /// Local rates of change (per unit x) of the solutions of the leading 2 x 2 block at w:
+    /// (the imaginary part of its eigenvalues, zero where the solutions do not oscillate; the
+    /// largest modulus of its eigenvalues).
+    pub fn rates(&self, w: f64) -> (f64, f64) {
         let m = self.at(w);
-        let trace = m[0][0] + m[1][1];
+        let half_trace = 0.5 * (m[0][0] + m[1][1]);
         let det = m[0][0] * m[1][1] - m[0][1] * m[1][0];
-        (det - 0.25 * trace * trace).max(0.0).sqrt()
+        let disc = half_trace * half_trace - det;
+        if disc >= 0.0 {
+            (0.0, half_trace.abs() + disc.sqrt())
+        } else {
+            ((-disc).sqrt(), det.sqrt())
+        }
     }
 }
 

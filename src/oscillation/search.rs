@@ -20,7 +20,7 @@ use super::equations::{
     second_order_surface, Formulation, NodeMatrix,
 };
 use super::equilibrium::{Equilibrium, StructurePoint};
-use super::mesh::{subdivisions, Grid};
+use super::mesh::{plan, Grid, StepLimits};
 use super::shooting::Discretized;
 use super::spectrum::{Mode, ModeKind};
 use crate::error::{Error, Result};
@@ -28,7 +28,11 @@ use crate::numerics::brent::{brent, BrentError};
 use std::f64::consts::PI;
 
 /// Default largest phase of the oscillatory solutions across one collocation step, radians.
-pub const DEFAULT_PHASE_PER_STEP: f64 = 0.2;
+pub const DEFAULT_PHASE_PER_STEP: f64 = 0.3;
+/// Largest growth (e-folds) of the non-oscillatory solutions across one step, per radian of
+/// the phase limit: 5, i.e. one e-fold per step at the default phase of 0.2 rad, so that
+/// halving the phase per step halves both limits.
+const GROWTH_PER_PHASE: f64 = 5.0;
 /// Default fitting point x = r/R.
 pub const DEFAULT_FITTING_POINT: f64 = 0.5;
 /// Default scan points per expected mode spacing.
@@ -39,6 +43,10 @@ pub const MAX_DEGREE: u32 = 1000;
 pub const MAX_ORDER: u32 = 1000;
 /// Times the frequency range may be widened to hold the orders wanted.
 const MAX_WIDENINGS: usize = 8;
+/// The mesh resolves frequencies down to this fraction of the lowest scanned...
+const MESH_MARGIN_LOW: f64 = 0.85;
+/// ... and up to this multiple of the highest, so that a first widening of the scan reuses it.
+const MESH_MARGIN_HIGH: f64 = 1.3;
 /// Times a gap in the orders may be rescanned, each time eight times more finely.
 const MAX_RESCANS: u32 = 4;
 /// Brent iterations allowed per root.
@@ -185,15 +193,20 @@ impl<'a> Prepared<'a> {
         w_hi: f64,
     ) -> Result<Self> {
         let formulation = Formulation::for_degree(degree, settings.cowling);
-        let rate = |x: f64, p: &StructurePoint| {
+        let rates = |x: f64, p: &StructurePoint| {
             let node = match formulation {
                 Formulation::Radial => radial_node(x, p),
                 _ => cowling_node(degree, x, p),
             };
-            node.phase_rate(w_lo).max(node.phase_rate(w_hi))
+            let (phase_lo, growth_lo) = node.rates(w_lo);
+            let (phase_hi, growth_hi) = node.rates(w_hi);
+            (phase_lo.max(phase_hi), growth_lo.max(growth_hi))
         };
-        let subdivision = subdivisions(model, settings.phase_per_step, rate)?;
-        let grid = Grid::new(model, &subdivision)?;
+        let limits = StepLimits {
+            phase: settings.phase_per_step,
+            growth: GROWTH_PER_PHASE * settings.phase_per_step,
+        };
+        let grid = Grid::new(model, &plan(model, limits, rates)?)?;
         if grid.steps() < 2 {
             return Err(Error::invalid(
                 "model",
@@ -418,33 +431,71 @@ pub fn find_modes(
         };
         p_spacing.min(g) / density
     };
-    let mut s_lo = if has_g {
-        lf * buoyancy / (PI * f64::from(max_order + 3))
+    let mut s_lo: f64 = if has_g {
+        lf * buoyancy / (PI * f64::from(max_order + 4))
     } else {
         0.02 * p_spacing
     };
-    let mut s_hi = p_spacing * (f64::from(max_order) + 0.5 * f64::from(degree) + 3.0);
-    for _ in 0..MAX_WIDENINGS {
-        let prepared = Prepared::new(model, degree, settings, s_lo * s_lo, s_hi * s_hi)?;
-        let square = |s: f64| s * s;
-        let roots = prepared.scan(s_lo, s_hi, &step, &square)?;
-        let mut modes = roots
+    let mut s_hi: f64 = p_spacing * (f64::from(max_order) + 0.5 * f64::from(degree) + 3.0);
+    // The mesh resolves a band wider than the first scan, so that widening the scan a little
+    // reuses it (and the modes already found); a larger widening rebuilds it.
+    let square = |s: f64| s * s;
+    let build = |lo: f64, hi: f64| {
+        Prepared::new(
+            model,
+            degree,
+            settings,
+            square(lo * MESH_MARGIN_LOW),
+            square(hi * MESH_MARGIN_HIGH),
+        )
+    };
+    let converge = |prepared: &Prepared<'_>, from: f64, to: f64| -> Result<Vec<Mode>> {
+        prepared
+            .scan(from, to, &step, &square)?
             .iter()
             .map(|&s| prepared.mode(s * s))
-            .collect::<Result<Vec<_>>>()?;
+            .collect()
+    };
+    let mut mesh_band = (s_lo * MESH_MARGIN_LOW, s_hi * MESH_MARGIN_HIGH);
+    let mut prepared = build(s_lo, s_hi)?;
+    let mut modes = converge(&prepared, s_lo, s_hi)?;
+    for _ in 0..MAX_WIDENINGS {
         fill_gaps(&prepared, &mut modes, &expected, &step)?;
         let lowest = modes.first().map_or(i32::MAX, |m| m.order);
         let highest = modes.last().map_or(i32::MIN, |m| m.order);
-        if lowest > expected.lowest {
-            s_lo *= if has_g { 0.7 } else { 0.3 };
-            continue;
+        // Widen by the asymptotic spacing of the orders missing, plus two.
+        let lo = if lowest > expected.lowest {
+            let missing = f64::from((lowest - expected.lowest).unsigned_abs() + 2);
+            if has_g {
+                1.0 / (1.0 / s_lo + missing * PI / (lf * buoyancy))
+            } else {
+                0.3 * s_lo
+            }
+        } else {
+            s_lo
+        };
+        let hi = if highest < k {
+            s_hi + f64::from((k - highest).unsigned_abs() + 2) * p_spacing
+        } else {
+            s_hi
+        };
+        if lo == s_lo && hi == s_hi {
+            modes.retain(|m| m.order >= expected.lowest && m.order <= k);
+            return Ok(modes);
         }
-        if highest < k {
-            s_hi *= 1.3;
-            continue;
+        if lo < mesh_band.0 || hi > mesh_band.1 {
+            mesh_band = (lo * MESH_MARGIN_LOW, hi * MESH_MARGIN_HIGH);
+            prepared = build(lo, hi)?;
+            modes = converge(&prepared, lo, hi)?;
+        } else {
+            if lo < s_lo {
+                modes.extend(converge(&prepared, lo, s_lo)?);
+            }
+            if hi > s_hi {
+                modes.extend(converge(&prepared, s_hi, hi)?);
+            }
         }
-        modes.retain(|m| m.order >= expected.lowest && m.order <= k);
-        return Ok(modes);
+        (s_lo, s_hi) = (lo, hi);
     }
     Err(Error::ModeSearch {
         degree,
@@ -476,6 +527,8 @@ fn fill_gaps(
     let square = |s: f64| s * s;
     for pass in 0..=MAX_RESCANS {
         modes.sort_by(|a, b| a.sigma_squared.total_cmp(&b.sigma_squared));
+        // A root on the boundary of two scanned ranges is found by both.
+        modes.dedup_by(|b, a| (b.sigma_squared - a.sigma_squared).abs() <= 1e-12 * a.sigma_squared);
         let mut gaps = Vec::new();
         for pair in modes.windows(2) {
             let (a, b) = (&pair[0], &pair[1]);

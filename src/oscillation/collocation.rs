@@ -58,6 +58,7 @@ pub type Matrix<const D: usize> = [[f64; D]; D];
 /// it so).
 ///
 /// `N` must equal 3 D.
+#[allow(clippy::needless_range_loop)] // stage, row and column indices address three arrays
 pub fn step<const D: usize, const K: usize, const N: usize>(
     h: f64,
     c: &[Matrix<D>; 3],

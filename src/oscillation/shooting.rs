@@ -87,6 +87,7 @@ fn orthonormalise<const D: usize, const K: usize>(b: &mut Block<D, K>) -> Option
 }
 
 /// Determinant by Gaussian elimination with partial pivoting.
+#[allow(clippy::needless_range_loop)] // row updates read the pivot row of the same matrix
 fn determinant<const D: usize>(mut m: [[f64; D]; D]) -> f64 {
     let mut det = 1.0;
     for col in 0..D {

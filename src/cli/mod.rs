@@ -3,6 +3,7 @@
 
 mod common;
 mod compare;
+mod modes;
 mod plot;
 mod polytrope;
 mod probe;
@@ -38,6 +39,9 @@ enum Command {
     Plot(plot::PlotArgs),
     /// Solve a Lane–Emden polytrope of index n, optionally scaled to a star.
     Polytrope(polytrope::PolytropeArgs),
+    /// Oscillation modes (radial, p, f, g) of a polytrope, dimensionless.
+    #[command(allow_negative_numbers = true)]
+    Modes(modes::ModesArgs),
     /// Evaluate every physics law at one density and temperature.
     Probe(probe::ProbeArgs),
     /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
@@ -63,6 +67,7 @@ pub fn run(cli: Cli) -> Result<()> {
         Command::Compare(args) => compare::run(*args),
         Command::Merge(args) => sequence::run_merge(args),
         Command::Plot(args) => plot::run(args),
+        Command::Modes(args) => modes::run(args),
         Command::Probe(args) => probe::run(args),
         Command::Verify(args) => verify::run(args),
     }

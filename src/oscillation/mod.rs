@@ -59,5 +59,6 @@ pub use polytropic::PolytropicModel;
 pub use search::{find_eigenvalues, find_modes, OscillationSettings};
 pub use spectrum::{
     dynamical_frequency_hz, large_separation_near, small_separation_near, Mode, ModeKind,
+    SeismicSummary,
 };
 pub use tabulated::{DimensionlessArrays, PhysicalArrays, TabulatedModel};

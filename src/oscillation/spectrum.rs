@@ -5,7 +5,9 @@
 //! nu = nu~ sqrt(G M/R^3), with G M = (M/M_sun) G M_sun (IAU 2015 B3 nominal GM_sun) and
 //! R = (R/R_sun) R_sun (nominal).
 
+use super::asymptotic::asymptotic_values;
 use super::eigenfunction::Eigenfunction;
+use super::equilibrium::Equilibrium;
 use crate::constants::{GM_SUN_CGS, R_SUN_CM};
 use std::f64::consts::PI;
 
@@ -134,4 +136,40 @@ fn nearest_radial(modes: &[Mode], around: f64) -> Option<&Mode> {
             .abs()
             .total_cmp(&(b.cyclic_frequency() - around).abs())
     })
+}
+
+/// The seismic quantities of a model and its modes, dimensionless (module documentation).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SeismicSummary {
+    /// Asymptotic large separation Delta nu sqrt(R^3/(G M)) = (2 int dx/c~)^-1.
+    pub large_separation_asymptotic: f64,
+    /// Large separation from the radial modes around `around` ([`large_separation_near`] with a
+    /// half-width of [`SEPARATION_HALF_WIDTH`] orders); `None` without two radial modes.
+    pub large_separation_radial: Option<f64>,
+    /// d02 = nu~(n, 0) - nu~(n-1, 2) at the radial mode nearest `around`; `None` if either mode
+    /// is missing.
+    pub small_separation_d02: Option<f64>,
+    /// Asymptotic g-mode period spacing Pi_0 sqrt(G M/R^3); `None` without a g-mode cavity.
+    pub period_spacing_asymptotic: Option<f64>,
+    /// The cyclic frequency nu~ around which the separations are measured.
+    pub around: Option<f64>,
+}
+
+/// Half-width, in radial orders, of the window of [`SeismicSummary::large_separation_radial`].
+pub const SEPARATION_HALF_WIDTH: u32 = 3;
+
+impl SeismicSummary {
+    /// The summary of `model` and its `modes`, with the separations measured around the cyclic
+    /// frequency `around` (nu~); without `around` only the asymptotic quantities are given.
+    pub fn new(model: &dyn Equilibrium, modes: &[Mode], around: Option<f64>) -> Self {
+        let asymptotic = asymptotic_values(model);
+        Self {
+            large_separation_asymptotic: asymptotic.large_separation,
+            large_separation_radial: around
+                .and_then(|f| large_separation_near(modes, f, SEPARATION_HALF_WIDTH)),
+            small_separation_d02: around.and_then(|f| small_separation_near(modes, f)),
+            period_spacing_asymptotic: asymptotic.period_spacing(),
+            around,
+        }
+    }
 }

@@ -2,6 +2,7 @@
 
 pub mod atomic;
 pub mod compare;
+pub mod modes;
 pub mod plot;
 pub mod polytrope;
 pub mod probe;

@@ -30,7 +30,7 @@ use std::f64::consts::PI;
 /// Default largest phase of the oscillatory solutions across one collocation step, radians.
 pub const DEFAULT_PHASE_PER_STEP: f64 = 0.3;
 /// Largest growth (e-folds) of the non-oscillatory solutions across one step, per radian of
-/// the phase limit: 5, i.e. one e-fold per step at the default phase of 0.2 rad, so that
+/// the phase limit: 5, i.e. 1.5 e-folds per step at the default phase of 0.3 rad, so that
 /// halving the phase per step halves both limits.
 const GROWTH_PER_PHASE: f64 = 5.0;
 /// Default fitting point x = r/R.

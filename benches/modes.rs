@@ -15,7 +15,11 @@ fn modes(c: &mut Criterion) {
     group.bench_function("n3_polytrope_l0-3_order25", |b| {
         b.iter(|| {
             (0..=3)
-                .map(|l| find_modes(black_box(&model), l, 25, &oscillation).unwrap().len())
+                .map(|l| {
+                    find_modes(black_box(&model), l, 25, &oscillation)
+                        .unwrap()
+                        .len()
+                })
                 .sum::<usize>()
         })
     });

@@ -16,17 +16,40 @@ fn modes(args: &[&str]) -> std::process::Output {
 
 #[test]
 fn json_report_has_the_documented_keys() {
-    let out = modes(&["--polytrope", "3", "--degrees", "0,2", "--max-order", "4", "--format", "json"]);
+    let out = modes(&[
+        "--polytrope",
+        "3",
+        "--degrees",
+        "0,2",
+        "--max-order",
+        "4",
+        "--format",
+        "json",
+    ]);
     assert!(out.status.success(), "{}", stderr(&out));
     let v = json(&out);
-    for key in ["model", "polytropic_index", "gamma1", "degrees", "max_order", "cowling"] {
+    for key in [
+        "model",
+        "polytropic_index",
+        "gamma1",
+        "degrees",
+        "max_order",
+        "cowling",
+    ] {
         assert!(!v["meta"][key].is_null(), "meta.{key} missing: {v}");
     }
     let list = v["modes"].as_array().unwrap();
     // Radial orders 1-4, l = 2 from g4 to p4 (nine modes).
     assert_eq!(list.len(), 4 + 9);
     for m in list {
-        for key in ["degree", "order", "kind", "sigma", "sigma_squared", "inertia"] {
+        for key in [
+            "degree",
+            "order",
+            "kind",
+            "sigma",
+            "sigma_squared",
+            "inertia",
+        ] {
             assert!(!m[key].is_null(), "{key} missing: {m}");
         }
     }
@@ -35,7 +58,10 @@ fn json_report_has_the_documented_keys() {
     assert!((w - 9.25471).abs() <= 1e-5, "{w}");
     assert!((list[0]["sigma"].as_f64().unwrap() - w.sqrt()).abs() < 1e-12);
     assert_eq!(list[0]["kind"], "p");
-    let kinds: Vec<&str> = list[4..].iter().map(|m| m["kind"].as_str().unwrap()).collect();
+    let kinds: Vec<&str> = list[4..]
+        .iter()
+        .map(|m| m["kind"].as_str().unwrap())
+        .collect();
     assert_eq!(kinds, ["g", "g", "g", "g", "f", "p", "p", "p", "p"]);
     // docs/references.md §8.6: Delta nu sqrt(R^3/GM) = 0.1970 for n = 3.
     let dnu = v["large_separation_asymptotic"].as_f64().unwrap();
@@ -117,7 +143,16 @@ fn bad_input_exits_2_and_touches_no_file() {
         assert!(stderr(&out).contains(message), "{args:?}: {}", stderr(&out));
         assert_eq!(std::fs::read_to_string(&path).unwrap(), "untouched");
     }
-    let out = modes(&["--polytrope", "3", "--eigenfunctions", dir.to_str().unwrap()]);
+    let out = modes(&[
+        "--polytrope",
+        "3",
+        "--eigenfunctions",
+        dir.to_str().unwrap(),
+    ]);
     assert_eq!(out.status.code(), Some(2));
-    assert!(stderr(&out).contains("--eigenfunctions"), "{}", stderr(&out));
+    assert!(
+        stderr(&out).contains("--eigenfunctions"),
+        "{}",
+        stderr(&out)
+    );
 }

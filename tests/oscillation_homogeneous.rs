@@ -172,7 +172,10 @@ fn inertia_and_eigenfunctions_in_closed_form() {
         let p = pc * (-3.0 * g * (1.0 - x * x) + 2.0 * x * x);
         assert!((ef.p_prime[i] - p).abs() < INERTIA_TOLERANCE, "p' at {x}");
         let phi = 1.5 * (1.0 - x * x);
-        assert!((ef.phi_prime[i] - phi).abs() < INERTIA_TOLERANCE, "Phi' at {x}");
+        assert!(
+            (ef.phi_prime[i] - phi).abs() < INERTIA_TOLERANCE,
+            "Phi' at {x}"
+        );
     }
     for l in 2..=3u32 {
         let lf = f64::from(l);
@@ -183,10 +186,19 @@ fn inertia_and_eigenfunctions_in_closed_form() {
         for i in 0..ef.x.len() {
             let x = ef.x[i];
             let power = x.powi(l as i32 - 1);
-            assert!((ef.xi_r[i] - power).abs() < INERTIA_TOLERANCE, "xi_r at {x}");
-            assert!((ef.xi_h[i] - power / lf).abs() < INERTIA_TOLERANCE, "xi_h at {x}");
+            assert!(
+                (ef.xi_r[i] - power).abs() < INERTIA_TOLERANCE,
+                "xi_r at {x}"
+            );
+            assert!(
+                (ef.xi_h[i] - power / lf).abs() < INERTIA_TOLERANCE,
+                "xi_h at {x}"
+            );
             let phi = -3.0 / (2.0 * lf + 1.0) * x.powi(l as i32);
-            assert!((ef.phi_prime[i] - phi).abs() < INERTIA_TOLERANCE, "Phi' at {x}");
+            assert!(
+                (ef.phi_prime[i] - phi).abs() < INERTIA_TOLERANCE,
+                "Phi' at {x}"
+            );
         }
     }
 }

@@ -13,8 +13,11 @@ const POINTS: usize = 500;
 const MAX_ORDER: u32 = 25;
 
 fn model(n: f64, points: usize) -> PolytropicModel {
-    let solution =
-        solve_lane_emden(n, &LaneEmdenSettings::default().with_points(points).unwrap()).unwrap();
+    let solution = solve_lane_emden(
+        n,
+        &LaneEmdenSettings::default().with_points(points).unwrap(),
+    )
+    .unwrap();
     PolytropicModel::new(&solution, 5.0 / 3.0).unwrap()
 }
 
@@ -73,8 +76,13 @@ fn orders_are_complete() {
             };
             let expected: Vec<i32> = (lowest..=k).filter(|&o| !(o == 0 && l <= 1)).collect();
             assert_eq!(orders, expected, "n = {n}, l = {l}");
-            let increasing = found.windows(2).all(|p| p[1].sigma_squared > p[0].sigma_squared);
-            assert!(increasing, "n = {n}, l = {l}: frequencies not increasing with order");
+            let increasing = found
+                .windows(2)
+                .all(|p| p[1].sigma_squared > p[0].sigma_squared);
+            assert!(
+                increasing,
+                "n = {n}, l = {l}: frequencies not increasing with order"
+            );
         }
     }
 }
@@ -179,5 +187,11 @@ fn cowling_approximation() {
         let b = full.iter().find(|m| m.order == n).unwrap().sigma_squared;
         (a / b - 1.0).abs()
     };
-    assert!(error(15) < error(5) && error(5) < error(1), "{} {} {}", error(1), error(5), error(15));
+    assert!(
+        error(15) < error(5) && error(5) < error(1),
+        "{} {} {}",
+        error(1),
+        error(5),
+        error(15)
+    );
 }

@@ -21,8 +21,11 @@ const POINTS: usize = 1001;
 const KEPT: usize = 901;
 
 fn arrays() -> (PolytropicModel, TabulatedModel) {
-    let solution =
-        solve_lane_emden(N, &LaneEmdenSettings::default().with_points(POINTS).unwrap()).unwrap();
+    let solution = solve_lane_emden(
+        N,
+        &LaneEmdenSettings::default().with_points(POINTS).unwrap(),
+    )
+    .unwrap();
     let analytic = PolytropicModel::truncated(&solution, GAMMA1, KEPT).unwrap();
     let (rho_c, p_c) = (150.0, 2.3e17);
     let alpha = ((N + 1.0) * p_c / (4.0 * PI * G_CGS * rho_c * rho_c)).sqrt();

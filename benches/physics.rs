@@ -17,10 +17,10 @@ const POINTS: [(&str, f64, f64, f64, f64, f64); 5] = [
 ];
 
 fn one_point(set: &PhysicsSet, comp: &Composition, p: f64, t: f64, m: f64, r: f64, l: f64) -> f64 {
-    let s = set.eos.state_at_pressure(p, t, comp).unwrap();
+    let s = set.eos().state_at_pressure(p, t, comp).unwrap();
     let rho = s.density_g_cm3;
-    let kappa = set.opacity.kappa(rho, t, comp).unwrap();
-    let eps = set.rates.rate(rho, t, comp).unwrap().total_erg_g_s();
+    let kappa = set.opacity().kappa(rho, t, comp).unwrap();
+    let eps = set.rates().rate(rho, t, comp).unwrap().total_erg_g_s();
     let point = ConvectionPoint {
         nabla_rad: nabla_rad(kappa, l, p, m, t),
         nabla_ad: s.nabla_ad,
@@ -32,7 +32,7 @@ fn one_point(set: &PhysicsSet, comp: &Composition, p: f64, t: f64, m: f64, r: f6
         cp_erg_g_k: s.cp_erg_g_k,
         delta: s.delta,
     };
-    set.convection.nabla(&point).unwrap() + eps
+    set.convection().nabla(&point).unwrap() + eps
 }
 
 fn bench(c: &mut Criterion) {

@@ -4,12 +4,12 @@
 use criterion::{criterion_group, criterion_main, Criterion};
 use starpoise::grid::run::{solve_points, RunSettings};
 use starpoise::grid::{parse_value_list, Grid, Variant};
-use starpoise::physics::PhysicsOptions;
+use starpoise::physics::PhysicsOverrides;
 
 fn sequence_40(c: &mut Criterion) {
     let masses = parse_value_list("--masses", "0.1:100:40").expect("valid range");
     let grid = Grid::product(
-        &PhysicsOptions::default(),
+        &PhysicsOverrides::default(),
         vec![Variant::base()],
         &masses,
         &[0.70],

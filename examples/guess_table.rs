@@ -2,11 +2,11 @@
 //! refined ZAMS models at X = 0.70, Z = 0.02, solved by continuation along the mass axis, printed
 //! as Rust source. Run: `cargo run --release --example guess_table`.
 
-use starpoise::physics::{Composition, PhysicsOptions};
+use starpoise::physics::{Composition, PhysicsSet};
 use starpoise::structure::{guess, solve, ZamsSettings};
 
 fn main() -> Result<(), Box<dyn std::error::Error>> {
-    let physics = PhysicsOptions::default().build()?;
+    let physics = PhysicsSet::refined();
     let comp = Composition::new(0.70, 0.02)?;
     let masses = [
         0.08, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.5, 0.7, 1.0, 1.2, 1.35, 1.5, 1.7, 2.0, 3.0,

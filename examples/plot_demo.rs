@@ -6,12 +6,13 @@
 //!
 //! `cargo run --release --example plot_demo -- DIR --solved` also solves ZAMS models with the
 //! library (default physics set, X = 0.70 with Z = 0.02 and Z = 0.004) and draws
-//! `DIR/zams-hr.svg` and `DIR/zams-profile-1.svg`, `DIR/zams-profile-5.svg`.
+//! `DIR/zams-hr.png` and the profiles of 1 and 5 M_sun against each abscissa,
+//! `DIR/zams-profile-M-ABSCISSA.png` (PNG, the format following the extension).
 
-use starpoise::output::plot::{hr_diagram, profile_plot, HrPoint, HrSeries};
-use starpoise::output::zams::ProfileRow;
-use starpoise::physics::{Composition, PhysicsOptions};
-use starpoise::structure::{solve_detailed, ZamsOutcome, ZamsSettings};
+use starpoise::output::plot::{hr_diagram, profile_plot, Abscissa, HrPoint, HrSeries};
+use starpoise::physics::{Composition, PhysicsSet};
+use starpoise::structure::ProfileRow;
+use starpoise::structure::{solve, ZamsSettings};
 use std::f64::consts::PI;
 use std::path::Path;
 
@@ -84,7 +85,7 @@ fn polytrope_profile(n: usize) -> Vec<ProfileRow> {
 }
 
 fn solved(dir: &Path) -> Result<(), Box<dyn std::error::Error>> {
-    let physics = PhysicsOptions::default().build()?;
+    let physics = PhysicsSet::refined();
     let masses = [
         0.3, 0.5, 0.7, 1.0, 1.5, 2.0, 3.0, 5.0, 7.0, 10.0, 15.0, 20.0, 30.0, 50.0,
     ];
@@ -95,28 +96,33 @@ fn solved(dir: &Path) -> Result<(), Box<dyn std::error::Error>> {
         let mut points = Vec::new();
         for &m in &masses {
             let settings = ZamsSettings::new(m, comp, physics.clone())?;
-            let ZamsOutcome::Converged(model) = solve_detailed(&settings)? else {
-                eprintln!("{label}: {m} M_sun did not converge");
-                continue;
+            let model = match solve(&settings) {
+                Ok(model) => model,
+                Err(e) => {
+                    eprintln!("{label}: {e}");
+                    continue;
+                }
             };
             let s = &model.summary;
-            if let (Some(teff_k), Some(luminosity_lsun)) = (s.teff_k, s.luminosity_lsun) {
-                points.push(HrPoint {
-                    mass_msun: m,
-                    teff_k,
-                    luminosity_lsun,
-                });
-            }
+            points.push(HrPoint {
+                mass_msun: m,
+                teff_k: s.teff_k,
+                luminosity_lsun: s.luminosity_lsun,
+            });
             if z == 0.02 && (m == 1.0 || m == 5.0) {
-                let file = dir.join(format!("zams-profile-{m}.svg"));
-                profile_plot(&file, &model.profile, &format!("ZAMS {m} M_sun, {label}"))?;
-                println!("{}", file.display());
+                let rows = model.profile(400)?;
+                for abscissa in Abscissa::ALL {
+                    let file = dir.join(format!("zams-profile-{m}-{abscissa}.png"));
+                    let title = format!("ZAMS {m} M_sun, {label}");
+                    profile_plot(&file, &rows, &title, abscissa)?;
+                    println!("{}", file.display());
+                }
             }
         }
         series.push(HrSeries { label, points });
     }
-    let file = dir.join("zams-hr.svg");
-    hr_diagram(&file, &series, "ZAMS, analytic physics")?;
+    let file = dir.join("zams-hr.png");
+    hr_diagram(&file, &series, "ZAMS, refined physics")?;
     println!("{}", file.display());
     Ok(())
 }
@@ -141,6 +147,7 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
         &file,
         &polytrope_profile(301),
         "Demo profile (n = 1 polytrope shape)",
+        Abscissa::Radius,
     )?;
     println!("{}", file.display());
     if args.next().as_deref() == Some("--solved") {

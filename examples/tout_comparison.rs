@@ -3,7 +3,7 @@
 //! an opacity law name and an alpha, e.g.
 //! `cargo run --release --example tout_comparison -- refined:guillotine=2,exponent=0.4 1.8`.
 
-use starpoise::physics::{Composition, PhysicsOptions};
+use starpoise::physics::{Composition, PhysicsOverrides, PhysicsSet};
 use starpoise::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
 use starpoise::structure::{solve, ZamsSettings};
 
@@ -11,12 +11,14 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     let mut args = std::env::args().skip(1);
     let opacity = args.next();
     let alpha = args.next().map(|a| a.parse::<f64>()).transpose()?;
-    let physics = PhysicsOptions {
-        opacity,
-        alpha,
-        ..Default::default()
-    }
-    .build()?;
+    let physics = PhysicsSet::from_spec(
+        &PhysicsOverrides {
+            opacity: opacity.map(|o| o.parse()).transpose()?,
+            alpha,
+            ..Default::default()
+        }
+        .resolve()?,
+    )?;
     let comp = Composition::new(0.70, 0.02)?;
     println!(
         "{:>8} {:>11} {:>9} {:>9} {:>9}",
@@ -28,8 +30,8 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     ] {
         match solve(&ZamsSettings::new(m, comp, physics.clone())?) {
             Ok(model) => {
-                let l = model.summary.luminosity_lsun.unwrap_or(f64::NAN);
-                let r = model.summary.radius_rsun.unwrap_or(f64::NAN);
+                let l = model.summary.luminosity_lsun;
+                let r = model.summary.radius_rsun;
                 let dl = (l / tout1996_luminosity_lsun(m)).log10();
                 let dr = (r / tout1996_radius_rsun(m)).log10();
                 if (0.5..=50.0).contains(&m) {

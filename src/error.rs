@@ -1,9 +1,14 @@
-//! Errors, layered by module and joined upward.
+//! Errors, layered by module and joined upward, each carrying the numbers needed to diagnose it.
 //!
-//! A law that is asked outside its domain returns a [`PhysicsError`] carrying the point it was
-//! asked at; the structure integrator wraps it with where along a leg it happened; the shooting
-//! driver reports a non-converged model with its history. The command line maps every variant to
-//! an exit code through [`Error::exit_code`].
+//! - [`PhysicsError`]: a law asked at a point it cannot describe (law, rho, T, what failed);
+//! - [`crate::structure::LegError`]: an integration leg that failed (which leg, where in x and in
+//!   mass, the physics error or the integrator's reason);
+//! - [`crate::structure::NotConverged`]: the shooting iteration stopped without converging (the
+//!   termination reason, iterations, mismatch, history);
+//! - [`Error`]: what the library returns, with its process exit code ([`ExitCode`]).
+//!
+//! Library errors name model-file keys (`mass_msun`, `opacity`), never command-line flags: the
+//! command line maps keys to its flags.
 
 use thiserror::Error;
 
@@ -15,7 +20,8 @@ pub struct PhysicsError {
     pub law: String,
     /// What went wrong, in words.
     pub reason: String,
-    /// Density at which the law was evaluated, g cm^-3.
+    /// Density at which the law was evaluated, g cm^-3 (NaN where not yet known, e.g. during
+    /// the inversion rho(P, T)).
     pub rho_g_cm3: f64,
     /// Temperature at which the law was evaluated, K.
     pub temperature_k: f64,
@@ -33,13 +39,29 @@ impl PhysicsError {
     }
 }
 
+/// Process exit codes of the command line, one per class of outcome.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[repr(i32)]
+pub enum ExitCode {
+    /// Success.
+    Success = 0,
+    /// Any other failure (including a failed `verify`).
+    Failure = 1,
+    /// Bad input: the message names the value and what is allowed; no file is written.
+    BadInput = 2,
+    /// A model did not converge (or some models of a grid did not).
+    NotConverged = 3,
+}
+
 /// Every failure the library reports.
-#[derive(Debug, Error)]
+#[derive(Debug, Clone, Error)]
+#[non_exhaustive]
 pub enum Error {
-    /// A value given by the user is not allowed. `name` is the flag or key, `allowed` says what is.
+    /// A value given by the user is not allowed. `name` is the model-file key (or the name of the
+    /// argument), `allowed` says what is.
     #[error("invalid {name} = {value}: {allowed}")]
     InvalidInput {
-        /// The flag or field, e.g. `--index`.
+        /// The key, e.g. `mass_msun`.
         name: String,
         /// The value as given.
         value: String,
@@ -57,28 +79,24 @@ pub enum Error {
     /// A law failed at a point.
     #[error(transparent)]
     Physics(#[from] PhysicsError),
-    /// The ODE integrator failed along a leg.
-    #[error("integration failed on the {leg} leg at m = {mass_g:.6e} g: {reason}")]
+    /// An integration leg of the structure solver failed.
+    #[error(transparent)]
+    Leg(#[from] crate::structure::LegError),
+    /// Another integration failed (Lane–Emden).
+    #[error("integration failed ({what}) at {variable} = {at:.6e}: {reason}")]
     Integration {
-        /// Which leg: "outward", "inward", "atmosphere", "lane-emden".
-        leg: &'static str,
-        /// Mass coordinate (or independent variable) where it failed.
-        mass_g: f64,
+        /// Which integration.
+        what: &'static str,
+        /// Name of the independent variable.
+        variable: &'static str,
+        /// Its value where the integration failed.
+        at: f64,
         /// The cause.
         reason: String,
     },
-    /// The Newton iteration on the fitting-point mismatch did not converge.
-    #[error(
-        "no convergence after {iterations} iterations (mismatch norm {residual:.3e}): {reason}"
-    )]
-    NoConvergence {
-        /// Iterations done.
-        iterations: usize,
-        /// Final mismatch norm.
-        residual: f64,
-        /// Why it stopped.
-        reason: String,
-    },
+    /// The shooting iteration for a model did not converge.
+    #[error(transparent)]
+    NoConvergence(#[from] Box<crate::structure::NotConverged>),
     /// The search for oscillation modes of one degree failed: a mode could not be converged,
     /// classified, or the orders asked for could not all be found.
     #[error("mode search for degree {degree}: {reason}")]
@@ -102,7 +120,7 @@ pub enum Error {
         /// How many checks failed.
         failed: usize,
     },
-    /// Writing an output file failed.
+    /// Writing an output failed.
     #[error("cannot write {path}: {reason}")]
     Io {
         /// The file.
@@ -122,13 +140,14 @@ impl Error {
         }
     }
 
-    /// The process exit code for this error: 2 for bad input, 3 for a model that did not
-    /// converge or a mode search that failed, 1 for anything else.
-    pub fn exit_code(&self) -> i32 {
+    /// The process exit code for this error.
+    pub fn exit_code(&self) -> ExitCode {
         match self {
-            Error::InvalidInput { .. } | Error::BadFile { .. } => 2,
-            Error::NoConvergence { .. } | Error::Incomplete { .. } | Error::ModeSearch { .. } => 3,
-            _ => 1,
+            Error::InvalidInput { .. } | Error::BadFile { .. } => ExitCode::BadInput,
+            Error::NoConvergence(_) | Error::Incomplete { .. } | Error::ModeSearch { .. } => {
+                ExitCode::NotConverged
+            }
+            _ => ExitCode::Failure,
         }
     }
 }

@@ -8,6 +8,6 @@ fn main() {
     let args = cli::Cli::parse();
     if let Err(e) = cli::run(args) {
         eprintln!("starpoise: error: {e}");
-        std::process::exit(e.exit_code());
+        std::process::exit(e.exit_code() as i32);
     }
 }

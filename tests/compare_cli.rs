@@ -212,7 +212,9 @@ fn writes_csv_and_json() {
     let text = std::fs::read_to_string(&csv).unwrap();
     let mut lines = text.lines();
     let header = lines.next().unwrap_or("");
-    assert!(header.starts_with("mass_msun,x,z,variant,spec,reference,status,luminosity_lsun"));
+    assert!(
+        header.starts_with("mass_msun,x,z,variant,spec,reference,status,reason,luminosity_lsun")
+    );
     assert!(header.contains("sensitivity_central_density"));
     assert_eq!(lines.count(), 4);
     let js = dir.join("cmp.json");

@@ -29,6 +29,10 @@ fn json_report_has_the_documented_keys() {
     assert!(out.status.success(), "{}", stderr(&out));
     let v = json(&out);
     for key in [
+        "program",
+        "version",
+        "command",
+        "constants",
         "model",
         "polytropic_index",
         "gamma1",
@@ -105,7 +109,9 @@ fn eigenfunctions_are_written() {
     ]);
     assert!(out.status.success(), "{}", stderr(&out));
     let text = std::fs::read_to_string(&path).unwrap();
-    let mut lines = text.lines();
+    // The provenance comes first, as `# key: value` lines (output::meta).
+    assert!(text.starts_with("# program: starpoise"), "{text}");
+    let mut lines = text.lines().skip_while(|l| l.starts_with('#'));
     assert_eq!(
         lines.next(),
         Some("degree,order,x,xi_r,xi_h,p_prime,phi_prime")

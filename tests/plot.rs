@@ -1,15 +1,20 @@
-//! Figures: the HR diagram and the profile figure are valid SVG with the promised labels,
-//! temperature increases to the left, bad input leaves no file, and saved tables read back.
+//! Figures: the HR diagram and the profile figure are valid SVG or PNG (by extension) with the
+//! promised labels, temperature increases to the left, the Sun is marked, labels collide with
+//! nothing, the profile takes three abscissae, bad input leaves no file, and saved tables read
+//! back.
 //!
 //! All data here is invented demo data built in the tests (power laws, an n = 1 polytrope
 //! shape); no number is a physical result, so no published source applies. What is checked is
-//! the drawing, not the physics.
+//! the drawing, not the physics; the Sun's place is the IAU 2015 B3 nominal T_eff = 5772 K and
+//! L = 1 L_sun (docs/references.md §2).
 
 use starpoise::output::plot::{
-    format_mass, hr_diagram, profile_plot, read_table, render_hr_diagram, render_profile, HrPoint,
-    HrSeries, PlotInput, MAX_MASS_LABELS, NABLA_AXIS_CAP,
+    format_mass, hr_diagram, profile_plot, read_table, render_hr_diagram, render_profile, Abscissa,
+    HrFigure, HrLayout, HrPoint, HrSeries, ImageFormat, PlacedLabel, PlotInput, ProfileFigure,
+    HR_HEIGHT_PX, HR_WIDTH_PX, MAX_MASS_LABELS, NABLA_AXIS_CAP, PROFILE_HEIGHT_PX,
+    PROFILE_WIDTH_PX, SUN_LABEL,
 };
-use starpoise::output::zams::ProfileRow;
+use starpoise::structure::ProfileRow;
 use starpoise::Error;
 use std::f64::consts::PI;
 use std::path::PathBuf;
@@ -50,9 +55,9 @@ fn demo_series() -> Vec<HrSeries> {
 }
 
 /// Invented profile on the n = 1 polytrope theta = sin(xi)/xi: rho/rho_c = theta,
-/// P/P_c = theta^2, T/T_c = theta, m/M = (sin xi - xi cos xi)/pi, L/L_s = m/M; a made-up
-/// nabla_rad that exceeds nabla_ad = 0.4 inside r/R = 0.15 and outside r/R = 0.85 and grows to
-/// 5 at the surface.
+/// P/P_c = theta^2 + 1e-13 (so that log P stays finite at the surface, where P = 1e4 dyn/cm^2),
+/// T/T_c = theta, m/M = (sin xi - xi cos xi)/pi, L/L_s = m/M; a made-up nabla_rad that exceeds
+/// nabla_ad = 0.4 inside r/R = 0.15 and outside r/R = 0.85 and grows to 5 at the surface.
 fn polytrope_rows(n: usize) -> Vec<ProfileRow> {
     (0..n)
         .map(|i| {
@@ -76,7 +81,7 @@ fn polytrope_rows(n: usize) -> Vec<ProfileRow> {
                 m_over_m: m,
                 radius_cm: x * 7e10,
                 r_over_r: x,
-                pressure_dyn_cm2: 1e17 * theta * theta,
+                pressure_dyn_cm2: 1e17 * theta * theta + 1e4,
                 temperature_k: 1.5e7 * theta,
                 density_g_cm3: 100.0 * theta,
                 luminosity_erg_s: 4e33 * m,
@@ -130,36 +135,90 @@ fn circles(svg: &str, fill: &str) -> Vec<(i32, i32)> {
         .collect()
 }
 
+/// The SVG document of a figure rendered as SVG.
+fn svg_of(image: &[u8]) -> String {
+    let svg = String::from_utf8(image.to_vec()).unwrap();
+    assert!(svg.starts_with("<svg"), "not SVG");
+    svg
+}
+
+fn svg_hr(series: &[HrSeries], title: &str) -> (HrFigure, String) {
+    let figure = render_hr_diagram(series, title, ImageFormat::Svg).unwrap();
+    let svg = svg_of(&figure.image);
+    (figure, svg)
+}
+
+fn svg_profile(rows: &[ProfileRow], title: &str, abscissa: Abscissa) -> (ProfileFigure, String) {
+    let figure = render_profile(rows, title, abscissa, ImageFormat::Svg).unwrap();
+    let svg = svg_of(&figure.image);
+    (figure, svg)
+}
+
+/// The eight bytes every PNG file starts with (PNG specification, ISO/IEC 15948, §5.2).
+const PNG_SIGNATURE: [u8; 8] = [0x89, b'P', b'N', b'G', b'\r', b'\n', 0x1a, b'\n'];
+
+/// Decode a PNG into (width, height, RGB bytes), checking the signature first.
+fn decode_png(bytes: &[u8]) -> (u32, u32, Vec<u8>) {
+    assert_eq!(bytes[..8], PNG_SIGNATURE, "no PNG signature");
+    // The first chunk is IHDR with width and height, big-endian (ISO/IEC 15948, §11.2.2).
+    assert_eq!(&bytes[12..16], b"IHDR");
+    let width = u32::from_be_bytes(bytes[16..20].try_into().unwrap());
+    let height = u32::from_be_bytes(bytes[20..24].try_into().unwrap());
+    let decoder = png::Decoder::new(std::io::Cursor::new(bytes.to_vec()));
+    let mut reader = decoder.read_info().unwrap();
+    let mut buffer = vec![0; reader.output_buffer_size().unwrap()];
+    let info = reader.next_frame(&mut buffer).unwrap();
+    assert_eq!((info.width, info.height), (width, height));
+    assert_eq!(info.color_type, png::ColorType::Rgb);
+    buffer.truncate(info.buffer_size());
+    (width, height, buffer)
+}
+
+/// RGB of pixel (x, y) of a decoded image `width` pixels wide.
+fn pixel(rgb: &[u8], width: u32, (x, y): (i32, i32)) -> [u8; 3] {
+    let i = 3 * (y as usize * width as usize + x as usize);
+    [rgb[i], rgb[i + 1], rgb[i + 2]]
+}
+
 #[test]
 fn hr_diagram_has_labels_legend_and_masses() {
-    let figure = render_hr_diagram(&demo_series(), "Demo").unwrap();
-    assert!(figure.svg.starts_with("<svg"));
-    assert!(figure.svg.trim_end().ends_with("</svg>"));
-    let texts = svg_texts(&figure.svg);
+    let (figure, svg) = svg_hr(&demo_series(), "Demo");
+    assert!(svg.trim_end().ends_with("</svg>"));
+    let texts = svg_texts(&svg);
     for wanted in [
         "Demo",
         "log10 T_eff / K",
         "log10 L / L_sun",
         "steep demo",
         "shallow demo",
+        SUN_LABEL,
     ] {
         assert!(texts.iter().any(|t| t == wanted), "no text '{wanted}'");
     }
-    for mass in ["0.5", "1", "2", "5", "10", "20"] {
-        let count = texts.iter().filter(|t| *t == mass).count();
+    // Every mass of the first series is labelled; the round ones of the second too (others
+    // may give way to the first series' labels).
+    assert_eq!(
+        figure.layout.mass_labels[0],
+        ["0.5", "1", "2", "5", "10", "20"]
+    );
+    for mass in ["1", "10"] {
         assert!(
-            count >= 2,
-            "mass label {mass} appears {count} times, want one per series"
+            figure.layout.mass_labels[1].iter().any(|l| l == mass),
+            "{mass} missing: {:?}",
+            figure.layout.mass_labels[1]
         );
     }
-    assert_eq!(figure.mass_labels[0], ["0.5", "1", "2", "5", "10", "20"]);
+    // What the layout lists is what the file says.
+    for label in &figure.layout.labels {
+        assert!(texts.contains(&label.text), "{} not in the SVG", label.text);
+    }
 }
 
 #[test]
 fn hr_temperature_increases_to_the_left_and_luminosity_upwards() {
     let series = demo_series();
-    let figure = render_hr_diagram(&series, "").unwrap();
-    for (s, px) in series.iter().zip(&figure.points_px) {
+    let (figure, svg) = svg_hr(&series, "");
+    for (s, px) in series.iter().zip(&figure.layout.points_px) {
         let hottest = (0..s.points.len())
             .max_by(|&a, &b| s.points[a].teff_k.total_cmp(&s.points[b].teff_k))
             .unwrap();
@@ -176,8 +235,8 @@ fn hr_temperature_increases_to_the_left_and_luminosity_upwards() {
         assert!(px[hottest].1 < px[coolest].1);
     }
     // The reported positions are where the first series' filled black circles were drawn.
-    let drawn = circles(&figure.svg, "#000000");
-    for p in &figure.points_px[0] {
+    let drawn = circles(&svg, "#000000");
+    for p in &figure.layout.points_px[0] {
         assert!(drawn.contains(p), "no circle at {p:?}; circles: {drawn:?}");
     }
 }
@@ -187,8 +246,8 @@ fn crowded_series_is_thinned_to_round_masses() {
     let masses: Vec<f64> = (0..40)
         .map(|i| 10f64.powf(-1.0 + 3.0 * i as f64 / 39.0))
         .collect();
-    let figure = render_hr_diagram(&[power_law("dense", &masses, 3.5, 0.8)], "").unwrap();
-    let labels = &figure.mass_labels[0];
+    let (figure, _) = svg_hr(&[power_law("dense", &masses, 3.5, 0.8)], "");
+    let labels = &figure.layout.mass_labels[0];
     assert!(labels.len() <= MAX_MASS_LABELS, "{labels:?}");
     for round in ["0.1", "1", "10", "100"] {
         assert!(
@@ -232,7 +291,7 @@ fn hr_file_is_written_and_bad_input_leaves_none() {
         let path = dir.join(format!("{name}.svg"));
         let err = hr_diagram(&path, &series, "x").unwrap_err();
         assert!(matches!(err, Error::InvalidInput { .. }), "{name}: {err}");
-        assert_eq!(err.exit_code(), 2);
+        assert_eq!(err.exit_code(), starpoise::error::ExitCode::BadInput);
         assert!(!path.exists(), "{name}: file written");
     }
     let err = hr_diagram(
@@ -256,9 +315,8 @@ fn hr_file_is_written_and_bad_input_leaves_none() {
 #[test]
 fn profile_figure_has_both_panels_and_shading() {
     let rows = polytrope_rows(201);
-    let figure = render_profile(&rows, "Demo profile").unwrap();
-    assert!(figure.svg.starts_with("<svg"));
-    let texts = svg_texts(&figure.svg);
+    let (figure, svg) = svg_profile(&rows, "Demo profile", Abscissa::Radius);
+    let texts = svg_texts(&svg);
     for wanted in [
         "Demo profile",
         "r / R",
@@ -276,6 +334,7 @@ fn profile_figure_has_both_panels_and_shading() {
         assert!(texts.iter().any(|t| t == wanted), "no text '{wanted}'");
     }
     // nabla_rad reaches 5, so the axis stops at the cap and says so.
+    let figure = figure.layout;
     assert!(figure.nabla_clipped);
     assert_eq!(figure.nabla_axis_top, NABLA_AXIS_CAP);
     assert!(texts.iter().any(|t| t.contains("cut at 1")), "{texts:?}");
@@ -288,7 +347,7 @@ fn profile_figure_has_both_panels_and_shading() {
     assert!((envelope.0 - 0.85).abs() <= 0.005, "{envelope:?}");
     assert_eq!(envelope.1, 1.0);
     // Each band is shaded in both panels.
-    let shaded = figure.svg.matches("fill=\"#DEDEDE\"").count();
+    let shaded = svg.matches("fill=\"#DEDEDE\"").count();
     assert!(shaded >= 4, "{shaded} shaded rectangles");
 }
 
@@ -300,19 +359,19 @@ fn profile_without_large_gradient_is_not_cut() {
         r.nabla = 0.3;
         r.convective = 0;
     }
-    let figure = render_profile(&rows, "").unwrap();
-    assert!(!figure.nabla_clipped);
+    let (figure, svg) = svg_profile(&rows, "", Abscissa::Radius);
+    assert!(!figure.layout.nabla_clipped);
     // Axis top 8 % above the largest gradient, nabla_ad = 0.4; tolerance for rounding only.
-    assert!((figure.nabla_axis_top - 0.432).abs() < 1e-12);
-    assert!(figure.convective_bands.is_empty());
-    assert!(!svg_texts(&figure.svg).iter().any(|t| t == "convective"));
+    assert!((figure.layout.nabla_axis_top - 0.432).abs() < 1e-12);
+    assert!(figure.layout.convective_bands.is_empty());
+    assert!(!svg_texts(&svg).iter().any(|t| t == "convective"));
 }
 
 #[test]
 fn profile_file_is_written_and_bad_input_leaves_none() {
     let dir = scratch("profile");
     let good = dir.join("profile.svg");
-    profile_plot(&good, &polytrope_rows(101), "").unwrap();
+    profile_plot(&good, &polytrope_rows(101), "", Abscissa::Radius).unwrap();
     assert!(std::fs::read_to_string(&good).unwrap().starts_with("<svg"));
 
     let one_row = polytrope_rows(2)[..1].to_vec();
@@ -320,14 +379,17 @@ fn profile_file_is_written_and_bad_input_leaves_none() {
     cold[0].temperature_k = 0.0;
     let mut nan = polytrope_rows(11);
     nan[4].density_g_cm3 = f64::NAN;
-    for (name, rows) in [
-        ("empty", vec![]),
-        ("one", one_row),
-        ("cold", cold),
-        ("nan", nan),
+    let mut vacuum = polytrope_rows(11);
+    vacuum[10].pressure_dyn_cm2 = 0.0;
+    for (name, rows, abscissa) in [
+        ("empty", vec![], Abscissa::Radius),
+        ("one", one_row, Abscissa::Mass),
+        ("cold", cold, Abscissa::Radius),
+        ("nan", nan, Abscissa::Pressure),
+        ("vacuum", vacuum, Abscissa::Pressure),
     ] {
-        let path = dir.join(format!("{name}.svg"));
-        let err = profile_plot(&path, &rows, "").unwrap_err();
+        let path = dir.join(format!("{name}.png"));
+        let err = profile_plot(&path, &rows, "", abscissa).unwrap_err();
         assert!(matches!(err, Error::InvalidInput { .. }), "{name}: {err}");
         assert!(!path.exists(), "{name}: file written");
     }
@@ -454,7 +516,7 @@ fn bad_tables_name_file_and_line() {
         assert!(reason.contains(wanted), "{name}: {reason}");
     }
     // A profile row that does not parse.
-    let mut text = starpoise::output::zams::PROFILE_COLUMNS.join(",");
+    let mut text = starpoise::structure::PROFILE_COLUMNS.join(",");
     text.push('\n');
     text.push_str(&["1"; 20].join(","));
     text.push('\n');
@@ -495,6 +557,340 @@ fn overlapping_mass_labels_are_left_out() {
             },
         ],
     };
-    let figure = render_hr_diagram(&[series], "").unwrap();
-    assert_eq!(figure.mass_labels[0], ["1", "10"]);
+    let (figure, _) = svg_hr(&[series], "");
+    assert_eq!(figure.layout.mass_labels[0], ["1", "10"]);
+}
+
+/// An invented ZAMS-like sequence from 0.1 to 100 M_sun, `count` masses log-spaced (the
+/// decades 0.1, 1, 10 and 100 among them when count - 1 is a multiple of 3): L = M^4 below
+/// 1 M_sun and M^3 above, R = M^0.8, scaled by `l_scale`.
+fn zams_like(label: &str, count: usize, l_scale: f64) -> HrSeries {
+    HrSeries {
+        label: label.to_string(),
+        points: (0..count)
+            .map(|i| {
+                let m = 10f64.powf(-1.0 + 3.0 * i as f64 / (count - 1) as f64);
+                let l = l_scale * if m < 1.0 { m.powi(4) } else { m.powi(3) };
+                let r = m.powf(0.8);
+                HrPoint {
+                    mass_msun: m,
+                    teff_k: 5772.0 * (l / (r * r)).powf(0.25),
+                    luminosity_lsun: l,
+                }
+            })
+            .collect(),
+    }
+}
+
+/// Every label lies inside the plotting area, overlaps no marker (the Sun's included), no
+/// other label and not the legend, and sits within the outer ring of places around what it
+/// names (12 px gap, see `placement.rs`).
+fn assert_labels_collide_with_nothing(figure: &HrFigure) {
+    let layout = &figure.layout;
+    assert!(!layout.labels.is_empty());
+    for (i, label) in layout.labels.iter().enumerate() {
+        let b = label.placement.bbox;
+        assert!(
+            layout.plot_area_px.contains(&b),
+            "{} outside: {b:?}",
+            label.text
+        );
+        assert!(
+            !b.overlaps(&layout.legend_px),
+            "{} on the legend",
+            label.text
+        );
+        for m in &layout.markers_px {
+            assert!(!b.overlaps(m), "{} at {b:?} on marker {m:?}", label.text);
+        }
+        for other in &layout.labels[i + 1..] {
+            assert!(
+                !b.overlaps(&other.placement.bbox),
+                "{} and {} overlap",
+                label.text,
+                other.text
+            );
+        }
+        // Gap between the label box and the anchor's marker box (half-size 7 px).
+        let (x, y) = label.anchor_px;
+        let gap_x = (b.left - (x + 7)).max((x - 7) - b.right).max(0);
+        let gap_y = (b.top - (y + 7)).max((y - 7) - b.bottom).max(0);
+        assert!(
+            gap_x <= 12 && gap_y <= 12,
+            "{} is {gap_x}, {gap_y} px away",
+            label.text
+        );
+        // The box is the text's own size in the embedded font.
+        let (w, h) = starpoise::output::plot::text_box_px(&label.text, 17.0).unwrap();
+        assert_eq!(
+            (b.right - b.left, b.bottom - b.top),
+            (w, h),
+            "{}",
+            label.text
+        );
+    }
+}
+
+/// The Sun's label of a diagram.
+fn sun_label(layout: &HrLayout) -> &PlacedLabel {
+    layout
+        .labels
+        .iter()
+        .find(|l| l.text == SUN_LABEL)
+        .expect("a Sun label")
+}
+
+#[test]
+fn sun_is_marked_at_the_nominal_point() {
+    let mut series = zams_like("demo", 25, 0.7);
+    // An invented model exactly at the Sun's nominal place lands on the symbol's centre.
+    series.points.push(HrPoint {
+        mass_msun: 1.1,
+        teff_k: 5772.0,
+        luminosity_lsun: 1.0,
+    });
+    let (figure, svg) = svg_hr(&[series], "");
+    let sun = figure.layout.sun_px;
+    assert_eq!(*figure.layout.points_px[0].last().unwrap(), sun);
+    // SVG: the dot of ⊙ is a small filled black circle, the ring an orange (Okabe–Ito
+    // #E69F00) outline, both centred on the Sun; the label says "Sun".
+    assert!(circles(&svg, "#000000").contains(&sun), "no dot at {sun:?}");
+    let ring = svg.split("<circle").skip(1).any(|c| {
+        c.contains(&format!("cx=\"{}\" cy=\"{}\"", sun.0, sun.1)) && c.contains("#E69F00")
+    });
+    assert!(ring, "no orange ring at {sun:?}");
+    assert_eq!(sun_label(&figure.layout).anchor_px, sun);
+    assert!(figure
+        .layout
+        .markers_px
+        .iter()
+        .any(|m| m.contains_point(sun)));
+
+    // PNG: the same places; the dot is black, the ring orange, and the label's box holds
+    // dark text pixels set in the embedded font.
+    let series = [zams_like("demo", 25, 0.7)];
+    let png = render_hr_diagram(&series, "", ImageFormat::Png).unwrap();
+    let (width, height, rgb) = decode_png(&png.image);
+    assert_eq!((width, height), (HR_WIDTH_PX, HR_HEIGHT_PX));
+    let sun = png.layout.sun_px;
+    assert_eq!(pixel(&rgb, width, sun), [0, 0, 0]);
+    let orange = (sun.0 + 3..=sun.0 + 8).any(|x| {
+        let [r, g, b] = pixel(&rgb, width, (x, sun.1));
+        r > 200 && g > 120 && g < 200 && b < 60
+    });
+    assert!(orange, "no orange ring right of {sun:?}");
+    let b = sun_label(&png.layout).placement.bbox;
+    let dark = (b.left..=b.right)
+        .flat_map(|x| (b.top..=b.bottom).map(move |y| (x, y)))
+        .filter(|&p| pixel(&rgb, width, p).iter().all(|&c| c < 100))
+        .count();
+    assert!(dark >= 20, "only {dark} dark pixels in the label box {b:?}");
+}
+
+#[test]
+fn round_masses_are_labelled_clear_of_markers_and_each_other() {
+    let one = [zams_like("one", 40, 1.0)];
+    let (figure, _) = svg_hr(&one, "ZAMS");
+    assert_labels_collide_with_nothing(&figure);
+    for round in ["0.1", "1", "10", "100"] {
+        assert!(
+            figure.layout.mass_labels[0].iter().any(|l| l == round),
+            "{round} missing: {:?}",
+            figure.layout.mass_labels[0]
+        );
+    }
+    // One sequence leaves room off the line for every label.
+    assert!(figure.layout.labels.iter().all(|l| !l.placement.over_line));
+
+    // Three close sequences: still no collision, and every decade labelled at least once.
+    let three = [
+        zams_like("a", 25, 1.0),
+        zams_like("b", 25, 0.7),
+        zams_like("c", 25, 0.5),
+    ];
+    let (figure, _) = svg_hr(&three, "ZAMS");
+    assert_labels_collide_with_nothing(&figure);
+    for round in ["0.1", "1", "10", "100"] {
+        assert!(
+            figure.layout.labels.iter().any(|l| l.text == round),
+            "{round} missing"
+        );
+    }
+    assert!(figure.layout.labels.iter().any(|l| l.text == SUN_LABEL));
+}
+
+#[test]
+fn png_and_svg_put_everything_at_the_same_pixels() {
+    let series = [zams_like("a", 25, 1.0), zams_like("b", 25, 0.6)];
+    let svg = render_hr_diagram(&series, "Demo", ImageFormat::Svg).unwrap();
+    let png = render_hr_diagram(&series, "Demo", ImageFormat::Png).unwrap();
+    assert_eq!(svg.layout, png.layout);
+    assert_labels_collide_with_nothing(&png);
+    let rows = polytrope_rows(101);
+    for abscissa in Abscissa::ALL {
+        let svg = render_profile(&rows, "Demo", abscissa, ImageFormat::Svg).unwrap();
+        let png = render_profile(&rows, "Demo", abscissa, ImageFormat::Png).unwrap();
+        assert_eq!(svg.layout, png.layout);
+        let (width, height, _) = decode_png(&png.image);
+        assert_eq!((width, height), (PROFILE_WIDTH_PX, PROFILE_HEIGHT_PX));
+    }
+}
+
+#[test]
+fn figure_format_follows_the_extension() {
+    let dir = scratch("formats");
+    let rows = polytrope_rows(51);
+    for name in ["hr.svg", "hr.png", "HR.PNG", "profile.svg", "profile.png"] {
+        let path = dir.join(name);
+        if name.starts_with("profile") {
+            profile_plot(&path, &rows, "", Abscissa::Mass).unwrap();
+        } else {
+            hr_diagram(&path, &demo_series(), "").unwrap();
+        }
+        let bytes = std::fs::read(&path).unwrap();
+        if name.to_ascii_lowercase().ends_with(".png") {
+            let (w, h, _) = decode_png(&bytes);
+            let expected = if name.starts_with("profile") {
+                (PROFILE_WIDTH_PX, PROFILE_HEIGHT_PX)
+            } else {
+                (HR_WIDTH_PX, HR_HEIGHT_PX)
+            };
+            assert_eq!((w, h), expected, "{name}");
+        } else {
+            assert!(bytes.starts_with(b"<svg"), "{name} is not SVG");
+        }
+    }
+    for name in ["hr.pdf", "hr", "hr.svgz", "hr.jpg"] {
+        let path = dir.join(name);
+        for err in [
+            hr_diagram(&path, &demo_series(), "").unwrap_err(),
+            profile_plot(&path, &rows, "", Abscissa::Radius).unwrap_err(),
+        ] {
+            assert_eq!(
+                err.exit_code(),
+                starpoise::error::ExitCode::BadInput,
+                "{name}: {err}"
+            );
+            let text = err.to_string();
+            assert!(
+                text.contains(name) && text.contains(".svg") && text.contains(".png"),
+                "{text}"
+            );
+        }
+        assert!(!path.exists(), "{name} written");
+    }
+    assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 5);
+    std::fs::remove_dir_all(&dir).unwrap();
+}
+
+#[test]
+fn profile_takes_radius_mass_or_pressure_as_abscissa() {
+    let rows = polytrope_rows(201);
+    let log_p = |i: usize| rows[i].pressure_dyn_cm2.log10();
+    let n = rows.len() - 1;
+    for abscissa in Abscissa::ALL {
+        let (figure, svg) = svg_profile(&rows, "", abscissa);
+        let layout = &figure.layout;
+        let texts = svg_texts(&svg);
+        assert!(
+            texts.iter().any(|t| t == abscissa.axis_label()),
+            "{abscissa}: no axis label"
+        );
+        let expected_range = match abscissa {
+            Abscissa::Radius | Abscissa::Mass => (0.0, 1.0),
+            Abscissa::Pressure => (log_p(0), log_p(n)),
+        };
+        assert_eq!(layout.x_range, expected_range, "{abscissa}");
+        // The quantity on the x axis is not drawn again as a curve; P/P_c is left out on the
+        // pressure axis, where it would only repeat the axis.
+        let curves = &layout.upper_curves;
+        assert_eq!(
+            curves.contains(&"r / R"),
+            abscissa != Abscissa::Radius,
+            "{curves:?}"
+        );
+        assert_eq!(
+            curves.contains(&"m / M"),
+            abscissa != Abscissa::Mass,
+            "{curves:?}"
+        );
+        assert_eq!(
+            curves.contains(&"P / P_c"),
+            abscissa != Abscissa::Pressure,
+            "{curves:?}"
+        );
+        // Core (r/R < 0.15) and envelope (r/R > 0.85), in the abscissa's own values: the
+        // core starts at the first row and the envelope ends at the last.
+        let bands = &layout.convective_bands;
+        assert_eq!(bands.len(), 2, "{abscissa}: {bands:?}");
+        let first = abscissa.value(&rows[0]);
+        let last = abscissa.value(&rows[n]);
+        assert_eq!(bands[0].0, first, "{abscissa}");
+        assert_eq!(bands[1].1, last, "{abscissa}");
+        // The core's outer edge lies between the rows at r/R = 0.145 and 0.155 (0.005 apart).
+        let (lo, hi) = (
+            abscissa.value(&rows[29]).min(abscissa.value(&rows[31])),
+            abscissa.value(&rows[29]).max(abscissa.value(&rows[31])),
+        );
+        assert!(
+            bands[0].1 >= lo && bands[0].1 <= hi,
+            "{abscissa}: {bands:?}"
+        );
+    }
+    // On the pressure axis the log P ticks are whole decades.
+    let (_, svg) = svg_profile(&rows, "", Abscissa::Pressure);
+    let texts = svg_texts(&svg);
+    for tick in ["16", "10", "6"] {
+        assert!(texts.iter().any(|t| t == tick), "no tick {tick}: {texts:?}");
+    }
+}
+
+#[test]
+fn decades_between_models_are_ticked_on_the_line_and_labelled() {
+    // 60 invented masses log-spaced from 0.08 to 150 M_sun: no model at 0.1, 1, 10 or 100.
+    let masses: Vec<f64> = (0..60)
+        .map(|i| 0.08 * (150.0_f64 / 0.08).powf(i as f64 / 59.0))
+        .collect();
+    let series = HrSeries {
+        label: "dense".into(),
+        points: power_law("dense", &masses, 3.5, 0.8).points,
+    };
+    let (figure, _) = svg_hr(&[series], "");
+    assert_labels_collide_with_nothing(&figure);
+    let px = &figure.layout.points_px[0];
+    for decade in ["0.1", "1", "10", "100"] {
+        let label = figure
+            .layout
+            .labels
+            .iter()
+            .find(|l| l.text == decade)
+            .unwrap_or_else(|| panic!("{decade} missing"));
+        assert!(label.interpolated, "{decade}");
+        // The tick lies on the drawn segment between the two neighbouring models (within
+        // the rounding of pixel coordinates).
+        let m: f64 = decade.parse().unwrap();
+        let below = masses.iter().rposition(|&x| x < m).unwrap();
+        let (a, b) = (px[below], px[below + 1]);
+        let (p, q) = (label.anchor_px, (b.0 - a.0, b.1 - a.1));
+        let cross = f64::from((p.0 - a.0) * q.1 - (p.1 - a.1) * q.0);
+        let distance = cross.abs() / f64::from(q.0).hypot(f64::from(q.1));
+        assert!(distance <= 1.5, "{decade}: {distance} px off the line");
+        let inside = |v: i32, e0: i32, e1: i32| v >= e0.min(e1) - 1 && v <= e0.max(e1) + 1;
+        assert!(
+            inside(p.0, a.0, b.0) && inside(p.1, a.1, b.1),
+            "{decade} off the segment"
+        );
+        // Its tick is a mark the labels avoid.
+        assert!(figure.layout.markers_px.iter().any(|b| b.contains_point(p)));
+    }
+    // With the decades labelled, masses that are not round (0.117 ...) are not: only the
+    // decades, the two ends and the Sun.
+    let mut texts: Vec<&str> = figure
+        .layout
+        .labels
+        .iter()
+        .map(|l| l.text.as_str())
+        .collect();
+    texts.sort_unstable();
+    assert_eq!(texts, ["0.08", "0.1", "1", "10", "100", "150", SUN_LABEL]);
 }

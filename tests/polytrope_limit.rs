@@ -13,7 +13,7 @@ use starpoise::constants::{G_CGS, L_SUN_ERG_S, M_SUN_G, R_SUN_CM};
 use starpoise::error::PhysicsError;
 use starpoise::physics::convection::Adiabatic;
 use starpoise::physics::{
-    Atmosphere, Composition, EnergyGeneration, EnergyRate, EosState, EquationOfState, Opacity,
+    AtmosphereSpec, Composition, EnergyGeneration, EnergyRate, EosState, EquationOfState, Opacity,
     PhysicsSet,
 };
 use starpoise::structure::{solve, ZamsSettings};
@@ -107,14 +107,13 @@ fn solve_polytrope(n: f64, xi1: f64, rho_ratio: f64) -> (f64, f64) {
     let rho_c = rho_ratio * 3.0 * m / (4.0 * PI * r.powi(3));
     let a = r / xi1;
     let k = 4.0 * PI * G_CGS * a * a * rho_c.powf(1.0 - 1.0 / n) / (n + 1.0);
-    let physics = PhysicsSet {
-        preset: "polytrope-test".into(),
-        eos: Arc::new(Polytropic { k, n }),
-        opacity: Arc::new(Opaque),
-        rates: Arc::new(Uniform),
-        convection: Arc::new(Adiabatic),
-        atmosphere: Atmosphere::Photosphere,
-    };
+    let physics = PhysicsSet::analytic()
+        .with_eos(Arc::new(Polytropic { k, n }))
+        .with_opacity(Arc::new(Opaque))
+        .with_rates(Arc::new(Uniform))
+        .with_convection(Arc::new(Adiabatic))
+        .with_atmosphere(AtmosphereSpec::Photosphere);
+    assert_eq!(physics.spec().eos.to_string(), "external:polytropic");
     let comp = Composition::new(0.7, 0.02).unwrap();
     let pc = k * rho_c.powf(1.0 + 1.0 / n);
     // Start 10-20 per cent away from the answer in every unknown.
@@ -123,8 +122,8 @@ fn solve_polytrope(n: f64, xi1: f64, rho_ratio: f64) -> (f64, f64) {
         .with_guess(pc * 0.8, 1e14, 1.1, 1.2 * m / L_SUN_ERG_S)
         .unwrap();
     let model = solve(&settings).expect("polytrope converges");
-    let radius = model.summary.radius_rsun.unwrap() * R_SUN_CM;
-    let rho_c_model = model.summary.central_density_g_cm3.unwrap();
+    let radius = model.summary.radius_rsun * R_SUN_CM;
+    let rho_c_model = model.summary.central_density_g_cm3;
     (
         radius / r,
         rho_c_model * 4.0 * PI * radius.powi(3) / (3.0 * m),

@@ -133,7 +133,7 @@ fn text_output_and_overrides() {
         "nabla_ad",
         "dyn/cm^2",
         "eos saha",
-        "opacity refined*2",
+        "factor 2",
         "H ionised",
         "eps_CNO",
         "cm^2/g",

@@ -105,7 +105,10 @@ fn result_does_not_depend_on_threads_or_order() {
     ]);
     assert!(out.status.success());
     let key_rows = |p: &std::path::Path| {
-        let mut rdr = csv::Reader::from_path(p).unwrap();
+        let mut rdr = csv::ReaderBuilder::new()
+            .comment(Some(b'#'))
+            .from_path(p)
+            .unwrap();
         let h = rdr.headers().unwrap().clone();
         let col = |n: &str| h.iter().position(|x| x == n).unwrap();
         let (m, z, l, r) = (
@@ -168,24 +171,23 @@ fn bad_grids_exit_2() {
     let _ = std::fs::remove_dir_all(&dir);
 }
 
-/// The CSV header is the documented column list; an empty shard still writes it; the fits in the
-/// JSON table are the least-squares slopes of its own rows.
+/// The CSV header (after the `#` metadata lines) is the documented column list; an empty shard
+/// still writes it; the fits in the JSON table are the least-squares slopes of its own rows.
 #[test]
 fn header_empty_shards_and_fits() {
     let dir = scratch_dir("header");
     let full = dir.join("t.csv");
     assert!(run_to(&full, &[]).status.success());
-    let header: Vec<String> = csv::Reader::from_path(&full)
+    let header: Vec<String> = csv::ReaderBuilder::new()
+        .comment(Some(b'#'))
+        .from_path(&full)
         .unwrap()
         .headers()
         .unwrap()
         .iter()
         .map(str::to_string)
         .collect();
-    assert_eq!(
-        header,
-        starpoise::output::sequence::SEQUENCE_COLUMNS.to_vec()
-    );
+    assert_eq!(header, starpoise::grid::GridRow::columns());
     // One mass in 50 shards: most shards are empty.
     let empty = (1..=50)
         .map(|k| {
@@ -206,12 +208,12 @@ fn header_empty_shards_and_fits() {
             assert!(out.status.success(), "{}", stderr(&out));
             p
         })
-        .find(|p| std::fs::read_to_string(p).unwrap().lines().count() == 1)
+        .find(|p| data_lines(&std::fs::read_to_string(p).unwrap()).len() == 1)
         .expect("an empty shard");
     let text = std::fs::read_to_string(&empty).unwrap();
     assert_eq!(
-        text.trim_end(),
-        starpoise::output::sequence::SEQUENCE_COLUMNS.join(",")
+        data_lines(&text),
+        vec![starpoise::grid::GridRow::columns().join(",")]
     );
     // Fits: L ~ M^a over 2-20 M_sun from the rows themselves.
     let json_path = dir.join("t.json");
@@ -255,6 +257,14 @@ fn header_empty_shards_and_fits() {
     assert_eq!(fit["models"], 4);
     assert!((fit["luminosity_exponent"].as_f64().unwrap() - slope).abs() < 1e-12);
     let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// The lines of a CSV file that are not `#` metadata.
+fn data_lines(text: &str) -> Vec<String> {
+    text.lines()
+        .filter(|l| !l.starts_with('#'))
+        .map(String::from)
+        .collect()
 }
 
 /// A run stopped part-way (here killed, which is harsher than Ctrl-C) leaves no output file and

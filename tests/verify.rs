@@ -177,6 +177,6 @@ fn bad_format_is_refused_with_exit_code_2() {
 #[test]
 fn failures_map_to_exit_code_1() {
     let e = starpoise::Error::VerificationFailed { failed: 2 };
-    assert_eq!(e.exit_code(), 1);
+    assert_eq!(e.exit_code(), starpoise::error::ExitCode::Failure);
     assert_eq!(e.to_string(), "2 of the built-in checks failed");
 }

@@ -84,14 +84,17 @@ fn profile_csv_has_the_documented_columns_and_rows() {
         "120",
     ]);
     assert!(out.status.success(), "{}", stderr(&out));
-    let mut reader = csv::Reader::from_path(&path).unwrap();
+    let mut reader = csv::ReaderBuilder::new()
+        .comment(Some(b'#'))
+        .from_path(&path)
+        .unwrap();
     let header: Vec<String> = reader
         .headers()
         .unwrap()
         .iter()
         .map(str::to_string)
         .collect();
-    assert_eq!(header, starpoise::output::zams::PROFILE_COLUMNS.to_vec());
+    assert_eq!(header, starpoise::structure::PROFILE_COLUMNS.to_vec());
     let rows: Vec<csv::StringRecord> = reader.records().map(|r| r.unwrap()).collect();
     assert_eq!(rows.len(), 120);
     let col = |name: &str| header.iter().position(|h| h == name).unwrap();
@@ -222,7 +225,7 @@ fn model_file_is_read_and_flags_override_it() {
     let model = dir.join("star.json");
     std::fs::write(
         &model,
-        r#"{"name": "test star", "mass_msun": 2.0, "physics": "analytic", "x": 0.7, "z": 0.02}"#,
+        r#"{"name": "test star", "mass_msun": 2.0, "preset": "analytic", "x": 0.7, "z": 0.02}"#,
     )
     .unwrap();
     let from_file = json(&starpoise(&[
@@ -244,6 +247,129 @@ fn model_file_is_read_and_flags_override_it() {
     ]));
     assert_eq!(overridden["mass_msun"], 3.0);
     assert_eq!(overridden["physics"]["preset"], "analytic");
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// The `physics` object of `zams --format json`, merged with `mass_msun`, `x` and `z`, is a model
+/// file that rebuilds the same star bit for bit: for each preset and for overrides that set
+/// factors and law parameters; and every law name the summary prints is accepted by its flag.
+#[test]
+fn summary_physics_object_rebuilds_the_same_model() {
+    let dir = scratch_dir("zams-roundtrip");
+    let cases: [&[&str]; 6] = [
+        &["--mass", "1"],
+        &["--mass", "2", "--preset", "analytic"],
+        &[
+            "--mass",
+            "1.3",
+            "--opacity-factor",
+            "1.5",
+            "--rates-factor",
+            "0.8",
+        ],
+        &[
+            "--mass",
+            "0.8",
+            "--alpha",
+            "1.6",
+            "--opacity",
+            "refined:guillotine=2.5",
+        ],
+        &[
+            "--mass",
+            "3",
+            "--preset",
+            "analytic",
+            "--rates",
+            "power-law:nu=5",
+        ],
+        &[
+            "--mass",
+            "5",
+            "--atmosphere",
+            "photosphere",
+            "--convection",
+            "adiabatic",
+        ],
+    ];
+    for args in cases {
+        let mut a = vec!["zams", "--format", "json"];
+        a.extend_from_slice(args);
+        let first = json(&starpoise(&a));
+        let mut file = first["physics"].as_object().unwrap().clone();
+        for k in ["mass_msun", "x", "z"] {
+            file.insert(k.to_string(), first[k].clone());
+        }
+        let path = dir.join("again.json");
+        std::fs::write(&path, serde_json::Value::Object(file).to_string()).unwrap();
+        let again = json(&starpoise(&[
+            "zams",
+            "--format",
+            "json",
+            "--model",
+            path.to_str().unwrap(),
+        ]));
+        assert_eq!(again, first, "{args:?}");
+        // Each printed law is accepted by its flag and gives the same star again.
+        let p = &first["physics"];
+        let mut b = vec!["zams", "--format", "json", "--mass"];
+        let mass = first["mass_msun"].to_string();
+        b.push(&mass);
+        let flags: Vec<(String, String)> = [
+            ("--preset", "preset"),
+            ("--eos", "eos"),
+            ("--opacity", "opacity"),
+            ("--opacity-factor", "opacity_factor"),
+            ("--rates", "rates"),
+            ("--rates-factor", "rates_factor"),
+            ("--convection", "convection"),
+            ("--atmosphere", "atmosphere"),
+        ]
+        .iter()
+        .map(|(flag, key)| {
+            let v = &p[*key];
+            let text = v.as_str().map_or_else(|| v.to_string(), String::from);
+            (flag.to_string(), text)
+        })
+        .collect();
+        for (flag, value) in &flags {
+            b.push(flag);
+            b.push(value);
+        }
+        assert_eq!(json(&starpoise(&b)), first, "{b:?}");
+    }
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// A model file with a key given twice, an unknown key, or an out-of-range value is refused
+/// with exit 2, naming the file and the key.
+#[test]
+fn model_file_errors_name_the_file_and_key() {
+    let dir = scratch_dir("zams-model-bad");
+    let cases = [
+        (r#"{"mass_msun": 1, "mass_msun": 2}"#, "given twice"),
+        (
+            r#"{"mass_msun": 1, "physics": "refined"}"#,
+            "unknown key \"physics\"",
+        ),
+        (r#"{"mass_msun": 1000}"#, "mass_msun"),
+        (
+            r#"{"mass_msun": 1, "opacity": "kramers:guillotine=0"}"#,
+            "guillotine",
+        ),
+        (r#"{"mass_msun": 1, "alpha": 50}"#, "alpha"),
+    ];
+    for (text, needle) in cases {
+        let path = dir.join("bad.json");
+        std::fs::write(&path, text).unwrap();
+        let out = starpoise(&["zams", "--model", path.to_str().unwrap()]);
+        assert_eq!(out.status.code(), Some(2), "{text}: {}", stderr(&out));
+        let err = stderr(&out);
+        assert!(
+            err.contains("bad.json") && err.contains(needle),
+            "{text}: {err}"
+        );
+    }
     let _ = std::fs::remove_dir_all(&dir);
 }
 

@@ -1,7 +1,11 @@
 //! Flags shared by the commands that build models: composition and the choice of laws.
 
 use clap::Args;
-use starpoise::physics::{Composition, PhysicsOptions};
+use starpoise::physics::spec::{catalogue, LawKind};
+use starpoise::physics::{
+    AtmosphereSpec, Composition, ConvectionSpec, EosSpec, OpacitySpec, PhysicsOverrides, Preset,
+    RatesSpec,
+};
 use starpoise::Result;
 
 /// Composition flags. Unset values fall back to a model file, then to X = 0.70, Z = 0.02.
@@ -29,53 +33,67 @@ impl CompositionFlags {
     }
 }
 
-/// Law-choice flags: a preset and any single law overridden by name.
+/// Law-choice flags: a preset and any single law overridden by name. Each law flag is parsed by
+/// the spec's own grammar (what the JSON summary prints is accepted here); the help lists the
+/// catalogue.
 #[derive(Debug, Clone, Default, Args)]
 pub struct PhysicsFlags {
-    /// Physics preset: analytic or refined [default: refined].
-    #[arg(long, value_name = "SET")]
-    pub physics: Option<String>,
-    /// Equation of state: ideal, saha, degenerate, refined.
-    #[arg(long, value_name = "LAW")]
-    pub eos: Option<String>,
-    /// Opacity: electron-scattering, kramers[:guillotine=T], h-minus, conductive, analytic,
-    /// refined[:guillotine=T0,exponent=Q], table:PATH, table-clamped:PATH.
-    #[arg(long, value_name = "LAW")]
-    pub opacity: Option<String>,
-    /// Energy generation: analytic, sfactor, power-law[:eps0=E,t0=T,nu=N] (defaults 0.437,
-    /// 1.5e7 K, 4).
-    #[arg(long, value_name = "LAW")]
-    pub rates: Option<String>,
-    /// Convection law: adiabatic or mlt.
-    #[arg(long, value_name = "LAW")]
-    pub convection: Option<String>,
-    /// Mixing-length parameter alpha for mlt [default: 1.8].
+    /// Physics preset [default: refined].
+    #[arg(long, visible_alias = "physics", value_name = "SET", help = help(LawKind::Preset))]
+    pub preset: Option<Preset>,
+    /// Equation of state.
+    #[arg(long, value_name = "LAW", help = help(LawKind::Eos))]
+    pub eos: Option<EosSpec>,
+    /// Opacity law.
+    #[arg(long, value_name = "LAW", help = help(LawKind::Opacity))]
+    pub opacity: Option<OpacitySpec>,
+    /// Energy generation law.
+    #[arg(long, value_name = "LAW", help = help(LawKind::Rates))]
+    pub rates: Option<RatesSpec>,
+    /// Convection law.
+    #[arg(long, value_name = "LAW", help = help(LawKind::Convection))]
+    pub convection: Option<ConvectionSpec>,
+    /// Mixing-length parameter alpha of mlt [default: 1.8; range 0.1-10].
     #[arg(long, value_name = "A")]
     pub alpha: Option<f64>,
-    /// Factor multiplying the opacity [default: 1].
+    /// Factor multiplying the opacity [default: 1; range 1e-6-1e6].
     #[arg(long, value_name = "F")]
     pub opacity_factor: Option<f64>,
-    /// Factor multiplying the nuclear energy generation rate [default: 1].
+    /// Factor multiplying the nuclear energy generation rate [default: 1; range 1e-6-1e6].
     #[arg(long, value_name = "F")]
     pub rates_factor: Option<f64>,
-    /// Outer boundary: photosphere or grey [default: the preset's].
-    #[arg(long, value_name = "KIND")]
-    pub atmosphere: Option<String>,
+    /// Outer boundary [default: the preset's].
+    #[arg(long, value_name = "KIND", help = help(LawKind::Atmosphere))]
+    pub atmosphere: Option<AtmosphereSpec>,
+}
+
+/// The help line of a kind of law: "NAME[:KEY=DEFAULT,...] (what it is); ..." from the
+/// catalogue.
+fn help(kind: LawKind) -> String {
+    let what = match kind {
+        LawKind::Preset => "Physics preset [default: refined]",
+        LawKind::Eos => "Equation of state",
+        LawKind::Opacity => "Opacity law",
+        LawKind::Rates => "Energy generation law",
+        LawKind::Convection => "Convection law",
+        LawKind::Atmosphere => "Outer boundary [default: the preset's]",
+    };
+    format!("{what}: {}", catalogue::help(kind))
 }
 
 impl PhysicsFlags {
-    /// The options these flags set (unset flags stay unset).
-    pub fn options(&self) -> PhysicsOptions {
-        PhysicsOptions {
-            physics: self.physics.clone(),
+    /// The overrides these flags set (unset flags stay unset).
+    pub fn overrides(&self) -> PhysicsOverrides {
+        PhysicsOverrides {
+            preset: self.preset,
             eos: self.eos.clone(),
             opacity: self.opacity.clone(),
+            opacity_factor: self.opacity_factor,
             rates: self.rates.clone(),
+            rates_factor: self.rates_factor,
             convection: self.convection.clone(),
             alpha: self.alpha,
-            opacity_factor: self.opacity_factor,
-            rates_factor: self.rates_factor,
-            atmosphere: self.atmosphere.clone(),
+            atmosphere: self.atmosphere,
         }
     }
 }
@@ -92,26 +110,13 @@ pub struct ModelArgs {
 }
 
 impl ModelArgs {
-    /// The validated composition (X = 0.70, Z = 0.02 unless given) and the physics options.
-    pub fn resolve(&self) -> Result<(Composition, PhysicsOptions)> {
+    /// The validated composition (X = 0.70, Z = 0.02 unless given) and the physics overrides.
+    pub fn resolve(&self) -> Result<(Composition, PhysicsOverrides)> {
         Ok((
             self.composition.composition(None, None)?,
-            self.physics.options(),
+            self.physics.overrides(),
         ))
     }
 }
 
-/// A number with six significant figures: plain between 1e-3 and 1e6, else in exponent form.
-pub fn num(v: f64) -> String {
-    let a = v.abs();
-    if !v.is_finite() {
-        "n/a".to_string()
-    } else if a == 0.0 {
-        "0".to_string()
-    } else if (1e-3..1e6).contains(&a) {
-        let decimals = (5 - a.log10().floor() as i32).clamp(0, 8) as usize;
-        format!("{v:.decimals$}")
-    } else {
-        format!("{v:.5e}")
-    }
-}
+pub use starpoise::output::format::num;

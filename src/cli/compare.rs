@@ -47,7 +47,7 @@ pub fn run(args: CompareArgs) -> Result<()> {
     let masses = parse_value_list("--mass", &args.mass)?;
     if args.variants.len() < 2 {
         return Err(Error::invalid(
-            "--variant",
+            "variant",
             args.variants.join(" "),
             &format!("give at least two variants, the first being the reference; {EXAMPLE}"),
         ));
@@ -57,7 +57,7 @@ pub fn run(args: CompareArgs) -> Result<()> {
     if let Some(path) = &args.out {
         starpoise::output::check_output_path("--out", path)?;
     }
-    let base = args.physics.options();
+    let base = args.physics.overrides();
     let grid = Grid::product(
         &base,
         variants,
@@ -76,7 +76,7 @@ pub fn run(args: CompareArgs) -> Result<()> {
         },
         &|| {},
     )?;
-    let table = CompareTable::new(&grid, &base, &masses, &results);
+    let table = CompareTable::new(&grid, &masses, &results);
     if let Some(path) = &args.out {
         write_table(path, &table)?;
     }
@@ -146,7 +146,7 @@ fn row(r: &CompareRecord) -> String {
     let mark = if r.reference { "ref" } else { "" };
     let name = format!("{mark:>3} {:<NAME_WIDTH$}", r.variant);
     if !r.converged() {
-        return format!("{name} {}\n", r.status);
+        return format!("{name} not converged ({}): {}\n", r.status, r.reason);
     }
     let mut line = format!(
         "{name} {} {} {:>7} {} {} {:>6} | {} {} {} {} {}\n",

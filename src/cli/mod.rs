@@ -3,6 +3,9 @@
 
 mod common;
 mod compare;
+mod completions;
+mod figure;
+mod model_file;
 mod modes;
 mod plot;
 mod polytrope;
@@ -46,6 +49,8 @@ enum Command {
     Probe(probe::ProbeArgs),
     /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
     Verify(verify::VerifyArgs),
+    /// Write a shell completion script to standard output.
+    Completions(completions::CompletionsArgs),
 }
 
 /// Output format of a summary.
@@ -58,9 +63,65 @@ pub enum Format {
     Json,
 }
 
-/// Run one parsed command line.
+/// The command-line flag of a library key, for messages (the library names keys, not flags).
+fn flag_of(sequence: bool, compare: bool, key: &str) -> Option<&'static str> {
+    Some(match key {
+        "mass_msun" if sequence => "--masses",
+        "mass_msun" => "--mass",
+        "masses" if sequence => "--masses",
+        "x" => "--x",
+        "z" => "--z",
+        "x + z" => "--x + --z",
+        "index" => "--index",
+        "radius_rsun" => "--radius",
+        "mu" => "--mu",
+        "radiation" => "--radiation",
+        "fit_mass_fraction" => "--fit-mass",
+        "tolerance" => "--tolerance",
+        "max_iterations" => "--max-iterations",
+        "points" => "--points",
+        "preset" => "--preset",
+        "eos" => "--eos",
+        "opacity" => "--opacity",
+        "opacity_factor" => "--opacity-factor",
+        "rates" => "--rates",
+        "rates_factor" => "--rates-factor",
+        "convection" => "--convection",
+        "alpha" => "--alpha",
+        "atmosphere" => "--atmosphere",
+        "variant" => "--variant",
+        "threads" => "--threads",
+        "fit_ranges" => "--fit-ranges",
+        "shard" => "--shard",
+        "masses" if compare => "--mass",
+        "files" => "FILES",
+        "gamma1" => "--gamma1",
+        "degree" => "--degrees",
+        "max_order" => "--max-order",
+        _ => return None,
+    })
+}
+
+/// Run one parsed command line; errors name the flags of this command line.
 pub fn run(cli: Cli) -> Result<()> {
-    match cli.command {
+    let sequence = matches!(cli.command, Command::Sequence(_));
+    let compare = matches!(cli.command, Command::Compare(_));
+    dispatch(cli.command).map_err(|e| match e {
+        starpoise::Error::InvalidInput {
+            name,
+            value,
+            allowed,
+        } => starpoise::Error::InvalidInput {
+            name: flag_of(sequence, compare, &name).map_or(name, String::from),
+            value,
+            allowed,
+        },
+        other => other,
+    })
+}
+
+fn dispatch(command: Command) -> Result<()> {
+    match command {
         Command::Zams(args) => zams::run(*args),
         Command::Polytrope(args) => polytrope::run(args),
         Command::Sequence(args) => sequence::run(*args),
@@ -70,6 +131,7 @@ pub fn run(cli: Cli) -> Result<()> {
         Command::Modes(args) => modes::run(args),
         Command::Probe(args) => probe::run(args),
         Command::Verify(args) => verify::run(args),
+        Command::Completions(args) => completions::run(&args),
     }
 }
 

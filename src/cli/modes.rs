@@ -8,6 +8,7 @@ use starpoise::oscillation::search::{MAX_DEGREE, MAX_ORDER};
 use starpoise::oscillation::{
     find_modes, Mode, OscillationSettings, PolytropicModel, SeismicSummary,
 };
+use starpoise::output::meta::Provenance;
 use starpoise::output::modes::{write_eigenfunctions_csv, ModesMeta, ModesReport};
 use starpoise::polytrope::{solve_lane_emden, LaneEmdenSettings};
 use std::path::PathBuf;
@@ -74,7 +75,7 @@ impl TryFrom<ModesArgs> for ModesRequest {
             ));
         }
         if !(args.gamma1.is_finite() && args.gamma1 > 4.0 / 3.0) {
-            return Err(Error::invalid("--gamma1", args.gamma1, GAMMA1_ALLOWED));
+            return Err(Error::invalid("gamma1", args.gamma1, GAMMA1_ALLOWED));
         }
         let mut degrees = args.degrees;
         degrees.sort_unstable();
@@ -131,12 +132,14 @@ pub fn run(args: ModesArgs) -> Result<()> {
     for &l in &request.degrees {
         modes.extend(find_modes(&model, l, request.max_order, &request.settings)?);
     }
+    let provenance = Provenance::of_this_process();
     if let Some(path) = &request.eigenfunctions {
-        write_eigenfunctions_csv(path, &modes)?;
+        write_eigenfunctions_csv(path, &modes, &provenance)?;
     }
     let around = separation_frequency(&modes, request.max_order);
     let seismic = SeismicSummary::new(&model, &modes, around);
     let meta = ModesMeta {
+        provenance,
         model: "polytrope",
         polytropic_index: request.index,
         gamma1: request.gamma1,

@@ -41,8 +41,8 @@ pub fn run(args: ProbeArgs) -> Result<()> {
             "the temperature must be a positive number of K, e.g. --temperature 1.57e7",
         ));
     }
-    let (comp, options) = args.model.resolve()?;
-    let set = options.build()?;
+    let (comp, overrides) = args.model.resolve()?;
+    let set = starpoise::physics::PhysicsSet::from_spec(&overrides.resolve()?)?;
     // A point outside a law's domain is bad input for this command (exit code 2).
     let report = ProbeReport::evaluate(rho, t, &comp, &set).map_err(|e| match e {
         Error::Physics(p) => Error::invalid(

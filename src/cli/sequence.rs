@@ -4,12 +4,12 @@
 use super::common::PhysicsFlags;
 use clap::Args;
 use indicatif::{ProgressBar, ProgressStyle};
-use starpoise::grid::fits::{parse_ranges, power_law_fits, DEFAULT_FIT_RANGES};
+use starpoise::grid::fits::{fit_groups, parse_ranges, DEFAULT_FIT_RANGES};
 use starpoise::grid::merge::merge_shards;
 use starpoise::grid::run::{solve_points, RunSettings};
-use starpoise::grid::{parse_value_list, Grid, Shard, Variant};
+use starpoise::grid::{parse_value_list, Grid, GridRow, GridTable, Shard, Variant};
 use starpoise::output::plot::{hr_diagram, series_from_rows};
-use starpoise::output::sequence::{read_rows, write_table, FitGroup, SequenceRow, SequenceTable};
+use starpoise::output::sequence::{read_table, write_table};
 use starpoise::structure::DEFAULT_FIT_MASS_FRACTION;
 use starpoise::{Error, Result};
 use std::io::IsTerminal;
@@ -39,8 +39,9 @@ pub struct SequenceArgs {
     /// Write the table here: CSV, or JSON if the name ends in .json (atomically).
     #[arg(long, value_name = "FILE")]
     out: Option<PathBuf>,
-    /// Draw the HR diagram of the converged models to this SVG file (atomically).
-    #[arg(long, value_name = "FILE.svg")]
+    /// Draw the HR diagram of the converged models to this figure, SVG or PNG by its
+    /// extension (atomically).
+    #[arg(long, value_name = "FILE.svg|FILE.png")]
     plot: Option<PathBuf>,
     /// Run only the K-th of N deterministic slices of the grid.
     #[arg(long, value_name = "K/N")]
@@ -67,7 +68,7 @@ pub fn parse_variants(texts: &[String]) -> Result<Vec<Variant>> {
         .collect::<Result<Vec<_>>>()?;
     for (i, v) in variants.iter().enumerate() {
         if variants[..i].iter().any(|w| w.name == v.name) {
-            return Err(Error::invalid("--variant", &v.name, "each variant needs its own name, e.g. --variant base= --variant hot=opacity-factor:2"));
+            return Err(Error::invalid("variant", &v.name, "each variant needs its own name, e.g. --variant base= --variant hot=opacity-factor:2"));
         }
     }
     Ok(variants)
@@ -102,9 +103,9 @@ pub fn run(args: SequenceArgs) -> Result<()> {
         starpoise::output::check_output_path("--out", path)?;
     }
     if let Some(path) = &args.plot {
-        starpoise::output::check_output_path("--plot", path)?;
+        starpoise::output::plot::check_figure_path("--plot", path)?;
     }
-    let grid = Grid::product(&args.physics.options(), variants, &masses, &xs, &zs, fit)?;
+    let grid = Grid::product(&args.physics.overrides(), variants, &masses, &xs, &zs, fit)?;
     let points = grid.select(shard);
     let bar = progress(points.len(), args.quiet);
     let tick = || bar.inc(1);
@@ -119,18 +120,19 @@ pub fn run(args: SequenceArgs) -> Result<()> {
     )?;
     bar.finish_and_clear();
     let fingerprint = grid.fingerprint();
-    let rows: Vec<SequenceRow> = results
+    let rows: Vec<GridRow> = results
         .iter()
-        .map(|r| SequenceRow::new(&grid, &fingerprint, r))
+        .map(|r| GridRow::new(&grid, &fingerprint, r))
         .collect();
     let fits = if shard.is_none() {
         fit_groups(&rows, &ranges)
     } else {
         Vec::new()
     };
-    let table = SequenceTable {
+    let table = GridTable {
         grid_fingerprint: fingerprint,
         shard: args.shard.clone(),
+        fit_ranges: ranges,
         fits,
         rows,
     };
@@ -152,60 +154,40 @@ pub fn run(args: SequenceArgs) -> Result<()> {
     Ok(())
 }
 
-/// Fits of L(M) and R(M) for each variant and composition, from the converged rows.
-fn fit_groups(rows: &[SequenceRow], ranges: &[(f64, f64)]) -> Vec<FitGroup> {
-    let mut groups: Vec<FitGroup> = Vec::new();
-    for r in rows {
-        if groups
-            .iter()
-            .any(|g| g.variant == r.variant && g.x == r.x && g.z == r.z)
-        {
-            continue;
-        }
-        let models: Vec<(f64, f64, f64)> = rows
-            .iter()
-            .filter(|s| s.variant == r.variant && s.x == r.x && s.z == r.z && s.converged())
-            .filter_map(|s| Some((s.mass_msun, s.luminosity_lsun?, s.radius_rsun?)))
-            .collect();
-        groups.push(FitGroup {
-            variant: r.variant.clone(),
-            x: r.x,
-            z: r.z,
-            ranges: power_law_fits(&models, ranges)
-                .into_iter()
-                .map(Into::into)
-                .collect(),
-        });
-    }
-    groups
-}
-
 fn opt(v: Option<f64>, width: usize) -> String {
     let text = v.map_or_else(|| "-".to_string(), super::common::num);
     format!("{text:>width$}")
 }
 
 /// The table for people: one line per model, then the fits.
-pub fn text_table(t: &SequenceTable) -> String {
+pub fn text_table(t: &GridTable) -> String {
     let mut out = format!(
         "{:<10} {:>6} {:>6} {:>9} {:>11} {:>9} {:>7} {:>10} {:>9} {:>6}  status\n",
         "variant", "X", "Z", "M/M_sun", "L/L_sun", "R/R_sun", "Teff/K", "T_c/K", "rho_c", "M_cc/M"
     );
     for r in &t.rows {
+        let s = r.summary.as_ref();
+        let status = if r.converged() {
+            r.status.code().to_string()
+        } else {
+            format!("{}: {}", r.status.code(), r.reason)
+        };
         out.push_str(&format!(
             "{:<10} {:>6.4} {:>6.4} {:>9.4} {} {} {:>7} {} {} {:>6}  {}\n",
             r.variant,
             r.x,
             r.z,
             r.mass_msun,
-            opt(r.luminosity_lsun, 11),
-            opt(r.radius_rsun, 9),
-            r.teff_k.map_or("-".to_string(), |v| format!("{v:.0}")),
-            opt(r.central_temperature_k, 10),
-            opt(r.central_density_g_cm3, 9),
-            r.convective_core_mass_fraction
-                .map_or("-".to_string(), |v| format!("{v:.3}")),
-            r.status
+            opt(s.map(|s| s.luminosity_lsun), 11),
+            opt(s.map(|s| s.radius_rsun), 9),
+            s.map_or("-".to_string(), |s| format!("{:.0}", s.teff_k)),
+            opt(s.map(|s| s.central_temperature_k), 10),
+            opt(s.map(|s| s.central_density_g_cm3), 9),
+            s.map_or("-".to_string(), |s| format!(
+                "{:.3}",
+                s.convective_core_mass_fraction
+            )),
+            status
         ));
     }
     for g in &t.fits {
@@ -242,20 +224,40 @@ pub struct MergeArgs {
 /// Run `starpoise merge`.
 pub fn run_merge(args: MergeArgs) -> Result<()> {
     starpoise::output::check_output_path("--out", &args.out)?;
-    let files = args
+    let tables = args
         .files
         .iter()
-        .map(|p| Ok((p.display().to_string(), read_rows(p)?)))
+        .map(|p| Ok((p.display().to_string(), read_table(p)?)))
         .collect::<Result<Vec<_>>>()?;
-    let rows = merge_shards(files)?;
+    // The fits use the ranges the shards were run with; the shards must agree on them.
+    let mut ranges: Option<(String, Vec<(f64, f64)>)> = None;
+    for (file, t) in &tables {
+        match &ranges {
+            Some((first, r)) if *r != t.fit_ranges => {
+                return Err(Error::invalid(
+                    "files",
+                    file,
+                    &format!("its fit ranges differ from those of {first}: the shards of one grid are run with the same --fit-ranges"),
+                ))
+            }
+            Some(_) => {}
+            None => ranges = Some((file.clone(), t.fit_ranges.clone())),
+        }
+    }
+    let ranges = ranges
+        .map(|(_, r)| r)
+        .filter(|r| !r.is_empty())
+        .unwrap_or_else(|| DEFAULT_FIT_RANGES.to_vec());
+    let rows = merge_shards(tables.into_iter().map(|(f, t)| (f, t.rows)).collect())?;
     let fingerprint = rows
         .first()
         .map(|r| r.grid_fingerprint.clone())
         .unwrap_or_default();
-    let fits = fit_groups(&rows, &DEFAULT_FIT_RANGES);
-    let table = SequenceTable {
+    let fits = fit_groups(&rows, &ranges);
+    let table = GridTable {
         grid_fingerprint: fingerprint,
         shard: None,
+        fit_ranges: ranges,
         fits,
         rows,
     };

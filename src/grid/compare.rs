@@ -8,8 +8,8 @@
 //! finite-difference estimate S_Q = dlog Q / dlog f = (log10 Q_v - log10 Q_r) / (log10 f_v -
 //! log10 f_r).
 
-use crate::output::zams::ZamsSummary;
-use crate::physics::PhysicsOptions;
+use crate::physics::PhysicsSpec;
+use crate::structure::ModelSummary;
 
 /// A scale factor of the physics that a variant may change.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -48,34 +48,23 @@ impl FactorChange {
     }
 }
 
-/// Whether the effective options `variant` differ from the effective options `reference`
-/// (each the base set overridden by its variant, see [`PhysicsOptions::overridden_by`]) in
-/// exactly one scale factor and in nothing else. An unset factor counts as 1, as in
-/// [`PhysicsOptions::build`]. Every other option must be given identically (an option set in
-/// one and left to its default in the other counts as a difference, so no sensitivity is
-/// claimed for a change that is not certainly a pure factor change).
+/// Whether the complete choice `variant` differs from the complete choice `reference` in
+/// exactly one scale factor (opacity or rates) and in nothing else: every law and parameter
+/// equal, one factor different.
 pub fn single_factor_change(
-    reference: &PhysicsOptions,
-    variant: &PhysicsOptions,
+    reference: &PhysicsSpec,
+    variant: &PhysicsSpec,
 ) -> Option<FactorChange> {
-    let laws_equal = reference.physics == variant.physics
-        && reference.eos == variant.eos
+    let laws_equal = reference.eos == variant.eos
         && reference.opacity == variant.opacity
         && reference.rates == variant.rates
         && reference.convection == variant.convection
-        && reference.alpha == variant.alpha
         && reference.atmosphere == variant.atmosphere;
     if !laws_equal {
         return None;
     }
-    let opacity = (
-        reference.opacity_factor.unwrap_or(1.0),
-        variant.opacity_factor.unwrap_or(1.0),
-    );
-    let rates = (
-        reference.rates_factor.unwrap_or(1.0),
-        variant.rates_factor.unwrap_or(1.0),
-    );
+    let opacity = (reference.opacity_factor, variant.opacity_factor);
+    let rates = (reference.rates_factor, variant.rates_factor);
     match (opacity.0 != opacity.1, rates.0 != rates.1) {
         (true, false) => Some(FactorChange {
             factor: ScaleFactor::Opacity,
@@ -107,35 +96,21 @@ pub struct Differences {
     pub delta_convective_core_mass_fraction: Option<f64>,
 }
 
-fn dlog(reference: Option<f64>, variant: Option<f64>) -> Option<f64> {
-    match (reference, variant) {
-        (Some(r), Some(v)) if r > 0.0 && v > 0.0 && r.is_finite() && v.is_finite() => {
-            Some(v.log10() - r.log10())
-        }
-        _ => None,
-    }
+fn dlog(reference: f64, variant: f64) -> Option<f64> {
+    (reference > 0.0 && variant > 0.0 && reference.is_finite() && variant.is_finite())
+        .then(|| variant.log10() - reference.log10())
 }
 
 /// The differences of `variant` against `reference` (see the module documentation).
-pub fn differences(reference: &ZamsSummary, variant: &ZamsSummary) -> Differences {
+pub fn differences(reference: &ModelSummary, variant: &ModelSummary) -> Differences {
+    let (r, v) = (reference, variant);
+    let delta = v.convective_core_mass_fraction - r.convective_core_mass_fraction;
     Differences {
-        dlog_luminosity: dlog(reference.luminosity_lsun, variant.luminosity_lsun),
-        dlog_radius: dlog(reference.radius_rsun, variant.radius_rsun),
-        dlog_central_temperature: dlog(
-            reference.central_temperature_k,
-            variant.central_temperature_k,
-        ),
-        dlog_central_density: dlog(
-            reference.central_density_g_cm3,
-            variant.central_density_g_cm3,
-        ),
-        delta_convective_core_mass_fraction: match (
-            reference.convective_core_mass_fraction,
-            variant.convective_core_mass_fraction,
-        ) {
-            (Some(r), Some(v)) => Some(v - r),
-            _ => None,
-        },
+        dlog_luminosity: dlog(r.luminosity_lsun, v.luminosity_lsun),
+        dlog_radius: dlog(r.radius_rsun, v.radius_rsun),
+        dlog_central_temperature: dlog(r.central_temperature_k, v.central_temperature_k),
+        dlog_central_density: dlog(r.central_density_g_cm3, v.central_density_g_cm3),
+        delta_convective_core_mass_fraction: delta.is_finite().then_some(delta),
     }
 }
 
@@ -174,46 +149,18 @@ pub fn sensitivities(d: &Differences, change: FactorChange) -> Option<Sensitivit
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::physics::PhysicsDescription;
     use approx::assert_relative_eq;
 
-    /// A hand-made summary with the compared quantities set.
-    fn summary(l: f64, r: f64, tc: f64, rho: f64, qcc: f64) -> ZamsSummary {
-        ZamsSummary {
-            mass_msun: 1.0,
-            x: 0.7,
-            z: 0.02,
-            physics: PhysicsDescription {
-                preset: "test".into(),
-                eos: "test".into(),
-                opacity: "test".into(),
-                rates: "test".into(),
-                convection: "test".into(),
-                atmosphere: "test".into(),
-            },
-            converged: true,
-            iterations: 1,
-            fit_mismatch: 0.0,
-            fit_mass_fraction: 0.4,
-            radius_rsun: Some(r),
-            luminosity_lsun: Some(l),
-            teff_k: None,
-            log_g_cgs: None,
-            central_temperature_k: Some(tc),
-            central_density_g_cm3: Some(rho),
-            central_pressure_dyn_cm2: None,
-            central_degeneracy: None,
-            convective_core_mass_fraction: Some(qcc),
-            convective_envelope_mass_fraction: None,
-            cno_luminosity_fraction: None,
-            eddington_ratio: None,
-            kelvin_helmholtz_time_yr: None,
-            dynamical_time_s: None,
-            nuclear_time_yr: None,
-            virial_residual: None,
-            luminosity_residual: None,
-            rhs_evaluations: 0,
-        }
+    /// A hand-made summary with the compared quantities set (the others NaN).
+    fn summary(l: f64, r: f64, tc: f64, rho: f64, qcc: f64) -> ModelSummary {
+        let mut s = ModelSummary::from_values(&vec![f64::NAN; ModelSummary::FIELDS.len()])
+            .expect("one value per field");
+        s.luminosity_lsun = l;
+        s.radius_rsun = r;
+        s.central_temperature_k = tc;
+        s.central_density_g_cm3 = rho;
+        s.convective_core_mass_fraction = qcc;
+        s
     }
 
     // Tolerances: a few ulps of the log10 values compared (exact arithmetic otherwise).
@@ -254,7 +201,7 @@ mod tests {
     fn missing_or_non_positive_values_give_none() {
         let r = summary(1.0, 1.0, 1.5e7, 100.0, 0.0);
         let mut v = summary(0.0, 1.0, 1.5e7, 100.0, 0.0);
-        v.radius_rsun = None;
+        v.radius_rsun = f64::NAN;
         let d = differences(&r, &v);
         assert_eq!(d.dlog_luminosity, None);
         assert_eq!(d.dlog_radius, None);
@@ -299,11 +246,16 @@ mod tests {
 
     #[test]
     fn finds_exactly_one_factor_change() {
-        let base = PhysicsOptions::default();
-        let hot = PhysicsOptions {
-            opacity_factor: Some(2.0),
-            ..PhysicsOptions::default()
+        let with = |text: &str| -> PhysicsSpec {
+            let mut o = crate::physics::PhysicsOverrides::default();
+            for item in text.split(';').filter(|s| !s.is_empty()) {
+                let (k, v) = item.split_once(':').unwrap_or((item, ""));
+                o.set(k, v).unwrap_or_else(|e| panic!("{e}"));
+            }
+            o.resolve().unwrap_or_else(|e| panic!("{e}"))
         };
+        let base = with("");
+        let hot = with("opacity-factor:2");
         assert_eq!(
             single_factor_change(&base, &hot),
             Some(FactorChange {
@@ -313,11 +265,7 @@ mod tests {
             })
         );
         // The reference's own factor is the starting point.
-        let burn = PhysicsOptions {
-            opacity_factor: Some(2.0),
-            rates_factor: Some(3.0),
-            ..PhysicsOptions::default()
-        };
+        let burn = with("opacity-factor:2;rates-factor:3");
         assert_eq!(
             single_factor_change(&hot, &burn),
             Some(FactorChange {
@@ -327,24 +275,15 @@ mod tests {
             })
         );
         // An explicit factor of 1 is the same as none.
-        let one = PhysicsOptions {
-            opacity_factor: Some(1.0),
-            ..PhysicsOptions::default()
-        };
-        assert_eq!(single_factor_change(&base, &one), None);
+        assert_eq!(single_factor_change(&base, &with("opacity-factor:1")), None);
         // Two factors, or a factor and a law, or a law alone: no single factor change.
         assert_eq!(single_factor_change(&base, &burn), None);
-        let mixed = PhysicsOptions {
-            opacity_factor: Some(2.0),
-            alpha: Some(1.5),
-            ..PhysicsOptions::default()
-        };
+        let mixed = with("opacity-factor:2;alpha:1.5");
         assert_eq!(single_factor_change(&base, &mixed), None);
-        let law = PhysicsOptions {
-            opacity: Some("kramers".into()),
-            ..PhysicsOptions::default()
-        };
-        assert_eq!(single_factor_change(&base, &law), None);
+        assert_eq!(single_factor_change(&base, &with("opacity:kramers")), None);
         assert_eq!(single_factor_change(&base, &base), None);
+        // A law named explicitly with its default parameters is the same law.
+        let same = with("convection:mlt;opacity-factor:2");
+        assert!(single_factor_change(&base, &same).is_some());
     }
 }

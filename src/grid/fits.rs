@@ -1,13 +1,15 @@
 //! Piecewise power-law fits of the mass–luminosity and mass–radius relations.
 
+use super::row::GridRow;
 use crate::error::{Error, Result};
+use serde::{Deserialize, Serialize};
 
 /// Default mass ranges (M_sun) of the piecewise fits.
 pub const DEFAULT_FIT_RANGES: [(f64, f64); 4] =
     [(0.1, 0.5), (0.5, 2.0), (2.0, 20.0), (20.0, 100.0)];
 
 /// Exponents of L ~ M^a and R ~ M^b over one mass range.
-#[derive(Debug, Clone, Copy, PartialEq, serde::Serialize)]
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
 pub struct PowerLawFit {
     /// Lower end of the range, M_sun.
     pub from_msun: f64,
@@ -57,11 +59,59 @@ pub fn power_law_fits(models: &[(f64, f64, f64)], ranges: &[(f64, f64)]) -> Vec<
         .collect()
 }
 
+/// The fits of one variant and composition.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct FitGroup {
+    /// Variant name.
+    pub variant: String,
+    /// Hydrogen mass fraction.
+    pub x: f64,
+    /// Metal mass fraction.
+    pub z: f64,
+    /// One fit per mass range.
+    pub ranges: Vec<PowerLawFit>,
+}
+
+/// Fits of L(M) and R(M) for each variant and composition (in the order they first appear),
+/// from the converged rows.
+pub fn fit_groups(rows: &[GridRow], ranges: &[(f64, f64)]) -> Vec<FitGroup> {
+    let mut groups: Vec<FitGroup> = Vec::new();
+    for r in rows {
+        if groups
+            .iter()
+            .any(|g| g.variant == r.variant && g.x == r.x && g.z == r.z)
+        {
+            continue;
+        }
+        let models: Vec<(f64, f64, f64)> = rows
+            .iter()
+            .filter(|s| s.variant == r.variant && s.x == r.x && s.z == r.z)
+            .filter_map(|s| {
+                let m = s.summary.as_ref()?;
+                Some((s.mass_msun, m.luminosity_lsun, m.radius_rsun))
+            })
+            .collect();
+        groups.push(FitGroup {
+            variant: r.variant.clone(),
+            x: r.x,
+            z: r.z,
+            ranges: power_law_fits(&models, ranges),
+        });
+    }
+    groups
+}
+
+/// Format ranges as `0.1-0.5,0.5-2` (the text [`parse_ranges`] reads).
+pub fn format_ranges(ranges: &[(f64, f64)]) -> String {
+    let parts: Vec<String> = ranges.iter().map(|(a, b)| format!("{a}-{b}")).collect();
+    parts.join(",")
+}
+
 /// Parse `0.1-0.5,0.5-2` into ranges.
 pub fn parse_ranges(text: &str) -> Result<Vec<(f64, f64)>> {
     let bad = || {
         Error::invalid(
-            "--fit-ranges",
+            "fit_ranges",
             text,
             "ranges are LO-HI separated by commas with 0 < LO < HI, e.g. 0.1-0.5,0.5-2,2-20",
         )
@@ -101,5 +151,7 @@ mod tests {
             parse_ranges("0.1-0.5, 2-20").unwrap(),
             vec![(0.1, 0.5), (2.0, 20.0)]
         );
+        let r = vec![(0.1, 0.5), (0.5, 2.0), (20.0, 100.0)];
+        assert_eq!(parse_ranges(&format_ranges(&r)).unwrap(), r);
     }
 }

@@ -5,13 +5,15 @@ pub mod compare;
 pub mod fits;
 pub mod masses;
 pub mod merge;
+pub mod row;
 pub mod run;
 pub mod shard;
 pub mod variant;
 
 use crate::error::Result;
-use crate::physics::{Composition, PhysicsOptions, PhysicsSet};
+use crate::physics::{Composition, PhysicsOverrides, PhysicsSet};
 pub use masses::parse_value_list;
+pub use row::{GridRow, GridTable, RowStatus};
 pub use shard::Shard;
 pub use variant::Variant;
 
@@ -59,7 +61,7 @@ impl Grid {
     /// physics (so that a bad law name is reported before any model is solved) and every
     /// composition.
     pub fn product(
-        base: &PhysicsOptions,
+        base: &PhysicsOverrides,
         variants: Vec<Variant>,
         masses: &[f64],
         xs: &[f64],
@@ -68,7 +70,7 @@ impl Grid {
     ) -> Result<Self> {
         let physics = variants
             .iter()
-            .map(|v| base.overridden_by(&v.overrides).build())
+            .map(|v| PhysicsSet::from_spec(&base.overridden_by(&v.overrides).resolve()?))
             .collect::<Result<Vec<_>>>()?;
         let mut points = Vec::new();
         for v in 0..variants.len() {
@@ -99,7 +101,8 @@ impl Grid {
     pub fn fingerprint(&self) -> String {
         let mut text = format!("fit={:.6e};", self.fit_mass_fraction);
         for (v, p) in self.variants.iter().zip(&self.physics) {
-            text.push_str(&format!("{}={:?};", v.name, p.describe()));
+            let spec = serde_json::to_string(p.spec()).unwrap_or_default();
+            text.push_str(&format!("{}={spec};", v.name));
         }
         for p in &self.points {
             text.push_str(&p.key(self));

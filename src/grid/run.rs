@@ -3,8 +3,7 @@
 
 use super::{Grid, GridPoint};
 use crate::error::{Error, Result};
-use crate::output::zams::ZamsSummary;
-use crate::structure::{guess, solve_detailed, Unknowns, ZamsOutcome, ZamsSettings};
+use crate::structure::{guess, solve, Unknowns, ZamsModel, ZamsSettings};
 use rayon::prelude::*;
 
 /// The result for one grid point.
@@ -12,12 +11,17 @@ use rayon::prelude::*;
 pub struct PointResult {
     /// The point.
     pub point: GridPoint,
-    /// The summary, or why the model did not converge.
-    pub outcome: std::result::Result<ZamsSummary, String>,
-    /// The converged unknowns (for continuation).
-    pub unknowns: Option<Unknowns>,
+    /// The converged model, or why there is none.
+    pub outcome: std::result::Result<Box<ZamsModel>, Error>,
     /// Whether the model needed a neighbour's solution as its starting guess.
     pub continued: bool,
+}
+
+impl PointResult {
+    /// The converged unknowns (for continuation).
+    pub fn unknowns(&self) -> Option<Unknowns> {
+        self.outcome.as_ref().ok().map(|m| m.unknowns)
+    }
 }
 
 /// Knobs applied to every model of a run.
@@ -31,8 +35,7 @@ pub struct RunSettings {
 
 fn settings_for(grid: &Grid, p: &GridPoint, run: &RunSettings) -> Result<ZamsSettings> {
     let mut s = ZamsSettings::new(p.mass_msun, p.composition, grid.physics[p.variant].clone())?
-        .with_fit_mass_fraction(grid.fit_mass_fraction)?
-        .with_profile(false);
+        .with_fit_mass_fraction(grid.fit_mass_fraction)?;
     if let Some(t) = run.tolerance {
         s = s.with_tolerance(t)?;
     }
@@ -40,23 +43,9 @@ fn settings_for(grid: &Grid, p: &GridPoint, run: &RunSettings) -> Result<ZamsSet
 }
 
 fn solve_one(settings: ZamsSettings, point: &GridPoint, continued: bool) -> PointResult {
-    let (outcome, unknowns) = match solve_detailed(&settings) {
-        Ok(ZamsOutcome::Converged(m)) => (Ok(m.summary), Some(m.unknowns)),
-        Ok(ZamsOutcome::NotConverged { report, .. }) => (
-            Err(format!(
-                "not converged after {} iterations (mismatch {:.2e}): {}",
-                report.iterations,
-                report.residual_norm,
-                report.failure.unwrap_or_default()
-            )),
-            None,
-        ),
-        Err(e) => (Err(e.to_string()), None),
-    };
     PointResult {
         point: point.clone(),
-        outcome,
-        unknowns,
+        outcome: solve(&settings).map(Box::new),
         continued,
     }
 }
@@ -66,7 +55,7 @@ fn neighbour<'a>(results: &'a [PointResult], p: &GridPoint) -> Option<&'a PointR
     results
         .iter()
         .filter(|r| {
-            r.unknowns.is_some()
+            r.outcome.is_ok()
                 && r.point.variant == p.variant
                 && r.point.composition == p.composition
         })
@@ -97,7 +86,7 @@ pub fn solve_points(
         .build()
         .map_err(|e| {
             Error::invalid(
-                "--threads",
+                "threads",
                 run.threads,
                 &format!("cannot start the worker threads: {e}"),
             )
@@ -117,10 +106,10 @@ pub fn solve_points(
             let retries: Vec<(usize, PointResult)> = snapshot
                 .par_iter()
                 .enumerate()
-                .filter(|(_, r)| r.unknowns.is_none())
+                .filter(|(_, r)| r.outcome.is_err())
                 .filter_map(|(i, r)| {
                     let n = neighbour(&snapshot, &r.point)?;
-                    let nu = n.unknowns?;
+                    let nu = n.unknowns()?;
                     let p = &r.point;
                     let start = guess::shifted(
                         &guess::as_row(&nu),
@@ -130,7 +119,7 @@ pub fn solve_points(
                     );
                     let s = settings[i].clone().with_unknowns_guess(start);
                     let retry = solve_one(s, p, true);
-                    retry.unknowns.is_some().then_some((i, retry))
+                    retry.outcome.is_ok().then_some((i, retry))
                 })
                 .collect();
             if retries.is_empty() {

@@ -14,7 +14,7 @@ pub struct Shard {
 impl Shard {
     /// Parse `K/N` with 1 <= K <= N.
     pub fn parse(text: &str) -> Result<Self> {
-        let bad = |why: &str| Error::invalid("--shard", text, &format!("{why}; e.g. --shard 2/8"));
+        let bad = |why: &str| Error::invalid("shard", text, &format!("{why}; e.g. 2/8"));
         let (k, n) = text.split_once('/').ok_or_else(|| bad("a shard is K/N"))?;
         let k: usize = k
             .trim()

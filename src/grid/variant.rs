@@ -1,7 +1,8 @@
 //! Named physics variants: `NAME=SPEC`, where SPEC overrides laws or factors of a base set.
 
 use crate::error::{Error, Result};
-use crate::physics::PhysicsOptions;
+use crate::physics::spec::OVERRIDE_KEYS;
+use crate::physics::PhysicsOverrides;
 
 /// A named set of overrides of the base physics.
 #[derive(Debug, Clone, PartialEq)]
@@ -11,10 +12,11 @@ pub struct Variant {
     /// The SPEC as given.
     pub spec: String,
     /// The overrides.
-    pub overrides: PhysicsOptions,
+    pub overrides: PhysicsOverrides,
 }
 
-const EXAMPLE: &str = "e.g. --variant base= --variant hot=opacity-factor:2 --variant soft='rates:power-law:nu=4;alpha:1.5'";
+const EXAMPLE: &str =
+    "e.g. base= (the base set), hot=opacity-factor:2, soft=rates:power-law:nu=4;alpha:1.5";
 
 impl Variant {
     /// The base set unchanged, named `base`.
@@ -22,15 +24,15 @@ impl Variant {
         Self {
             name: "base".into(),
             spec: String::new(),
-            overrides: PhysicsOptions::default(),
+            overrides: PhysicsOverrides::default(),
         }
     }
 
     /// Parse `NAME=SPEC`. SPEC is empty (the base set) or `;`-separated `KEY:VALUE` items with
-    /// KEY one of physics, eos, opacity, rates, convection, atmosphere (law names) or alpha,
-    /// opacity-factor, rates-factor (numbers). Each key at most once.
+    /// KEY one of [`OVERRIDE_KEYS`] and VALUE in the grammar of that key (a law as printed in the
+    /// JSON summary, or a number). Each key at most once.
     pub fn parse(text: &str) -> Result<Self> {
-        let bad = |why: String| Error::invalid("--variant", text, &format!("{why}; {EXAMPLE}"));
+        let bad = |why: String| Error::invalid("variant", text, &format!("{why}; {EXAMPLE}"));
         let (name, spec) = text
             .split_once('=')
             .ok_or_else(|| bad("a variant is NAME=SPEC".into()))?;
@@ -44,52 +46,28 @@ impl Variant {
                 "the name '{name}' must be letters, digits, - or _"
             )));
         }
-        let mut o = PhysicsOptions::default();
+        let mut overrides = PhysicsOverrides::default();
         for item in spec.split(';').map(str::trim).filter(|s| !s.is_empty()) {
             let (key, value) = item
                 .split_once(':')
                 .ok_or_else(|| bad(format!("'{item}' is not KEY:VALUE")))?;
-            let value = value.trim().to_string();
-            let number = |v: &str| -> Result<f64> {
-                v.parse::<f64>()
-                    .ok()
-                    .filter(|x| x.is_finite() && *x > 0.0)
-                    .ok_or_else(|| bad(format!("{key} needs a positive number, not '{v}'")))
-            };
-            let slot_taken = match key.trim() {
-                "physics" => o.physics.replace(value).is_some(),
-                "eos" => o.eos.replace(value).is_some(),
-                "opacity" => o.opacity.replace(value).is_some(),
-                "rates" => o.rates.replace(value).is_some(),
-                "convection" => o.convection.replace(value).is_some(),
-                "atmosphere" => o.atmosphere.replace(value).is_some(),
-                "alpha" => o.alpha.replace(number(&value)?).is_some(),
-                "opacity-factor" => o.opacity_factor.replace(number(&value)?).is_some(),
-                "rates-factor" => o.rates_factor.replace(number(&value)?).is_some(),
-                other => {
-                    return Err(bad(format!(
-                        "unknown key '{other}' (allowed: physics, eos, opacity, rates, convection, atmosphere, alpha, opacity-factor, rates-factor)"
-                    )))
-                }
-            };
-            if slot_taken {
-                return Err(bad(format!("'{}' is given twice", key.trim())));
+            let key = key.trim();
+            if !OVERRIDE_KEYS.contains(&key) {
+                return Err(bad(format!(
+                    "unknown key '{key}' (allowed: {})",
+                    OVERRIDE_KEYS.join(", ")
+                )));
             }
+            overrides.set(key, value.trim()).map_err(|e| match e {
+                Error::InvalidInput { allowed, .. } => bad(format!("{key}: {allowed}")),
+                other => other,
+            })?;
         }
         Ok(Self {
             name: name.to_string(),
             spec: spec.trim().to_string(),
-            overrides: o,
+            overrides,
         })
-    }
-
-    /// The factor this variant sets for `which` (`opacity` or `rates`), if any.
-    pub fn factor(&self, which: &str) -> Option<f64> {
-        match which {
-            "opacity" => self.overrides.opacity_factor,
-            "rates" => self.overrides.rates_factor,
-            _ => None,
-        }
     }
 }
 
@@ -104,12 +82,18 @@ mod tests {
         assert_eq!(v.overrides.opacity_factor, Some(2.0));
         let v = Variant::parse("tab=opacity:table:models/demo-opacity.csv").unwrap();
         assert_eq!(
-            v.overrides.opacity.as_deref(),
+            v.overrides.opacity.map(|o| o.to_string()).as_deref(),
             Some("table:models/demo-opacity.csv")
         );
         let v = Variant::parse("soft=rates:power-law:nu=4;alpha:1.5").unwrap();
-        assert_eq!(v.overrides.rates.as_deref(), Some("power-law:nu=4"));
+        assert!(matches!(
+            v.overrides.rates,
+            Some(crate::physics::RatesSpec::PowerLaw { nu, .. }) if nu == 4.0
+        ));
         assert_eq!(v.overrides.alpha, Some(1.5));
+        // What the JSON summary prints is accepted as a variant value.
+        let v = Variant::parse("m=convection:mlt:alpha=1.8").unwrap();
+        assert!(v.overrides.convection.is_some());
         // The examples this module prints must also build.
         for spec in [
             "hot=opacity-factor:2",
@@ -117,16 +101,16 @@ mod tests {
         ] {
             let v = Variant::parse(spec).unwrap();
             assert!(
-                PhysicsOptions::default()
+                PhysicsOverrides::default()
                     .overridden_by(&v.overrides)
-                    .build()
+                    .resolve()
                     .is_ok(),
                 "{spec}"
             );
         }
         assert_eq!(
             Variant::parse("base=").unwrap().overrides,
-            PhysicsOptions::default()
+            PhysicsOverrides::default()
         );
     }
 
@@ -140,6 +124,8 @@ mod tests {
             "x=alpha:-1",
             "x=alpha",
             "x=alpha:1;alpha:2",
+            "x=eos:nonsense",
+            "x=opacity:kramers:guillotine=-1",
         ] {
             assert!(Variant::parse(bad).is_err(), "{bad}");
         }

@@ -1,6 +1,8 @@
 //! General numerical tools that know nothing about stars.
 
 pub mod brent;
+pub mod cube_root;
 pub mod newton;
+pub mod ode;
 pub mod scalar;
 pub mod smooth;

@@ -6,19 +6,20 @@
 //! that its 2-norm (the Newton direction is a descent direction of |F|^2). It records the
 //! history of every iteration so that a caller can show why a solve failed.
 
-use crate::error::Error;
 use nalgebra::{SMatrix, SVector};
 
 /// A square system F(u) = 0 of dimension `N`.
 pub trait NewtonProblem<const N: usize> {
+    /// Why F or its Jacobian could not be evaluated.
+    type Error;
     /// F(u). May fail (for a trial outside where F is defined).
-    fn residual(&mut self, u: &SVector<f64, N>) -> Result<SVector<f64, N>, Error>;
+    fn residual(&mut self, u: &SVector<f64, N>) -> Result<SVector<f64, N>, Self::Error>;
     /// dF/du at `u`, where F(u) = `f`.
     fn jacobian(
         &mut self,
         u: &SVector<f64, N>,
         f: &SVector<f64, N>,
-    ) -> Result<SMatrix<f64, N, N>, Error>;
+    ) -> Result<SMatrix<f64, N, N>, Self::Error>;
     /// Told the current residual norm before each iteration, so that a problem can tighten its
     /// own accuracy as the iteration converges. Returns true if it changed how F is computed
     /// (the driver then evaluates F again at the current point).
@@ -72,21 +73,51 @@ pub struct IterationRecord {
     pub step_length: f64,
 }
 
+/// Why the iteration stopped.
+#[derive(Debug, Clone, PartialEq)]
+#[non_exhaustive]
+pub enum Termination<E> {
+    /// The max-norm of F fell below the tolerance.
+    Converged,
+    /// F could not be evaluated at the starting point.
+    StartNotEvaluable(E),
+    /// No step along the Newton direction reduced the mismatch, and the problem could not
+    /// sharpen its evaluation.
+    Stalled,
+    /// The Jacobian was singular or gave a non-finite step.
+    SingularJacobian,
+    /// The Jacobian could not be evaluated.
+    JacobianFailed(E),
+    /// F could not be evaluated again after the problem changed its accuracy.
+    ReevaluationFailed(E),
+    /// The iteration limit was reached.
+    IterationLimit,
+}
+
 /// What the iteration did.
 #[derive(Debug, Clone, PartialEq)]
-pub struct NewtonReport<const N: usize> {
-    /// The last accepted point (the solution when `converged`).
+pub struct NewtonReport<const N: usize, E> {
+    /// The last accepted point (the solution when converged).
     pub solution: SVector<f64, N>,
     /// Max-norm of F there.
     pub residual_norm: f64,
     /// Iterations done.
     pub iterations: usize,
-    /// Whether the tolerance was met.
-    pub converged: bool,
-    /// Why it stopped, when not converged.
-    pub failure: Option<String>,
+    /// Why it stopped.
+    pub termination: Termination<E>,
     /// Every iteration.
     pub history: Vec<IterationRecord>,
+    /// Evaluations of F asked of the problem (including line-search trials).
+    pub residual_evaluations: usize,
+    /// Jacobians asked of the problem (Broyden updates not counted).
+    pub jacobian_evaluations: usize,
+}
+
+impl<const N: usize, E> NewtonReport<N, E> {
+    /// Whether the tolerance was met.
+    pub fn converged(&self) -> bool {
+        matches!(self.termination, Termination::Converged)
+    }
 }
 
 fn two_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
@@ -113,8 +144,9 @@ fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
 fn reevaluate<const N: usize, P: NewtonProblem<N>>(
     problem: &mut P,
     u: &SVector<f64, N>,
-    report: &mut NewtonReport<N>,
+    report: &mut NewtonReport<N, P::Error>,
 ) -> Option<(SVector<f64, N>, f64)> {
+    report.residual_evaluations += 1;
     match problem.residual(u) {
         Ok(f) => {
             let norm = max_norm(&f);
@@ -122,7 +154,7 @@ fn reevaluate<const N: usize, P: NewtonProblem<N>>(
             Some((f, norm))
         }
         Err(e) => {
-            report.failure = Some(format!("re-evaluation at higher accuracy failed: {e}"));
+            report.termination = Termination::ReevaluationFailed(e);
             None
         }
     }
@@ -133,20 +165,21 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
     problem: &mut P,
     u0: SVector<f64, N>,
     settings: &NewtonSettings,
-) -> NewtonReport<N> {
+) -> NewtonReport<N, P::Error> {
     let mut report = NewtonReport {
         solution: u0,
         residual_norm: f64::INFINITY,
         iterations: 0,
-        converged: false,
-        failure: None,
+        termination: Termination::IterationLimit,
         history: Vec::new(),
+        residual_evaluations: 1,
+        jacobian_evaluations: 0,
     };
     let mut u = u0;
     let mut f = match problem.residual(&u) {
         Ok(f) => f,
         Err(e) => {
-            report.failure = Some(format!("the starting guess cannot be integrated: {e}"));
+            report.termination = Termination::StartNotEvaluable(e);
             return report;
         }
     };
@@ -162,32 +195,35 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             }
         }
         if norm < settings.tolerance {
-            report.converged = true;
+            report.termination = Termination::Converged;
             return report;
         }
         report.iterations += 1;
         let used_broyden = reusable.is_some();
         let jac = match reusable.take() {
             Some(j) => j,
-            None => match problem.jacobian(&u, &f) {
-                Ok(j) => j,
-                Err(e) => {
-                    report.failure = Some(format!("Jacobian failed: {e}"));
-                    return report;
+            None => {
+                report.jacobian_evaluations += 1;
+                match problem.jacobian(&u, &f) {
+                    Ok(j) => j,
+                    Err(e) => {
+                        report.termination = Termination::JacobianFailed(e);
+                        return report;
+                    }
                 }
-            },
+            }
         };
         // Solved as a dynamic matrix: once per iteration, so the allocation does not matter.
         let dense = nalgebra::DMatrix::from_fn(N, N, |i, j| jac[(i, j)]);
         let rhs = nalgebra::DVector::from_fn(N, |i, _| -f[i]);
         let Some(solution) = dense.lu().solve(&rhs) else {
-            report.failure = Some("singular Jacobian".to_string());
+            report.termination = Termination::SingularJacobian;
             return report;
         };
         let mut du = SVector::<f64, N>::from_fn(|i, _| solution[i]);
         let step_norm = max_norm(&du);
         if !step_norm.is_finite() {
-            report.failure = Some("non-finite Newton step".to_string());
+            report.termination = Termination::SingularJacobian;
             return report;
         }
         if step_norm > settings.max_step {
@@ -203,6 +239,7 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             lambda = 1.0;
             for _ in 0..=settings.max_halvings {
                 let trial = u + du * lambda;
+                report.residual_evaluations += 1;
                 if let Ok(ft) = problem.residual(&trial) {
                     let nt = max_norm(&ft);
                     let better = if use_two_norm {
@@ -246,21 +283,16 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
                 None => return report,
             },
             None => {
-                report.failure = Some(format!(
-                    "stalled: no step along the Newton direction reduces the mismatch {norm:.3e}"
-                ));
+                report.termination = Termination::Stalled;
                 return report;
             }
         }
     }
-    if norm < settings.tolerance {
-        report.converged = true;
+    report.termination = if norm < settings.tolerance {
+        Termination::Converged
     } else {
-        report.failure = Some(format!(
-            "reached the limit of {} iterations",
-            settings.max_iterations
-        ));
-    }
+        Termination::IterationLimit
+    };
     report
 }
 
@@ -271,7 +303,8 @@ mod tests {
     /// Rosenbrock-like 2-D system with root (1, 1): F = (10 (u1 - u0^2), 1 - u0).
     struct Banana;
     impl NewtonProblem<2> for Banana {
-        fn residual(&mut self, u: &SVector<f64, 2>) -> Result<SVector<f64, 2>, Error> {
+        type Error = ();
+        fn residual(&mut self, u: &SVector<f64, 2>) -> Result<SVector<f64, 2>, ()> {
             Ok(SVector::<f64, 2>::new(
                 10.0 * (u[1] - u[0] * u[0]),
                 1.0 - u[0],
@@ -281,7 +314,7 @@ mod tests {
             &mut self,
             u: &SVector<f64, 2>,
             _f: &SVector<f64, 2>,
-        ) -> Result<SMatrix<f64, 2, 2>, Error> {
+        ) -> Result<SMatrix<f64, 2, 2>, ()> {
             Ok(SMatrix::<f64, 2, 2>::new(-20.0 * u[0], 10.0, -1.0, 0.0))
         }
     }
@@ -293,21 +326,23 @@ mod tests {
             ..Default::default()
         };
         let r = solve(&mut Banana, SVector::<f64, 2>::new(-1.2, 1.0), &settings);
-        assert!(r.converged, "{r:?}");
+        assert!(r.converged(), "{r:?}");
+        assert!(r.residual_evaluations > r.iterations && r.jacobian_evaluations >= 1);
         assert!((r.solution[0] - 1.0).abs() < 1e-8 && (r.solution[1] - 1.0).abs() < 1e-8);
     }
 
     /// F(u) = u^2 + 1 has no real root: the driver must stop and say so, not loop.
     struct NoRoot;
     impl NewtonProblem<1> for NoRoot {
-        fn residual(&mut self, u: &SVector<f64, 1>) -> Result<SVector<f64, 1>, Error> {
+        type Error = ();
+        fn residual(&mut self, u: &SVector<f64, 1>) -> Result<SVector<f64, 1>, ()> {
             Ok(SVector::<f64, 1>::new(u[0] * u[0] + 1.0))
         }
         fn jacobian(
             &mut self,
             u: &SVector<f64, 1>,
             _f: &SVector<f64, 1>,
-        ) -> Result<SMatrix<f64, 1, 1>, Error> {
+        ) -> Result<SMatrix<f64, 1, 1>, ()> {
             Ok(SMatrix::<f64, 1, 1>::new(2.0 * u[0]))
         }
     }
@@ -319,7 +354,10 @@ mod tests {
             SVector::<f64, 1>::new(0.5),
             &NewtonSettings::default(),
         );
-        assert!(!r.converged);
-        assert!(r.failure.is_some());
+        assert!(!r.converged());
+        assert!(matches!(
+            r.termination,
+            Termination::Stalled | Termination::SingularJacobian
+        ));
     }
 }

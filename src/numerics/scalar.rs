@@ -48,6 +48,63 @@ where
     }
 }
 
+/// A root of g inside a bracket, by the Illinois method (regula falsi whose retained end has
+/// its value halved when the same end is kept twice in a row; Dowell & Jarratt 1971, BIT 11,
+/// 168), with a bisection whenever two iterations have not halved the bracket.
+///
+/// `g(a) = ga` and `g(b) = gb` must have opposite signs (or `gb` = 0). Returns the end of the
+/// final bracket on `b`'s side: a point where g has the sign of `gb` (or is 0), within
+/// `tolerance` of a root. `a` may be above or below `b`. Errors of `g` are passed through.
+pub fn illinois<E, G>(mut g: G, a: f64, ga: f64, b: f64, gb: f64, tolerance: f64) -> Result<f64, E>
+where
+    G: FnMut(f64) -> Result<f64, E>,
+{
+    // Far more than needed: the bracket at least halves every three evaluations.
+    const MAX_ITERATIONS: usize = 400;
+    let (mut a, mut ga, mut b, mut gb) = (a, ga, b, gb);
+    if gb == 0.0 || ga == 0.0 {
+        return Ok(b);
+    }
+    // +1: b was replaced last, -1: a was replaced last.
+    let mut last_side = 0;
+    let mut width_two_ago = f64::INFINITY;
+    let mut width_one_ago = (b - a).abs();
+    for _ in 0..MAX_ITERATIONS {
+        let width = (b - a).abs();
+        if width <= tolerance {
+            break;
+        }
+        let mut c = b - gb * (b - a) / (gb - ga);
+        let inside = (c - a) * (c - b) < 0.0;
+        if !inside || width > 0.5 * width_two_ago {
+            c = 0.5 * (a + b);
+            last_side = 0;
+        }
+        width_two_ago = width_one_ago;
+        width_one_ago = width;
+        let gc = g(c)?;
+        if gc == 0.0 {
+            return Ok(c);
+        }
+        if (gc < 0.0) == (gb < 0.0) {
+            b = c;
+            gb = gc;
+            if last_side == 1 {
+                ga *= 0.5;
+            }
+            last_side = 1;
+        } else {
+            a = c;
+            ga = gc;
+            if last_side == -1 {
+                gb *= 0.5;
+            }
+            last_side = -1;
+        }
+    }
+    Ok(b)
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -56,6 +113,36 @@ mod tests {
     fn finds_cube_root_of_two() {
         let r: Result<f64, Option<()>> = newton_1d(|s| Ok(s * s * s - 2.0), 1.0, 1e-14, 50);
         assert!((r.unwrap() - 2f64.cbrt()).abs() < 1e-12);
+    }
+
+    /// The Illinois method finds cos x = 0 at pi/2 (to 1e-14: a few ulp of pi/2) from both
+    /// orientations of the bracket, returning the end on b's side.
+    #[test]
+    fn illinois_finds_pi_over_two() {
+        const ROOT_TOLERANCE: f64 = 1e-14;
+        let g = |x: f64| Ok::<f64, ()>(x.cos());
+        let r = illinois(g, 0.0, 1.0, 3.0, 3f64.cos(), ROOT_TOLERANCE).unwrap();
+        assert!((r - std::f64::consts::FRAC_PI_2).abs() < ROOT_TOLERANCE);
+        assert!(r.cos() <= 0.0);
+        let r = illinois(g, 3.0, 3f64.cos(), 0.0, 1.0, ROOT_TOLERANCE).unwrap();
+        assert!((r - std::f64::consts::FRAC_PI_2).abs() < ROOT_TOLERANCE);
+        assert!(r.cos() >= 0.0);
+        // A function flat on one side (regula falsi alone would crawl): x^9 - 1e-9 on [0, 2].
+        let mut calls = 0;
+        let r = illinois(
+            |x: f64| {
+                calls += 1;
+                Ok::<f64, ()>(x.powi(9) - 1e-9)
+            },
+            0.0,
+            -1e-9,
+            2.0,
+            512.0,
+            1e-13,
+        )
+        .unwrap();
+        assert!((r - 0.1).abs() < 1e-13, "{r}");
+        assert!(calls < 80, "{calls} calls");
     }
 
     #[test]

@@ -33,9 +33,9 @@ impl HomogeneousSphere {
     pub fn new(gamma1: f64, intervals: usize) -> Result<Self> {
         if !(gamma1.is_finite() && gamma1 > 0.0) {
             return Err(Error::invalid(
-                "--gamma1",
+                "gamma1",
                 gamma1,
-                "Gamma_1 must be a finite positive number, e.g. --gamma1 1.6667",
+                "Gamma_1 must be a finite positive number, e.g. 1.6667",
             ));
         }
         if !(MIN_INTERVALS..=MAX_INTERVALS).contains(&intervals) {

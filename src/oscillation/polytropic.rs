@@ -26,7 +26,7 @@ use crate::polytrope::LaneEmdenSolution;
 
 /// What `--gamma1` allows for a polytrope, in the words of the error message.
 pub const GAMMA1_ALLOWED: &str =
-    "Gamma_1 must be a finite number above 4/3 (a dynamically stable star), e.g. --gamma1 1.6667";
+    "Gamma_1 must be a finite number above 4/3 (a dynamically stable star), e.g. 1.6667";
 
 /// A polytrope prepared for the oscillation solver.
 #[derive(Debug, Clone, PartialEq)]
@@ -47,9 +47,9 @@ impl PolytropicModel {
     pub fn new(solution: &LaneEmdenSolution, gamma1: f64) -> Result<Self> {
         if solution.xi1.is_none() {
             return Err(Error::invalid(
-                "--polytrope",
+                "index",
                 solution.index,
-                "the polytrope must have a surface: an index in [0, 5), e.g. --polytrope 3",
+                "the polytrope must have a surface: an index in [0, 5), e.g. 3",
             ));
         }
         Self::truncated(solution, gamma1, solution.profile.len())
@@ -60,7 +60,7 @@ impl PolytropicModel {
     /// pressure-truncated polytrope otherwise, with rho_s > 0 and a finite V at the surface).
     pub fn truncated(solution: &LaneEmdenSolution, gamma1: f64, points: usize) -> Result<Self> {
         if !(gamma1.is_finite() && gamma1 > 0.0) {
-            return Err(Error::invalid("--gamma1", gamma1, GAMMA1_ALLOWED));
+            return Err(Error::invalid("gamma1", gamma1, GAMMA1_ALLOWED));
         }
         if points < 2 || points > solution.profile.len() {
             return Err(Error::invalid(

@@ -97,7 +97,7 @@ impl OscillationSettings {
     pub fn with_phase_per_step(mut self, phase: f64) -> Result<Self> {
         if !(phase > 0.0 && phase <= 2.0) {
             return Err(Error::invalid(
-                "phase per step",
+                "phase_per_step",
                 phase,
                 "a number in (0, 2] radians, e.g. 0.2",
             ));
@@ -110,7 +110,7 @@ impl OscillationSettings {
     pub fn with_fitting_point(mut self, x: f64) -> Result<Self> {
         if !(0.05..=0.95).contains(&x) {
             return Err(Error::invalid(
-                "fitting point",
+                "fitting_point",
                 x,
                 "a fractional radius in [0.05, 0.95], e.g. 0.5",
             ));
@@ -123,7 +123,7 @@ impl OscillationSettings {
     pub fn with_scan_density(mut self, density: f64) -> Result<Self> {
         if !(1.0..=100.0).contains(&density) {
             return Err(Error::invalid(
-                "scan density",
+                "scan_density",
                 density,
                 "a number of scan points per mode spacing in [1, 100], e.g. 4",
             ));
@@ -383,16 +383,16 @@ pub fn find_modes(
 ) -> Result<Vec<Mode>> {
     if degree > MAX_DEGREE {
         return Err(Error::invalid(
-            "--degrees",
+            "degree",
             degree,
-            "degrees from 0 to 1000, e.g. --degrees 0,1,2,3",
+            "degrees are integers from 0 to 1000, e.g. 2",
         ));
     }
     if max_order == 0 || max_order > MAX_ORDER {
         return Err(Error::invalid(
-            "--max-order",
+            "max_order",
             max_order,
-            "an order from 1 to 1000, e.g. --max-order 25",
+            "the highest order must be an integer from 1 to 1000, e.g. 25",
         ));
     }
     let formulation = Formulation::for_degree(degree, settings.cowling);

@@ -8,8 +8,7 @@
 use crate::error::Result;
 use crate::grid::compare::{differences, sensitivities, single_factor_change};
 use crate::grid::run::PointResult;
-use crate::grid::Grid;
-use crate::physics::PhysicsOptions;
+use crate::grid::{Grid, GridRow};
 use serde::Serialize;
 use std::path::Path;
 
@@ -28,8 +27,11 @@ pub struct CompareRecord {
     pub spec: String,
     /// Whether this is the reference variant (the first).
     pub reference: bool,
-    /// `converged`, `converged (continuation)`, or why the model did not converge.
+    /// Status code: `converged`, `continued` (from a neighbour's solution), or why the model did
+    /// not converge (`stalled`, `iteration-limit`, ... as in the sequence table).
     pub status: String,
+    /// Why the model did not converge (empty when it did).
+    pub reason: String,
     /// Luminosity, L_sun.
     pub luminosity_lsun: Option<f64>,
     /// Radius, R_sun.
@@ -72,7 +74,7 @@ pub struct CompareRecord {
 impl CompareRecord {
     /// Whether the model converged.
     pub fn converged(&self) -> bool {
-        self.status.starts_with("converged")
+        self.status == "converged" || self.status == "continued"
     }
 }
 
@@ -90,48 +92,31 @@ pub struct CompareTable {
     pub records: Vec<CompareRecord>,
 }
 
-fn status(r: &PointResult) -> String {
-    match &r.outcome {
-        Ok(_) if r.continued => "converged (continuation)".to_string(),
-        Ok(_) => "converged".to_string(),
-        Err(why) => why.clone(),
-    }
-}
-
 impl CompareTable {
     /// The table for the solved `results` of `grid` (a grid of one composition whose first
-    /// variant is the reference, built from the options `base`), ordered by `masses` and then
-    /// by variant. Points missing from `results` are skipped.
-    pub fn new(
-        grid: &Grid,
-        base: &PhysicsOptions,
-        masses: &[f64],
-        results: &[PointResult],
-    ) -> Self {
+    /// variant is the reference), ordered by `masses` and then by variant. Points missing from
+    /// `results` are skipped.
+    pub fn new(grid: &Grid, masses: &[f64], results: &[PointResult]) -> Self {
         let find = |v: usize, m: f64| {
             results
                 .iter()
                 .find(|r| r.point.variant == v && r.point.mass_msun == m)
         };
-        let effective: Vec<PhysicsOptions> = grid
-            .variants
-            .iter()
-            .map(|v| base.overridden_by(&v.overrides))
-            .collect();
         let mut records = Vec::new();
         let (mut x, mut z) = (f64::NAN, f64::NAN);
         for &m in masses {
-            let reference = find(0, m).and_then(|r| r.outcome.as_ref().ok());
+            let reference = find(0, m).and_then(|r| r.outcome.as_ref().ok().map(|m| m.summary));
             for (v, variant) in grid.variants.iter().enumerate() {
                 let Some(r) = find(v, m) else { continue };
                 x = r.point.composition.x();
                 z = r.point.composition.z();
-                let own = r.outcome.as_ref().ok();
+                let own = r.outcome.as_ref().ok().map(|m| m.summary);
                 let d = match (reference, own) {
-                    (Some(a), Some(b)) => Some(differences(a, b)),
+                    (Some(a), Some(b)) => Some(differences(&a, &b)),
                     _ => None,
                 };
-                let change = single_factor_change(&effective[0], &effective[v]);
+                let change = single_factor_change(grid.physics[0].spec(), grid.physics[v].spec());
+                let row = GridRow::new(grid, "", r);
                 let s = match (d, change) {
                     (Some(d), Some(c)) => sensitivities(&d, c),
                     _ => None,
@@ -143,14 +128,14 @@ impl CompareTable {
                     variant: variant.name.clone(),
                     spec: variant.spec.clone(),
                     reference: v == 0,
-                    status: status(r),
-                    luminosity_lsun: own.and_then(|s| s.luminosity_lsun),
-                    radius_rsun: own.and_then(|s| s.radius_rsun),
-                    teff_k: own.and_then(|s| s.teff_k),
-                    central_temperature_k: own.and_then(|s| s.central_temperature_k),
-                    central_density_g_cm3: own.and_then(|s| s.central_density_g_cm3),
-                    convective_core_mass_fraction: own
-                        .and_then(|s| s.convective_core_mass_fraction),
+                    status: row.status.code().to_string(),
+                    reason: row.reason,
+                    luminosity_lsun: own.map(|s| s.luminosity_lsun),
+                    radius_rsun: own.map(|s| s.radius_rsun),
+                    teff_k: own.map(|s| s.teff_k),
+                    central_temperature_k: own.map(|s| s.central_temperature_k),
+                    central_density_g_cm3: own.map(|s| s.central_density_g_cm3),
+                    convective_core_mass_fraction: own.map(|s| s.convective_core_mass_fraction),
                     dlog_luminosity_dex: d.and_then(|d| d.dlog_luminosity),
                     dlog_radius_dex: d.and_then(|d| d.dlog_radius),
                     dlog_central_temperature_dex: d.and_then(|d| d.dlog_central_temperature),

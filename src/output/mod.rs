@@ -2,6 +2,8 @@
 
 pub mod atomic;
 pub mod compare;
+pub mod format;
+pub mod meta;
 pub mod modes;
 pub mod plot;
 pub mod polytrope;
@@ -9,5 +11,5 @@ pub mod probe;
 pub mod sequence;
 pub mod zams;
 
+pub use crate::physics::probe::ProbeReport;
 pub use atomic::{check_output_path, write_atomically};
-pub use probe::ProbeReport;

@@ -5,14 +5,19 @@
 use super::polytrope::number;
 use crate::error::Result;
 use crate::oscillation::{Mode, SeismicSummary};
+use crate::output::meta::Provenance;
 use crate::output::write_atomically;
 use serde::Serialize;
 use std::fmt::Write as _;
 use std::path::Path;
 
-/// What was computed (the request, after validation).
+/// What was computed: the provenance (`program`, `version`, `command`, `constants`; module
+/// `output::meta`) and the request, after validation.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct ModesMeta {
+    /// Program, version, command line and the sources of the constants.
+    #[serde(flatten)]
+    pub provenance: Provenance,
     /// The equilibrium model: "polytrope".
     pub model: &'static str,
     /// Polytropic index n.
@@ -189,9 +194,17 @@ struct EigenfunctionRow {
 }
 
 /// Write the eigenfunctions of `modes` (those that carry them) to `path` as one CSV table with
-/// the columns degree, order, x, xi_r, xi_h, p_prime, phi_prime (units above), atomically.
-pub fn write_eigenfunctions_csv(path: &Path, modes: &[Mode]) -> Result<()> {
+/// the columns degree, order, x, xi_r, xi_h, p_prime, phi_prime (units above), after the
+/// provenance as leading `# key: value` lines, atomically.
+pub fn write_eigenfunctions_csv(
+    path: &Path,
+    modes: &[Mode],
+    provenance: &Provenance,
+) -> Result<()> {
     write_atomically(path, |w| {
+        for line in provenance.comment_lines() {
+            writeln!(w, "{line}")?;
+        }
         let mut csv = csv::Writer::from_writer(w);
         for m in modes {
             let Some(e) = &m.eigenfunction else { continue };

@@ -1,140 +1,211 @@
-//! Output schema of a ZAMS model: the summary (JSON object / text) and the profile (CSV or JSON
-//! rows). Field names are the JSON keys and CSV column names; each carries its unit.
+//! Output of one ZAMS model: the summary (JSON object or aligned text) and the profile (CSV or
+//! JSON rows). Keys carry their units; the summary quantities and their documentation come from
+//! [`ModelSummary::FIELDS`], the profile columns from [`ProfileRow`].
+//!
+//! JSON summary keys: `mass_msun`, `x`, `y`, `z`, `physics` (a model-file fragment: the keys of
+//! [`crate::physics::PhysicsSpec`]), `converged`, `iterations`, `fit_mismatch`,
+//! `fit_mass_fraction`, every key of [`ModelSummary::FIELDS`], `rhs_evaluations`. A model that
+//! did not converge has `converged: false`, `status` and `reason`, and every summary quantity
+//! `null`.
 
-use crate::physics::PhysicsDescription;
-use serde::Serialize;
+use super::format::{laws_text, num};
+use crate::error::{Error, Result};
+use crate::structure::{ModelSummary, NotConverged, ProfileRow, ZamsModel, ZamsSettings};
+use serde_json::{json, Map, Value};
+use std::path::Path;
 
-/// Summary of one converged (or, with `converged: false`, failed) ZAMS model.
-#[derive(Debug, Clone, PartialEq, Serialize)]
-pub struct ZamsSummary {
-    /// Stellar mass, M_sun.
-    pub mass_msun: f64,
-    /// Hydrogen mass fraction X.
-    pub x: f64,
-    /// Metal mass fraction Z.
-    pub z: f64,
-    /// Every law used, with its parameters.
-    pub physics: PhysicsDescription,
-    /// Whether the fitting-point mismatch fell below the tolerance. A non-converged model has
-    /// every physical field `null`.
-    pub converged: bool,
-    /// Newton iterations.
-    pub iterations: usize,
-    /// Final max-norm of the relative mismatch of (r, P, T, L) at the fitting mass.
-    pub fit_mismatch: f64,
-    /// Fitting mass as a fraction of M.
-    pub fit_mass_fraction: f64,
-    /// Photospheric radius, R_sun.
-    pub radius_rsun: Option<f64>,
-    /// Surface luminosity, L_sun.
-    pub luminosity_lsun: Option<f64>,
-    /// Effective temperature, K, from L = 4 pi R^2 sigma T_eff^4.
-    pub teff_k: Option<f64>,
-    /// log10 of the surface gravity G M / R^2 in cm s^-2.
-    pub log_g_cgs: Option<f64>,
-    /// Central temperature, K.
-    pub central_temperature_k: Option<f64>,
-    /// Central density, g cm^-3.
-    pub central_density_g_cm3: Option<f64>,
-    /// Central pressure, dyn cm^-2.
-    pub central_pressure_dyn_cm2: Option<f64>,
-    /// Electron degeneracy parameter psi = mu_e,chem / (k T) at the centre (psi << 0: not
-    /// degenerate; psi > 0: degenerate). `null` for laws that assume non-degenerate electrons.
-    pub central_degeneracy: Option<f64>,
-    /// Mass fraction of the convective region that contains the centre (0 if the centre is
-    /// radiative).
-    pub convective_core_mass_fraction: Option<f64>,
-    /// Mass fraction of the outermost convective region if it reaches within 1e-3 M of the
-    /// surface (0 otherwise). A star convective from the centre to there is fully convective
-    /// and has 1 for both core and envelope (they are the same region: do not add them).
-    pub convective_envelope_mass_fraction: Option<f64>,
-    /// Fraction of L supplied by the CNO cycle.
-    pub cno_luminosity_fraction: Option<f64>,
-    /// L / L_Edd with L_Edd = 4 pi G M c / kappa_es and kappa_es = sigma_T (1+X) / (2 m_u).
-    pub eddington_ratio: Option<f64>,
-    /// Kelvin–Helmholtz time G M^2 / (R L), years.
-    pub kelvin_helmholtz_time_yr: Option<f64>,
-    /// Dynamical time sqrt(R^3 / (G M)), s.
-    pub dynamical_time_s: Option<f64>,
-    /// Hydrogen-burning lifetime estimate 0.1 X M (Q / 4 m_H c^2) c^2 / L, years (see
-    /// [`crate::structure::nuclear_time_yr`] for the assumptions).
-    pub nuclear_time_yr: Option<f64>,
-    /// |integral of 3 P / rho dm / integral of G m / r dm - 1| (virial theorem, 0 when exact).
-    pub virial_residual: Option<f64>,
-    /// |integral of eps dm / L - 1| (energy conservation, 0 when exact).
-    pub luminosity_residual: Option<f64>,
-    /// Right-hand-side evaluations of the structure equations spent on this model.
-    pub rhs_evaluations: u64,
+/// Identification keys shared by converged and failed summaries.
+fn identification(settings: &ZamsSettings) -> Map<String, Value> {
+    let c = settings.composition();
+    let mut m = Map::new();
+    m.insert("mass_msun".into(), json!(settings.mass_msun()));
+    m.insert("x".into(), json!(c.x()));
+    m.insert("y".into(), json!(c.y()));
+    m.insert("z".into(), json!(c.z()));
+    m.insert("physics".into(), json!(settings.physics().spec()));
+    m
 }
 
-/// One row of a ZAMS profile, centre first. CSV columns appear in this order.
-#[derive(Debug, Clone, Copy, PartialEq, Serialize, serde::Deserialize)]
-pub struct ProfileRow {
-    /// Mass inside the shell, g.
-    pub mass_g: f64,
-    /// m / M.
-    #[serde(rename = "m_over_M")]
-    pub m_over_m: f64,
-    /// Radius, cm.
-    pub radius_cm: f64,
-    /// r / R.
-    #[serde(rename = "r_over_R")]
-    pub r_over_r: f64,
-    /// Total pressure, dyn cm^-2.
-    pub pressure_dyn_cm2: f64,
-    /// Temperature, K.
-    pub temperature_k: f64,
-    /// Density, g cm^-3.
-    pub density_g_cm3: f64,
-    /// Luminosity through the shell, erg s^-1.
-    pub luminosity_erg_s: f64,
-    /// pp-chain energy generation, erg g^-1 s^-1.
-    pub eps_pp_erg_g_s: f64,
-    /// CNO-cycle energy generation, erg g^-1 s^-1.
-    pub eps_cno_erg_g_s: f64,
-    /// Rosseland-mean opacity, cm^2 g^-1.
-    pub opacity_cm2_g: f64,
-    /// Radiative gradient.
-    pub nabla_rad: f64,
-    /// Adiabatic gradient.
-    pub nabla_ad: f64,
-    /// Actual gradient dln T / dln P.
-    pub nabla: f64,
-    /// 1 where nabla_rad > nabla_ad (Schwarzschild), else 0.
-    pub convective: u8,
-    /// Mean molecular weight of the gas.
-    pub mu: f64,
-    /// First adiabatic exponent.
-    pub gamma1: f64,
-    /// Brunt–Väisälä frequency squared N^2 = g^2 rho delta (nabla_ad - nabla) / P, rad^2 s^-2
-    /// (homogeneous composition, so no composition-gradient term).
-    pub brunt_n2_rad2_s2: f64,
-    /// Lamb frequency S_1 = sqrt(2) c_s / r, rad s^-1, with c_s^2 = Gamma_1 P / rho.
-    pub lamb_l1_rad_s: f64,
-    /// Lamb frequency S_2 = sqrt(6) c_s / r, rad s^-1.
-    pub lamb_l2_rad_s: f64,
+fn finite(v: f64) -> Value {
+    if v.is_finite() {
+        json!(v)
+    } else {
+        Value::Null
+    }
 }
 
-/// CSV header of a profile: the fixed column names, in order.
-pub const PROFILE_COLUMNS: [&str; 20] = [
-    "mass_g",
-    "m_over_M",
-    "radius_cm",
-    "r_over_R",
-    "pressure_dyn_cm2",
-    "temperature_k",
-    "density_g_cm3",
-    "luminosity_erg_s",
-    "eps_pp_erg_g_s",
-    "eps_cno_erg_g_s",
-    "opacity_cm2_g",
-    "nabla_rad",
-    "nabla_ad",
-    "nabla",
-    "convective",
-    "mu",
-    "gamma1",
-    "brunt_n2_rad2_s2",
-    "lamb_l1_rad_s",
-    "lamb_l2_rad_s",
-];
+/// The JSON summary of a converged model.
+pub fn summary_json(model: &ZamsModel) -> Value {
+    let mut m = identification(model.settings());
+    m.insert("converged".into(), Value::Bool(true));
+    m.insert("iterations".into(), json!(model.stats.iterations));
+    m.insert("fit_mismatch".into(), json!(model.stats.fit_mismatch));
+    m.insert("fit_mass_fraction".into(), json!(model.fit_mass_fraction()));
+    for (f, v) in ModelSummary::FIELDS.iter().zip(model.summary.values()) {
+        m.insert(f.key.into(), finite(v));
+    }
+    m.insert("rhs_evaluations".into(), json!(model.stats.rhs_evaluations));
+    Value::Object(m)
+}
+
+/// The JSON summary of a model that did not converge: identification, `converged: false`, the
+/// status code and reason, and every summary quantity `null`.
+pub fn failure_json(settings: &ZamsSettings, failure: &NotConverged) -> Value {
+    let mut m = identification(settings);
+    m.insert("converged".into(), Value::Bool(false));
+    m.insert("status".into(), json!(failure.code()));
+    m.insert("reason".into(), json!(failure.reason()));
+    m.insert("iterations".into(), json!(failure.iterations));
+    m.insert("fit_mismatch".into(), finite(failure.mismatch));
+    m.insert(
+        "fit_mass_fraction".into(),
+        json!(settings.fit_mass_fraction()),
+    );
+    for f in ModelSummary::FIELDS {
+        m.insert(f.key.into(), Value::Null);
+    }
+    m.insert("rhs_evaluations".into(), json!(failure.rhs_evaluations));
+    Value::Object(m)
+}
+
+/// Pretty JSON text of `value`.
+pub fn to_json_text(value: &Value) -> Result<String> {
+    serde_json::to_string_pretty(value).map_err(|e| Error::Io {
+        path: "stdout".to_string(),
+        reason: e.to_string(),
+    })
+}
+
+/// Profile file format.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum ProfileFormat {
+    /// Comma-separated values with a header row (the field names of [`ProfileRow`]).
+    Csv,
+    /// A JSON array of row objects.
+    Json,
+}
+
+/// Write profile rows as CSV or JSON, atomically.
+pub fn write_profile(path: &Path, rows: &[ProfileRow], format: ProfileFormat) -> Result<()> {
+    super::write_atomically(path, |w| match format {
+        ProfileFormat::Csv => {
+            let mut csv = csv::Writer::from_writer(w);
+            for r in rows {
+                csv.serialize(r).map_err(std::io::Error::other)?;
+            }
+            csv.flush()
+        }
+        ProfileFormat::Json => {
+            serde_json::to_writer(&mut *w, rows).map_err(std::io::Error::other)?;
+            w.write_all(b"\n")
+        }
+    })
+}
+
+/// The summary as aligned text with units.
+pub fn text_summary(model: &ZamsModel) -> String {
+    let s = &model.summary;
+    let st = &model.stats;
+    let c = model.composition();
+    let mut out = String::new();
+    let mut line = |label: &str, value: String, unit: &str| {
+        out.push_str(&format!("{label:<32} {value:>13}  {unit}\n"));
+    };
+    let p = model.physics();
+    line("mass", num(model.mass_msun()), "M_sun");
+    line(
+        "X, Y, Z",
+        format!("{:.4}, {:.4}, {:.4}", c.x(), c.y(), c.z()),
+        "mass fractions",
+    );
+    let laws = laws_text(p);
+    let (first, second) = laws.split_at(laws.find(", convection").unwrap_or(laws.len()));
+    line("physics", p.preset.to_string(), &format!("{first},"));
+    line("", String::new(), second.trim_start_matches(", "));
+    line(
+        "converged",
+        "true".to_string(),
+        &format!(
+            "{} Newton iterations, mismatch {:.1e} at m/M = {}",
+            st.iterations,
+            st.fit_mismatch,
+            model.fit_mass_fraction()
+        ),
+    );
+    line("radius", num(s.radius_rsun), "R_sun");
+    line("luminosity", num(s.luminosity_lsun), "L_sun");
+    line("effective temperature", num(s.teff_k), "K");
+    line("log g", num(s.log_g_cgs), "(g in cm/s^2)");
+    line("central temperature", num(s.central_temperature_k), "K");
+    line("central density", num(s.central_density_g_cm3), "g/cm^3");
+    line(
+        "central pressure",
+        num(s.central_pressure_dyn_cm2),
+        "dyn/cm^2",
+    );
+    line(
+        "central degeneracy psi",
+        num(s.central_degeneracy),
+        "(electron chemical potential / kT; < 0: not degenerate)",
+    );
+    line(
+        "convective core",
+        num(s.convective_core_mass_fraction),
+        "of M",
+    );
+    line(
+        "convective envelope",
+        num(s.convective_envelope_mass_fraction),
+        "of M",
+    );
+    line("CNO share of L", num(s.cno_luminosity_fraction), "");
+    line("L / L_Edd", num(s.eddington_ratio), "(electron scattering)");
+    line(
+        "Kelvin-Helmholtz time",
+        num(s.kelvin_helmholtz_time_yr),
+        "yr (G M^2 / R L)",
+    );
+    line(
+        "dynamical time",
+        num(s.dynamical_time_s),
+        "s (sqrt(R^3 / G M))",
+    );
+    line(
+        "main-sequence lifetime",
+        num(s.nuclear_time_yr),
+        "yr (10% of H burnt at this L)",
+    );
+    line(
+        "virial residual",
+        format!("{:.1e}", s.virial_residual),
+        "(|3 int P/rho dm / int Gm/r dm - 1|)",
+    );
+    line(
+        "luminosity residual",
+        format!("{:.1e}", s.luminosity_residual),
+        "(|int eps dm / L - 1|)",
+    );
+    out
+}
+
+/// The iteration history and last guesses of a model that did not converge, for stderr (the
+/// error itself is reported separately).
+pub fn failure_text(failure: &NotConverged) -> String {
+    let mut out = String::new();
+    if !failure.history.is_empty() {
+        out.push_str("  iteration  mismatch      step\n");
+    }
+    for (i, h) in failure.history.iter().enumerate() {
+        out.push_str(&format!(
+            "  {:>9}  {:<12.4e}  {:.4}\n",
+            i + 1,
+            h.residual_norm,
+            h.step_length
+        ));
+    }
+    let [pc, tc, r, l] = failure.last_guesses();
+    out.push_str(&format!(
+        "  last guesses: P_c = {pc:.6e} dyn/cm^2, T_c = {tc:.6e} K, R = {r:.6} R_sun, L = {l:.6e} L_sun\n"
+    ));
+    out
+}

@@ -27,23 +27,23 @@ impl Composition {
     pub fn new(x: f64, z: f64) -> Result<Self> {
         if !(0.0..=1.0).contains(&x) {
             return Err(Error::invalid(
-                "--x",
+                "x",
                 x,
-                "hydrogen mass fraction X must be in [0, 1], e.g. --x 0.70",
+                "hydrogen mass fraction X must be in [0, 1], e.g. 0.70",
             ));
         }
         if !(0.0..=1.0).contains(&z) {
             return Err(Error::invalid(
-                "--z",
+                "z",
                 z,
-                "metal mass fraction Z must be in [0, 1], e.g. --z 0.02",
+                "metal mass fraction Z must be in [0, 1], e.g. 0.02",
             ));
         }
         if x + z > 1.0 + 1e-12 {
             return Err(Error::invalid(
-                "--x + --z",
+                "x + z",
                 x + z,
-                "X + Z must not exceed 1 (Y = 1 - X - Z >= 0), e.g. --x 0.70 --z 0.02",
+                "X + Z must not exceed 1 (Y = 1 - X - Z >= 0), e.g. X = 0.70 with Z = 0.02",
             ));
         }
         Ok(Self {
@@ -57,7 +57,7 @@ impl Composition {
     pub fn with_cno_fraction(mut self, fraction: f64) -> Result<Self> {
         if !fraction.is_finite() || !(0.0..=1.0).contains(&fraction) {
             return Err(Error::invalid(
-                "--cno-fraction",
+                "cno_fraction",
                 fraction,
                 "the CNO fraction of Z must be in [0, 1], e.g. 0.7",
             ));

@@ -10,7 +10,7 @@
 //! (Eddington's quartic; Chandrasekhar 1939, *An Introduction to the Study of Stellar
 //! Structure*, ch. VI). With CODATA 2018 constants C = 2.990e-3.
 
-use super::star::{check_mass_msun, check_mu};
+use super::{check_mass_msun, check_mu};
 use crate::constants::{A_RAD_CGS, G_CGS, K_B_ERG_K, M_SUN_G, M_U_G};
 use crate::error::{Error, Result};
 use std::f64::consts::PI;
@@ -45,7 +45,7 @@ pub fn eddington_beta(mass_msun: f64, mu: f64, omega_3: f64) -> Result<f64> {
     let a = eddington_constant(omega_3) * mu.powi(4) * mass_msun * mass_msun;
     if !a.is_finite() {
         return Err(Error::invalid(
-            "--mass",
+            "mass_msun",
             mass_msun,
             "mass and mu too large for Eddington's quartic",
         ));

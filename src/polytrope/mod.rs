@@ -13,14 +13,14 @@
 
 pub mod eddington;
 pub mod series;
+pub mod solution;
 pub mod solver;
 pub mod star;
 
 pub use eddington::{eddington_beta, eddington_constant};
 pub use series::LaneEmdenSeries;
-pub use solver::{
-    first_zero, solve_lane_emden, FirstZero, LaneEmdenSettings, LaneEmdenSolution, ProfilePoint,
-};
+pub use solution::{solve_lane_emden, LaneEmdenSettings, LaneEmdenSolution, ProfilePoint};
+pub use solver::{first_zero, FirstZero};
 pub use star::{
     scale_to_star, validate_scaling, PhysicalPoint, ScaledPolytrope, StarParameters, DEFAULT_MU,
 };
@@ -28,14 +28,41 @@ pub use star::{
 use crate::error::{Error, Result};
 
 /// What `--index` allows, in the words of the error message.
-pub const INDEX_ALLOWED: &str = "the polytropic index must be a number in [0, 5], e.g. --index 3";
+pub const INDEX_ALLOWED: &str = "the polytropic index must be a number in [0, 5], e.g. 3";
 
 /// Check a polytropic index: finite and 0 <= n <= 5, else [`Error::InvalidInput`] naming
-/// `--index`.
+/// `index`.
 pub fn validate_index(n: f64) -> Result<f64> {
     if (0.0..=5.0).contains(&n) {
         Ok(n)
     } else {
-        Err(Error::invalid("--index", n, INDEX_ALLOWED))
+        Err(Error::invalid("index", n, INDEX_ALLOWED))
     }
+}
+
+/// `x` if it is finite and positive, else an error naming `name` with `allowed`.
+pub(crate) fn check_positive(name: &str, x: f64, allowed: &str) -> Result<f64> {
+    if x.is_finite() && x > 0.0 {
+        Ok(x)
+    } else {
+        Err(Error::invalid(name, x, allowed))
+    }
+}
+
+/// A mass in solar masses: positive and finite, else an error naming `mass_msun`.
+pub(crate) fn check_mass_msun(mass_msun: f64) -> Result<f64> {
+    check_positive(
+        "mass_msun",
+        mass_msun,
+        "the mass must be a positive number of solar masses, e.g. 1",
+    )
+}
+
+/// A mean molecular weight: positive and finite, else an error naming `mu`.
+pub(crate) fn check_mu(mu: f64) -> Result<f64> {
+    check_positive(
+        "mu",
+        mu,
+        "the mean molecular weight must be a positive number, e.g. 0.61",
+    )
 }

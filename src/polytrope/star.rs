@@ -9,7 +9,8 @@
 //! carries beta P, and T_c = beta Theta_3 mu m_u G M/(k R); T = T_c theta still holds.
 
 use super::eddington::eddington_beta;
-use super::solver::LaneEmdenSolution;
+use super::solution::LaneEmdenSolution;
+use super::{check_mass_msun, check_mu, check_positive};
 use crate::constants::{G_CGS, K_B_ERG_K, M_SUN_G, M_U_G, R_SUN_CM};
 use crate::error::{Error, Result};
 use std::f64::consts::PI;
@@ -35,9 +36,9 @@ impl StarParameters {
         Ok(Self {
             mass_msun: check_mass_msun(mass_msun)?,
             radius_rsun: check_positive(
-                "--radius",
+                "radius_rsun",
                 radius_rsun,
-                "the radius must be a positive number of solar radii, e.g. --radius 1",
+                "the radius must be a positive number of solar radii, e.g. 1",
             )?,
             mu: check_mu(mu)?,
         })
@@ -65,49 +66,23 @@ impl StarParameters {
     }
 }
 
-fn check_positive(name: &str, x: f64, allowed: &str) -> Result<f64> {
-    if x.is_finite() && x > 0.0 {
-        Ok(x)
-    } else {
-        Err(Error::invalid(name, x, allowed))
-    }
-}
-
-/// A mass in solar masses: positive and finite, else an error naming `--mass`.
-pub(crate) fn check_mass_msun(mass_msun: f64) -> Result<f64> {
-    check_positive(
-        "--mass",
-        mass_msun,
-        "the mass must be a positive number of solar masses, e.g. --mass 1",
-    )
-}
-
-/// A mean molecular weight: positive and finite, else an error naming `--mu`.
-pub(crate) fn check_mu(mu: f64) -> Result<f64> {
-    check_positive(
-        "--mu",
-        mu,
-        "the mean molecular weight must be a positive number, e.g. --mu 0.61",
-    )
-}
-
 /// Check that index `n` can be scaled to a star, with Eddington's standard model if
 /// `radiation`: with `radiation`, n = 3 (error names `--radiation`); and n < 5 (n = 5 has no
 /// finite radius; error names `--index`).
 pub fn validate_scaling(n: f64, radiation: bool) -> Result<()> {
     if radiation && n != 3.0 {
         return Err(Error::invalid(
-            "--radiation",
-            format!("with --index {n}"),
-            "Eddington's standard model is the n = 3 polytrope; use --index 3 or drop --radiation",
+            "radiation",
+            format!("with index {n}"),
+            "Eddington's standard model is the n = 3 polytrope; use index 3 or leave out the radiation pressure",
         ));
     }
     if n.is_nan() || n >= 5.0 {
         return Err(Error::invalid(
-            "--index",
+            "index",
             n,
             "a star of finite radius needs an index below 5 (n = 5 has no surface); \
-             choose n < 5 or drop --mass and --radius",
+             choose n < 5 or leave out the mass and radius",
         ));
     }
     Ok(())
@@ -177,7 +152,7 @@ pub fn scale_to_star(
         solution.potential_energy_coefficient,
     ) else {
         return Err(Error::invalid(
-            "--index",
+            "index",
             n,
             "a star of finite radius needs an index below 5",
         ));

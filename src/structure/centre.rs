@@ -12,9 +12,9 @@ use super::equations::{
     local_physics, LocalPhysics, Point, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL, LN_P,
     LN_R, LN_T, LUM,
 };
-use super::legs::LegContext;
+use super::error::{LegCause, LegError, LegName};
+use super::legs::{LegContext, LegResult};
 use crate::constants::G_CGS;
-use crate::error::{Error, Result};
 use std::f64::consts::PI;
 
 /// Mass fraction at which the outward leg starts: the first neglected series terms are of
@@ -34,14 +34,30 @@ pub struct CentreStart {
 
 /// Series start at m0 = [`CENTRE_START_MASS_FRACTION`] M for central pressure e^`ln_pc` and
 /// temperature e^`ln_tc`.
-pub fn start(ctx: &LegContext, ln_pc: f64, ln_tc: f64) -> Result<CentreStart> {
+pub fn start(ctx: &LegContext, ln_pc: f64, ln_tc: f64) -> LegResult<CentreStart> {
     let pc = ln_pc.exp();
     let tc = ln_tc.exp();
     let m0 = CENTRE_START_MASS_FRACTION * ctx.total_mass_g;
-    let eos = ctx.physics.eos.state_at_pressure(pc, tc, ctx.composition)?;
+    let error = |cause: LegCause| LegError {
+        leg: LegName::Centre,
+        variable: "ln(m/M)",
+        x: CENTRE_START_MASS_FRACTION.ln(),
+        mass_g: m0,
+        cause,
+    };
+    let physics = |e| error(LegCause::Physics(e));
+    let eos = ctx
+        .physics
+        .eos()
+        .state_at_pressure(pc, tc, ctx.composition)
+        .map_err(physics)?;
     let rho_c = eos.density_g_cm3;
     let r0 = (3.0 * m0 / (4.0 * PI * rho_c)).cbrt();
-    let rate = ctx.physics.rates.rate(rho_c, tc, ctx.composition)?;
+    let rate = ctx
+        .physics
+        .rates()
+        .rate(rho_c, tc, ctx.composition)
+        .map_err(physics)?;
     let eps_c = rate.total_erg_g_s();
     let point = Point {
         mass_g: m0,
@@ -51,17 +67,13 @@ pub fn start(ctx: &LegContext, ln_pc: f64, ln_tc: f64) -> Result<CentreStart> {
         l_over_m: eps_c,
         near: Some(&eos),
     };
-    let centre = local_physics(ctx.physics, ctx.composition, &point)?;
+    let centre = local_physics(ctx.physics, ctx.composition, &point).map_err(physics)?;
     let p0 = pc
         - 3.0 * G_CGS / (8.0 * PI) * (4.0 * PI * rho_c / 3.0).powf(4.0 / 3.0) * m0.powf(2.0 / 3.0);
     if p0 <= 0.0 || eps_c <= 0.0 {
-        return Err(Error::Integration {
-            leg: "outward",
-            mass_g: m0,
-            reason: format!(
-                "no valid centre for P_c = {pc:.4e}, T_c = {tc:.4e} (eps_c = {eps_c:.3e})"
-            ),
-        });
+        return Err(error(LegCause::InvalidStart(format!(
+            "no valid centre for P_c = {pc:.4e}, T_c = {tc:.4e} (eps_c = {eps_c:.3e})"
+        ))));
     }
     let mut y0 = State::zeros();
     y0[LN_R] = r0.ln();

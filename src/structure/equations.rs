@@ -150,16 +150,18 @@ pub fn local_physics(
         near,
     } = *point;
     let eos = match near {
-        Some(n) => physics
-            .eos
-            .state_at_pressure_near(pressure_dyn_cm2, temperature_k, comp, n)?,
+        Some(n) => {
+            physics
+                .eos()
+                .state_at_pressure_near(pressure_dyn_cm2, temperature_k, comp, n)?
+        }
         None => physics
-            .eos
+            .eos()
             .state_at_pressure(pressure_dyn_cm2, temperature_k, comp)?,
     };
     let rho = eos.density_g_cm3;
-    let opacity = physics.opacity.kappa(rho, temperature_k, comp)?;
-    let rate = physics.rates.rate(rho, temperature_k, comp)?;
+    let opacity = physics.opacity().kappa(rho, temperature_k, comp)?;
+    let rate = physics.rates().rate(rho, temperature_k, comp)?;
     // nabla_rad = 3 kappa L P / (16 pi a c G m T^4), written with L/m.
     let nabla_rad = convection::nabla_rad(opacity, l_over_m, pressure_dyn_cm2, 1.0, temperature_k);
     let gravity = if radius_cm > 0.0 {
@@ -178,7 +180,7 @@ pub fn local_physics(
         cp_erg_g_k: eos.cp_erg_g_k,
         delta: eos.delta,
     };
-    let nabla = physics.convection.nabla(&point)?;
+    let nabla = physics.convection().nabla(&point)?;
     if !(nabla.is_finite() && opacity.is_finite() && opacity > 0.0) {
         return Err(PhysicsError::new(
             "structure",

@@ -11,10 +11,11 @@
 //! dln P / dln D ~ 1: the variable spreads the envelope evenly and keeps every step well scaled.
 
 use super::equations::{derivatives_in_mass, LuminosityForm, Scales, State, X_COPY};
-use crate::error::{Error, PhysicsError, Result};
+use super::error::{LegCause, LegError, LegName};
+use crate::error::PhysicsError;
 use crate::physics::{Composition, EosState, PhysicsSet};
 use ode_solvers::dop853::Dop853;
-use ode_solvers::dop_shared::OutputType;
+use ode_solvers::dop_shared::{IntegrationError, OutputType};
 use ode_solvers::System;
 use std::cell::{Cell, RefCell};
 
@@ -27,12 +28,34 @@ pub enum Leg {
     Inward,
 }
 
+/// Result of a leg: the value, or where and why the leg failed.
+pub type LegResult<T> = Result<T, LegError>;
+
 impl Leg {
     /// Name used in error messages.
-    pub fn name(&self) -> &'static str {
+    pub fn name(&self) -> LegName {
         match self {
-            Leg::Outward => "outward",
-            Leg::Inward => "inward",
+            Leg::Outward => LegName::Outward,
+            Leg::Inward => LegName::Inward,
+        }
+    }
+
+    /// The name of the independent variable.
+    pub fn variable(&self) -> &'static str {
+        match self {
+            Leg::Outward => "ln(m/M)",
+            Leg::Inward => "ln(1-m/M)",
+        }
+    }
+
+    /// An error of this leg at its independent variable `x`.
+    pub fn error(&self, x: f64, total_mass_g: f64, cause: LegCause) -> LegError {
+        LegError {
+            leg: self.name(),
+            variable: self.variable(),
+            x,
+            mass_g: self.mass_and_jacobian(x, total_mass_g).0,
+            cause,
         }
     }
 
@@ -71,14 +94,16 @@ pub struct LegContext<'a> {
     pub tolerance: f64,
 }
 
-/// Counts right-hand-side evaluations and keeps the last physics error, which `ode_solvers`
-/// cannot carry out of `System::system` itself.
+/// Counts right-hand-side evaluations and keeps the last physics error of the current
+/// integration, which `ode_solvers` cannot carry out of `System::system` itself.
 #[derive(Debug, Default)]
 pub struct LegMonitor {
     /// Right-hand-side evaluations so far.
     pub evaluations: Cell<u64>,
-    /// The last physics error met.
-    pub last_error: RefCell<Option<PhysicsError>>,
+    /// The last physics error met in the current integration, with the leg variable x where it
+    /// happened (cleared when an integration starts, so an error from which an earlier
+    /// integration recovered is never reported with a later failure).
+    pub last_error: RefCell<Option<(f64, PhysicsError)>>,
     /// Mass fractions m/M of the convective boundaries located, in the order met.
     pub boundaries: RefCell<Vec<f64>>,
     /// Set when a leg met more boundaries than [`MAX_BOUNDARIES_PER_LEG`] (the list is then
@@ -156,16 +181,19 @@ impl System<f64, State> for LegSystem<'_, '_> {
                 dy[X_COPY] = 1.0;
             }
             Ok(_) => {
-                *self.monitor.last_error.borrow_mut() = Some(PhysicsError::new(
-                    "structure",
-                    "non-finite derivative",
-                    f64::NAN,
-                    y[super::equations::LN_T].exp(),
+                *self.monitor.last_error.borrow_mut() = Some((
+                    y[X_COPY],
+                    PhysicsError::new(
+                        "structure",
+                        "non-finite derivative",
+                        f64::NAN,
+                        y[super::equations::LN_T].exp(),
+                    ),
                 ));
                 *dy = State::repeat(FAILED_DERIVATIVE);
             }
             Err(e) => {
-                *self.monitor.last_error.borrow_mut() = Some(e);
+                *self.monitor.last_error.borrow_mut() = Some((y[X_COPY], e));
                 *dy = State::repeat(FAILED_DERIVATIVE);
             }
         }
@@ -200,7 +228,7 @@ fn run(
     y0: State,
     monitor: &LegMonitor,
     watch: Option<&BoundaryWatch>,
-) -> Result<State> {
+) -> LegResult<State> {
     run_recording(ctx, leg, (x0, x1), y0, monitor, watch, None)
 }
 
@@ -213,7 +241,8 @@ fn run_recording(
     monitor: &LegMonitor,
     watch: Option<&BoundaryWatch>,
     steps: Option<&mut Vec<f64>>,
-) -> Result<State> {
+) -> LegResult<State> {
+    monitor.last_error.borrow_mut().take();
     let mut y0 = y0;
     y0[X_COPY] = x0;
     let system = LegSystem {
@@ -227,26 +256,33 @@ fn run_recording(
     // Sparse output: dense output of ode_solvers 0.6 compares |x|, which breaks for the negative
     // independent variables used here.
     stepper.set_output(OutputType::Sparse);
-    let failure = |reason: String| {
-        let (m, _) = leg.mass_and_jacobian(x0, ctx.total_mass_g);
-        let reason = match monitor.last_error.borrow().as_ref() {
-            Some(e) => format!("{reason}; last physics error: {e}"),
-            None => reason,
+    // Where the integrator stopped (the x it reports, else the start); a physics error recorded
+    // in this integration is the real cause (its own x belongs to a rejected trial stage, which
+    // can lie far beyond where the leg stood).
+    let failure = |x: Option<f64>, cause: LegCause| {
+        let cause = match monitor.last_error.borrow_mut().take() {
+            Some((_, e)) => LegCause::Physics(e),
+            None => cause,
         };
-        Error::Integration {
-            leg: leg.name(),
-            mass_g: m,
-            reason,
-        }
+        leg.error(x.unwrap_or(x0), ctx.total_mass_g, cause)
     };
-    stepper.integrate().map_err(|e| failure(e.to_string()))?;
-    let end = stepper
-        .y_out()
-        .last()
-        .copied()
-        .ok_or_else(|| failure("integrator produced no output".to_string()))?;
+    if let Err(e) = stepper.integrate() {
+        let x = match e {
+            IntegrationError::MaxNumStepReached { x, .. }
+            | IntegrationError::StepSizeUnderflow { x }
+            | IntegrationError::StiffnessDetected { x } => x,
+        };
+        return Err(failure(Some(x), LegCause::Integrator(e.to_string())));
+    }
+    let last_x = stepper.x_out().last().copied();
+    let Some(end) = stepper.y_out().last().copied() else {
+        return Err(failure(
+            last_x,
+            LegCause::Integrator("the integrator produced no output".into()),
+        ));
+    };
     if !end.iter().all(|v| v.is_finite()) {
-        return Err(failure("non-finite state".to_string()));
+        return Err(failure(last_x, LegCause::NonFinite));
     }
     if let Some(steps) = steps {
         steps.extend_from_slice(stepper.x_out());
@@ -267,7 +303,7 @@ pub fn integrate(
     x1: f64,
     y0: State,
     monitor: &LegMonitor,
-) -> Result<State> {
+) -> LegResult<State> {
     if x1 <= x0 {
         return Ok(y0);
     }
@@ -279,11 +315,11 @@ pub fn integrate(
         let end = run(ctx, leg, x, x1, y, monitor, watching)?;
         let Some(before) = watch.crossed_after.take() else {
             if (end[X_COPY] - x1).abs() > 1e-9 * (1.0 + x1.abs()) {
-                return Err(Error::Integration {
-                    leg: leg.name(),
-                    mass_g: leg.mass_and_jacobian(end[X_COPY], ctx.total_mass_g).0,
-                    reason: format!("stopped at x = {} before reaching {x1}", end[X_COPY]),
-                });
+                return Err(leg.error(
+                    end[X_COPY],
+                    ctx.total_mass_g,
+                    LegCause::Integrator(format!("stopped before reaching x = {x1}")),
+                ));
             }
             return Ok(end);
         };
@@ -302,7 +338,7 @@ fn locate_boundary(
     a: &State,
     b: &State,
     monitor: &LegMonitor,
-) -> Result<State> {
+) -> LegResult<State> {
     let probe = LegSystem {
         ctx: *ctx,
         leg,
@@ -361,7 +397,7 @@ pub fn integrate_through(
     xs: &[f64],
     y0: State,
     monitor: &LegMonitor,
-) -> Result<Vec<State>> {
+) -> LegResult<Vec<State>> {
     let mut out = Vec::with_capacity(xs.len());
     let mut y = y0;
     let mut x_prev = match xs.first() {
@@ -386,8 +422,52 @@ pub fn step_points(
     x1: f64,
     y0: State,
     monitor: &LegMonitor,
-) -> Result<Vec<f64>> {
+) -> LegResult<Vec<f64>> {
     let mut steps = Vec::new();
     run_recording(ctx, leg, (x0, x1), y0, monitor, None, Some(&mut steps))?;
     Ok(steps)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::physics::{Composition, PhysicsSet};
+
+    /// An error recorded by an earlier integration is cleared when the next starts, so it is
+    /// never reported with a later, unrelated failure.
+    #[test]
+    fn a_stale_physics_error_is_cleared() {
+        let physics = PhysicsSet::refined();
+        let comp = Composition::new(0.7, 0.02).expect("valid composition");
+        let m = crate::constants::M_SUN_G;
+        let ctx = LegContext {
+            physics: &physics,
+            composition: &comp,
+            total_mass_g: m,
+            scales: Scales {
+                luminosity_erg_s: crate::constants::L_SUN_ERG_S,
+                energy_erg: 1e48,
+            },
+            tolerance: 1e-8,
+        };
+        let start = super::super::centre::start(&ctx, 1.5e17f64.ln(), 1.32e7f64.ln())
+            .expect("a solar centre");
+        let monitor = LegMonitor::default();
+        let stale = PhysicsError::new("stale", "from an earlier leg", 1.0, 1.0);
+        *monitor.last_error.borrow_mut() = Some((0.0, stale));
+        integrate(
+            &ctx,
+            Leg::Outward,
+            start.x0,
+            0.4f64.ln(),
+            start.y0,
+            &monitor,
+        )
+        .expect("the leg integrates");
+        assert!(monitor
+            .last_error
+            .borrow()
+            .as_ref()
+            .is_none_or(|(_, e)| e.law != "stale"));
+    }
 }

@@ -6,20 +6,26 @@
 
 pub mod centre;
 pub mod equations;
+pub mod error;
 pub mod guess;
 pub mod legs;
 pub mod model;
+pub mod profile;
 pub mod shooting;
+pub mod summary;
 pub mod surface;
 
 use crate::constants::{C_CM_S, G_CGS, L_SUN_ERG_S, MEV_ERG, M_SUN_G, M_U_G, R_SUN_CM, YEAR_S};
 use crate::error::{Error, Result};
-use crate::numerics::newton::{self, NewtonReport, NewtonSettings};
+use crate::numerics::newton::{self, NewtonProblem, NewtonSettings};
 use crate::physics::{Composition, PhysicsSet};
 use equations::Scales;
+pub use error::{LegCause, LegError, LegName, NotConverged};
 use legs::LegContext;
-pub use model::ZamsModel;
+pub use model::{SolveStats, ZamsModel};
+pub use profile::{ProfileRow, DEFAULT_PROFILE_POINTS, PROFILE_COLUMNS};
 pub use shooting::Unknowns;
+pub use summary::{ModelSummary, SummaryField};
 
 /// Smallest and largest mass accepted, M_sun.
 pub const MASS_RANGE_MSUN: (f64, f64) = (0.05, 150.0);
@@ -30,8 +36,12 @@ pub const ANALYTIC_MIN_MASS_MSUN: f64 = 0.7;
 pub const DEFAULT_FIT_MASS_FRACTION: f64 = 0.4;
 /// Default (finest) integrator tolerance, relative and absolute on the logarithmic variables.
 pub const DEFAULT_TOLERANCE: f64 = 1e-11;
-/// Default number of profile rows.
-pub const DEFAULT_PROFILE_POINTS: usize = 400;
+/// Smallest and largest finest integrator tolerance.
+pub const TOLERANCE_RANGE: (f64, f64) = (1e-13, 1e-6);
+/// Smallest and largest fitting mass fraction.
+pub const FIT_MASS_RANGE: (f64, f64) = (0.05, 0.95);
+/// Smallest and largest Newton iteration limit.
+pub const MAX_ITERATIONS_RANGE: (usize, usize) = (1, 500);
 
 /// Everything that defines one ZAMS solve.
 #[derive(Debug, Clone)]
@@ -41,43 +51,42 @@ pub struct ZamsSettings {
     physics: PhysicsSet,
     fit_mass_fraction: f64,
     tolerance: f64,
-    profile_points: usize,
-    profile: bool,
     guess: Option<Unknowns>,
     newton: NewtonSettings,
 }
 
 impl ZamsSettings {
-    /// Settings for a star of `mass_msun` (0.05–150 M_sun) with the given composition and laws;
-    /// fitting mass [`DEFAULT_FIT_MASS_FRACTION`], tolerance [`DEFAULT_TOLERANCE`],
-    /// [`DEFAULT_PROFILE_POINTS`] profile rows, the built-in starting guess, and the Newton
-    /// defaults of [`NewtonSettings`].
+    /// Settings for a star of `mass_msun` (see [`MASS_RANGE_MSUN`]) with the given
+    /// composition and laws; fitting mass [`DEFAULT_FIT_MASS_FRACTION`], tolerance
+    /// [`DEFAULT_TOLERANCE`], the built-in starting guess, and the Newton defaults of
+    /// [`NewtonSettings`]. Errors name the key (`mass_msun`, `x`).
     pub fn new(mass_msun: f64, composition: Composition, physics: PhysicsSet) -> Result<Self> {
         let (lo, hi) = MASS_RANGE_MSUN;
         if !(mass_msun.is_finite() && mass_msun >= lo && mass_msun <= hi) {
             return Err(Error::invalid(
-                "--mass",
+                "mass_msun",
                 mass_msun,
-                &format!(
-                    "the stellar mass must be between {lo} and {hi} solar masses, e.g. --mass 1"
-                ),
+                &format!("the stellar mass must be between {lo} and {hi} solar masses, e.g. 1"),
             ));
         }
         if composition.x() <= 0.0 {
             return Err(Error::invalid(
-                "--x",
+                "x",
                 composition.x(),
-                "a zero-age main-sequence star burns hydrogen: X must be above 0, e.g. --x 0.70",
+                "a zero-age main-sequence star burns hydrogen: X must be above 0, e.g. 0.70",
             ));
         }
-        if physics.preset == "analytic" && mass_msun < ANALYTIC_MIN_MASS_MSUN {
-            return Err(Error::invalid(
-                "--mass",
-                mass_msun,
-                &format!(
-                    "the analytic physics set (full ionisation, no H-minus opacity) covers {ANALYTIC_MIN_MASS_MSUN}–{hi} solar masses; use --physics refined below that"
-                ),
-            ));
+        let preset = physics.spec().preset;
+        if let Some(min) = preset.minimum_mass_msun() {
+            if mass_msun < min {
+                return Err(Error::invalid(
+                    "mass_msun",
+                    mass_msun,
+                    &format!(
+                        "the {preset} physics set (full ionisation, no H-minus opacity) covers {min}–{hi} solar masses; use the refined preset below that"
+                    ),
+                ));
+            }
         }
         Ok(Self {
             mass_msun,
@@ -85,62 +94,37 @@ impl ZamsSettings {
             physics,
             fit_mass_fraction: DEFAULT_FIT_MASS_FRACTION,
             tolerance: DEFAULT_TOLERANCE,
-            profile_points: DEFAULT_PROFILE_POINTS,
-            profile: true,
             guess: None,
             newton: NewtonSettings::default(),
         })
     }
 
-    /// Fitting mass as a fraction of M, in [0.05, 0.95].
+    /// Fitting mass as a fraction of M, in [`FIT_MASS_RANGE`].
     pub fn with_fit_mass_fraction(mut self, q: f64) -> Result<Self> {
-        if !(q.is_finite() && (0.05..=0.95).contains(&q)) {
+        let (lo, hi) = FIT_MASS_RANGE;
+        if !(q.is_finite() && (lo..=hi).contains(&q)) {
             return Err(Error::invalid(
-                "--fit-mass",
+                "fit_mass_fraction",
                 q,
-                "the fitting mass fraction must be in [0.05, 0.95], e.g. --fit-mass 0.4",
+                &format!("the fitting mass fraction must be in [{lo}, {hi}], e.g. 0.4"),
             ));
         }
         self.fit_mass_fraction = q;
         Ok(self)
     }
 
-    /// Finest integrator tolerance, in [1e-13, 1e-6].
+    /// Finest integrator tolerance, in [`TOLERANCE_RANGE`].
     pub fn with_tolerance(mut self, tol: f64) -> Result<Self> {
-        if !(tol.is_finite() && (1e-13..=1e-6).contains(&tol)) {
+        let (lo, hi) = TOLERANCE_RANGE;
+        if !(tol.is_finite() && (lo..=hi).contains(&tol)) {
             return Err(Error::invalid(
-                "--tolerance",
+                "tolerance",
                 tol,
-                "the integration tolerance must be in [1e-13, 1e-6], e.g. 1e-10",
+                &format!("the integration tolerance must be in [{lo:e}, {hi:e}], e.g. 1e-10"),
             ));
         }
         self.tolerance = tol;
         Ok(self)
-    }
-
-    /// Number of profile rows, in [10, 100000].
-    pub fn with_profile_points(mut self, n: usize) -> Result<Self> {
-        if !(10..=100_000).contains(&n) {
-            return Err(Error::invalid(
-                "--points",
-                n,
-                "the number of profile rows must be in [10, 100000], e.g. --points 400",
-            ));
-        }
-        self.profile_points = n;
-        Ok(self)
-    }
-
-    /// Whether to compute the profile (default true). Without it a model costs about a third
-    /// less; the summary is the same.
-    pub fn with_profile(mut self, on: bool) -> Self {
-        self.profile = on;
-        self
-    }
-
-    /// Whether the profile is computed.
-    pub fn wants_profile(&self) -> bool {
-        self.profile
     }
 
     /// Starting guess: central pressure (dyn cm^-2), central temperature (K), radius (R_sun)
@@ -153,10 +137,10 @@ impl ZamsSettings {
         luminosity_lsun: f64,
     ) -> Result<Self> {
         for (name, v) in [
-            ("--guess-pc", pc_dyn_cm2),
-            ("--guess-tc", tc_k),
-            ("--guess-radius", radius_rsun),
-            ("--guess-luminosity", luminosity_lsun),
+            ("guess central pressure (dyn/cm^2)", pc_dyn_cm2),
+            ("guess central temperature (K)", tc_k),
+            ("guess radius (R_sun)", radius_rsun),
+            ("guess luminosity (L_sun)", luminosity_lsun),
         ] {
             if !(v.is_finite() && v > 0.0) {
                 return Err(Error::invalid(
@@ -181,13 +165,14 @@ impl ZamsSettings {
         self
     }
 
-    /// Maximum number of Newton iterations, in [1, 500].
+    /// Maximum number of Newton iterations, in [`MAX_ITERATIONS_RANGE`].
     pub fn with_max_iterations(mut self, n: usize) -> Result<Self> {
-        if !(1..=500).contains(&n) {
+        let (lo, hi) = MAX_ITERATIONS_RANGE;
+        if !(lo..=hi).contains(&n) {
             return Err(Error::invalid(
-                "--max-iterations",
+                "max_iterations",
                 n,
-                "the Newton iteration limit must be in [1, 500], e.g. 60",
+                &format!("the Newton iteration limit must be in [{lo}, {hi}], e.g. 60"),
             ));
         }
         self.newton.max_iterations = n;
@@ -216,12 +201,12 @@ impl ZamsSettings {
     pub fn fit_mass_fraction(&self) -> f64 {
         self.fit_mass_fraction
     }
-    /// Number of profile rows.
-    pub fn profile_points(&self) -> usize {
-        self.profile_points
+    /// Finest integrator tolerance.
+    pub fn tolerance(&self) -> f64 {
+        self.tolerance
     }
 
-    fn context(&self) -> LegContext<'_> {
+    pub(crate) fn context(&self) -> LegContext<'_> {
         let m = self.mass_msun * M_SUN_G;
         LegContext {
             physics: &self.physics,
@@ -231,27 +216,15 @@ impl ZamsSettings {
                 luminosity_erg_s: L_SUN_ERG_S,
                 energy_erg: G_CGS * m * m / R_SUN_CM,
             },
-            tolerance: 1e-7,
+            // The coarsest tolerance of the iteration (or the finest asked, if coarser).
+            tolerance: self.tolerance.max(1e-7),
         }
     }
 }
 
-/// The outcome of a solve: a converged model, or the Newton history of a failed one.
-#[derive(Debug, Clone)]
-pub enum ZamsOutcome {
-    /// Converged.
-    Converged(Box<ZamsModel>),
-    /// Did not converge: the iteration history and the last unknowns.
-    NotConverged {
-        /// The Newton report (history, last point, reason).
-        report: NewtonReport<4>,
-        /// Right-hand-side evaluations spent.
-        rhs_evaluations: u64,
-    },
-}
-
-/// Solve for the ZAMS model; a model that did not converge is reported as such, with its history.
-pub fn solve_detailed(settings: &ZamsSettings) -> Result<ZamsOutcome> {
+/// Solve for the ZAMS model. A model that does not converge is an [`Error::NoConvergence`]
+/// carrying its [`NotConverged`] report (reason, history, last unknowns).
+pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
     let ctx = settings.context();
     let u0 = settings
         .guess
@@ -260,22 +233,33 @@ pub fn solve_detailed(settings: &ZamsSettings) -> Result<ZamsOutcome> {
         shooting::ShootingProblem::new(ctx, settings.fit_mass_fraction, settings.tolerance);
     let u0 = repaired_guess(&mut problem, u0);
     let report = newton::solve(&mut problem, u0, &settings.newton);
-    let evaluations = problem.monitor.evaluations.get();
-    if !report.converged {
-        return Ok(ZamsOutcome::NotConverged {
-            report,
-            rhs_evaluations: evaluations,
-        });
+    if !report.converged() {
+        return Err(Error::NoConvergence(Box::new(NotConverged {
+            mass_msun: settings.mass_msun,
+            termination: report.termination,
+            iterations: report.iterations,
+            mismatch: report.residual_norm,
+            history: report.history,
+            last_unknowns: report.solution,
+            rhs_evaluations: problem.monitor.evaluations.get(),
+        })));
     }
-    // The profile is integrated at the tolerance the iteration converged with (sharpening may
-    // have taken it below the setting), so that its legs meet as well as the solution's did.
-    let mut final_ctx = ctx;
-    final_ctx.tolerance = problem.ctx.tolerance.min(settings.tolerance);
-    let legs = problem
-        .last_legs(&report.solution)
-        .filter(|l| l.tolerance == final_ctx.tolerance);
-    let model = model::build(settings, &final_ctx, &report, evaluations, legs)?;
-    Ok(ZamsOutcome::Converged(Box::new(model)))
+    // The converged legs at the tolerance the iteration converged with (sharpening may have
+    // taken it below the setting): the last evaluation when it was at the solution, else one
+    // more evaluation by the same leg runner.
+    let u = report.solution;
+    let residual_evaluations =
+        report.residual_evaluations + usize::from(problem.last_legs(&u).is_none());
+    let legs = problem.legs_at(&u)?;
+    let stats = SolveStats {
+        iterations: report.iterations,
+        fit_mismatch: report.residual_norm,
+        residual_evaluations,
+        jacobian_evaluations: report.jacobian_evaluations,
+        rhs_evaluations: problem.monitor.evaluations.get(),
+        tolerance: problem.ctx.tolerance,
+    };
+    model::build(settings, &problem.ctx, &legs, report.history, stats)
 }
 
 /// A starting guess whose legs can be integrated. If `u0` itself cannot be (a poor guess can use
@@ -283,7 +267,6 @@ pub fn solve_detailed(settings: &ZamsSettings) -> Result<ZamsOutcome> {
 /// by factors up to 30 and 1.5 and take the one with the smallest mismatch; if none works,
 /// return `u0` and let the Newton driver report the failure.
 fn repaired_guess(problem: &mut shooting::ShootingProblem, u0: Unknowns) -> Unknowns {
-    use crate::numerics::newton::NewtonProblem;
     if problem.residual(&u0).is_ok() {
         return u0;
     }
@@ -302,18 +285,6 @@ fn repaired_guess(problem: &mut shooting::ShootingProblem, u0: Unknowns) -> Unkn
         }
     }
     best.map_or(u0, |(_, u)| u)
-}
-
-/// Solve for the ZAMS model; non-convergence is an [`Error::NoConvergence`].
-pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
-    match solve_detailed(settings)? {
-        ZamsOutcome::Converged(m) => Ok(*m),
-        ZamsOutcome::NotConverged { report, .. } => Err(Error::NoConvergence {
-            iterations: report.iterations,
-            residual: report.residual_norm,
-            reason: report.failure.unwrap_or_default(),
-        }),
-    }
 }
 
 /// Energy released per unit mass of hydrogen burnt to helium, Q / (4 m_H c^2) c^2 with

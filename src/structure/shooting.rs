@@ -4,9 +4,9 @@
 
 use super::centre;
 use super::equations::{State, LUM};
-use super::legs::{integrate, Leg, LegContext, LegMonitor};
+use super::error::LegError;
+use super::legs::{integrate, Leg, LegContext, LegMonitor, LegResult};
 use super::surface;
-use crate::error::{Error, Result};
 use crate::numerics::newton::NewtonProblem;
 use nalgebra::{SMatrix, SVector};
 
@@ -65,7 +65,7 @@ impl<'a> ShootingProblem<'a> {
     }
 
     /// End state of the outward leg at the fitting mass.
-    pub fn outward(&mut self, ln_pc: f64, ln_tc: f64) -> Result<State> {
+    pub fn outward(&mut self, ln_pc: f64, ln_tc: f64) -> LegResult<State> {
         self.legs_integrated += 1;
         let start = centre::start(&self.ctx, ln_pc, ln_tc)?;
         integrate(
@@ -79,7 +79,7 @@ impl<'a> ShootingProblem<'a> {
     }
 
     /// End state of the inward leg at the fitting mass.
-    pub fn inward(&mut self, ln_r: f64, ln_l: f64) -> Result<State> {
+    pub fn inward(&mut self, ln_r: f64, ln_l: f64) -> LegResult<State> {
         self.legs_integrated += 1;
         let start = surface::start(&self.ctx, ln_r, ln_l)?;
         integrate(
@@ -119,26 +119,22 @@ impl<'a> ShootingProblem<'a> {
         f0: &SVector<f64, 4>,
         out0: &State,
         in0: &State,
-    ) -> Result<SVector<f64, 4>, Error> {
-        let mut last_error = None;
-        for step in [h, -h] {
+    ) -> LegResult<SVector<f64, 4>> {
+        let trial = |problem: &mut Self, step: f64| {
             let mut v = *u;
             v[k] += step;
-            let trial = if k < 2 {
-                self.outward(v[0], v[1]).map(|o| self.mismatch(&o, in0))
+            let f = if k < 2 {
+                problem
+                    .outward(v[0], v[1])
+                    .map(|o| problem.mismatch(&o, in0))
             } else {
-                self.inward(v[2], v[3]).map(|i| self.mismatch(out0, &i))
+                problem
+                    .inward(v[2], v[3])
+                    .map(|i| problem.mismatch(out0, &i))
             };
-            match trial {
-                Ok(f) => return Ok((f - f0) / step),
-                Err(e) => last_error = Some(e),
-            }
-        }
-        Err(last_error.unwrap_or_else(|| Error::NoConvergence {
-            iterations: 0,
-            residual: f64::NAN,
-            reason: "Jacobian column".into(),
-        }))
+            f.map(|f| (f - f0) / step)
+        };
+        trial(self, h).or_else(|_| trial(self, -h))
     }
 
     /// Finite-difference step for the Jacobian at the current tolerance: large enough that
@@ -156,44 +152,46 @@ impl ShootingProblem<'_> {
             .as_ref()
             .filter(|l| l.u == *u && l.tolerance == self.ctx.tolerance)
     }
-}
 
-impl NewtonProblem<4> for ShootingProblem<'_> {
-    fn residual(&mut self, u: &Unknowns) -> Result<SVector<f64, 4>, Error> {
-        // The same unknowns at the same tolerance give the same legs: reuse them.
+    /// Both legs at `u` and the current tolerance, with the convective boundaries met: the last
+    /// evaluation's when it was at the same point (the same unknowns at the same tolerance give
+    /// the same legs), else a new integration of both. The one leg runner of the solver: the
+    /// residual, the Jacobian's base point and the converged model all come from here.
+    pub fn legs_at(&mut self, u: &Unknowns) -> LegResult<LegEnds> {
         if let Some(l) = self.last_legs(u) {
-            return Ok(self.mismatch(&l.out, &l.inn));
+            return Ok(l.clone());
         }
         self.monitor.boundaries.borrow_mut().clear();
         self.monitor.boundary_limit_reached.set(false);
         let out = self.outward(u[0], u[1])?;
         let inn = self.inward(u[2], u[3])?;
-        self.last = Some(LegEnds {
+        let legs = LegEnds {
             u: *u,
             tolerance: self.ctx.tolerance,
             out,
             inn,
             boundaries: self.monitor.boundaries.borrow().clone(),
             boundary_limit_reached: self.monitor.boundary_limit_reached.get(),
-        });
-        Ok(self.mismatch(&out, &inn))
+        };
+        self.last = Some(legs.clone());
+        Ok(legs)
+    }
+}
+
+impl NewtonProblem<4> for ShootingProblem<'_> {
+    type Error = LegError;
+
+    fn residual(&mut self, u: &Unknowns) -> LegResult<SVector<f64, 4>> {
+        let legs = self.legs_at(u)?;
+        Ok(self.mismatch(&legs.out, &legs.inn))
     }
 
     /// Block structure: the outward end depends only on (ln P_c, ln T_c), the inward end only on
     /// (ln R, ln L), so each column costs one leg.
-    fn jacobian(
-        &mut self,
-        u: &Unknowns,
-        _f: &SVector<f64, 4>,
-    ) -> Result<SMatrix<f64, 4, 4>, Error> {
+    fn jacobian(&mut self, u: &Unknowns, _f: &SVector<f64, 4>) -> LegResult<SMatrix<f64, 4, 4>> {
         let h = self.difference_step();
-        let (out0, in0) = match self.last_legs(u) {
-            Some(l) => (l.out, l.inn),
-            None => {
-                let f = self.residual(u)?;
-                return self.jacobian(u, &f);
-            }
-        };
+        let base = self.legs_at(u)?;
+        let (out0, in0) = (base.out, base.inn);
         let f0 = self.mismatch(&out0, &in0);
         let mut j = SMatrix::<f64, 4, 4>::zeros();
         for k in 0..4 {
@@ -219,7 +217,10 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
     }
 
     fn adapt_to_residual(&mut self, norm: f64) -> bool {
-        let wanted = (1e-3 * norm).clamp(self.tolerance_floor, 1e-7);
+        // The coarsest tolerance is 1e-7, or the floor itself when the user asked for a coarser
+        // one (any floor up to 1e-6 is allowed).
+        let coarsest = self.tolerance_floor.max(1e-7);
+        let wanted = (1e-3 * norm).clamp(self.tolerance_floor, coarsest);
         if wanted < 0.5 * self.ctx.tolerance {
             self.ctx.tolerance = wanted;
             true

@@ -13,11 +13,12 @@
 //! D0 = 1 - m/M; it is about 1e-11 of M for the Sun.
 
 use super::equations::{State, LN_P, LN_R, LN_T, LUM};
-use super::legs::LegContext;
+use super::error::{LegCause, LegError, LegName};
+use super::legs::{LegContext, LegResult};
 use crate::constants::{A_RAD_CGS, C_CM_S, G_CGS, SIGMA_SB_CGS};
-use crate::error::{Error, PhysicsError, Result};
+use crate::error::PhysicsError;
 use crate::numerics::scalar::newton_1d;
-use crate::physics::{Atmosphere, EosState};
+use crate::physics::{AtmosphereSpec, EosState};
 use ode_solvers::dop853::Dop853;
 use ode_solvers::dop_shared::OutputType;
 use ode_solvers::{System, Vector2};
@@ -42,6 +43,17 @@ pub struct SurfaceStart {
     pub pressure_dyn_cm2: f64,
 }
 
+/// An error of the atmosphere at optical depth `tau`.
+fn atmosphere_error(ctx: &LegContext, tau: f64, cause: LegCause) -> LegError {
+    LegError {
+        leg: LegName::Atmosphere,
+        variable: "ln tau",
+        x: tau.ln(),
+        mass_g: ctx.total_mass_g,
+        cause,
+    }
+}
+
 /// Effective temperature from L = 4 pi R^2 sigma T_eff^4, K.
 pub fn effective_temperature_k(radius_cm: f64, luminosity_erg_s: f64) -> f64 {
     (luminosity_erg_s / (4.0 * PI * radius_cm * radius_cm * SIGMA_SB_CGS)).powf(0.25)
@@ -56,18 +68,18 @@ fn column_pressure(
     gravity: f64,
     p_rad: f64,
     flux_over_c: f64,
-) -> Result<f64> {
+) -> LegResult<f64> {
     let comp = ctx.composition;
     let physics = ctx.physics;
     let last = Cell::new(None::<EosState>);
     let residual = |ln_p: f64| -> std::result::Result<f64, PhysicsError> {
         let p = ln_p.exp();
         let eos = match last.get() {
-            Some(near) => physics.eos.state_at_pressure_near(p, t, comp, &near)?,
-            None => physics.eos.state_at_pressure(p, t, comp)?,
+            Some(near) => physics.eos().state_at_pressure_near(p, t, comp, &near)?,
+            None => physics.eos().state_at_pressure(p, t, comp)?,
         };
         last.set(Some(eos));
-        let kappa = physics.opacity.kappa(eos.density_g_cm3, t, comp)?;
+        let kappa = physics.opacity().kappa(eos.density_g_cm3, t, comp)?;
         let support = gravity / kappa - flux_over_c;
         if support <= 0.0 {
             return Err(PhysicsError::new(
@@ -85,15 +97,14 @@ fn column_pressure(
     let s0 = (p_rad + tau * (gravity / 0.3).max(1e-30)).ln() + 0.5;
     newton_1d(residual, s0, 1e-12, 80)
         .map(f64::exp)
-        .map_err(|e| match e {
-            Some(pe) => Error::Physics(pe),
-            None => Error::Integration {
-                leg: "atmosphere",
-                mass_g: ctx.total_mass_g,
-                reason: format!(
-                    "no photospheric pressure found at T = {t:.1} K, g = {gravity:.3e} cm/s^2"
-                ),
-            },
+        .map_err(|e| {
+            let cause = match e {
+                Some(pe) => LegCause::Physics(pe),
+                None => LegCause::Integrator(format!(
+                    "no pressure found at T = {t:.1} K, g = {gravity:.3e} cm/s^2"
+                )),
+            };
+            atmosphere_error(ctx, tau, cause)
         })
 }
 
@@ -101,7 +112,7 @@ struct GreyAtmosphere<'a> {
     ctx: LegContext<'a>,
     teff_k: f64,
     gravity: f64,
-    error: RefCell<Option<PhysicsError>>,
+    error: &'a RefCell<Option<PhysicsError>>,
     /// The previous equation-of-state result, to warm-start the next inversion.
     last_eos: Cell<Option<EosState>>,
 }
@@ -123,12 +134,12 @@ impl System<f64, Vector2<f64>> for GreyAtmosphere<'_> {
         let t = self.temperature(tau);
         let (physics, comp) = (self.ctx.physics, self.ctx.composition);
         let eos = match self.last_eos.get() {
-            Some(near) => physics.eos.state_at_pressure_near(p, t, comp, &near),
-            None => physics.eos.state_at_pressure(p, t, comp),
+            Some(near) => physics.eos().state_at_pressure_near(p, t, comp, &near),
+            None => physics.eos().state_at_pressure(p, t, comp),
         };
         let kappa = eos.and_then(|s| {
             self.last_eos.set(Some(s));
-            physics.opacity.kappa(s.density_g_cm3, t, comp)
+            physics.opacity().kappa(s.density_g_cm3, t, comp)
         });
         match kappa {
             Ok(k) => dy[0] = tau * self.gravity / (k * p),
@@ -141,23 +152,24 @@ impl System<f64, Vector2<f64>> for GreyAtmosphere<'_> {
 }
 
 /// Photospheric state for trial ln R, ln L: the start of the inward leg.
-pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
+pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> {
     let r = ln_r.exp();
     let l = ln_l.exp();
     let teff = effective_temperature_k(r, l);
     let gravity = G_CGS * ctx.total_mass_g / (r * r);
-    let (pressure, column_g_cm2) = match ctx.physics.atmosphere {
-        Atmosphere::Photosphere => {
+    let (pressure, column_g_cm2) = match ctx.physics.atmosphere() {
+        AtmosphereSpec::Photosphere => {
             let p = column_pressure(ctx, PHOTOSPHERE_TAU, teff, gravity, 0.0, 0.0)?;
             (p, p / gravity)
         }
-        Atmosphere::Grey => {
+        AtmosphereSpec::Grey => {
             let flux_over_c = SIGMA_SB_CGS * teff.powi(4) / C_CM_S;
+            let physics_error = RefCell::new(None);
             let atmosphere = GreyAtmosphere {
                 ctx: *ctx,
                 teff_k: teff,
                 gravity,
-                error: RefCell::new(None),
+                error: &physics_error,
                 last_eos: Cell::new(None),
             };
             let p_rad = |tau: f64| A_RAD_CGS * atmosphere.temperature(tau).powi(4) / 3.0;
@@ -185,28 +197,35 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
             stepper.set_output(OutputType::Sparse);
             let result = stepper.integrate();
             let end = stepper.y_out().last().map(|v| v[0]);
+            let reached = stepper.y_out().last().map_or(x0, |v| v[1]);
             match (result, end) {
                 (Ok(_), Some(ln_p)) if ln_p.is_finite() => {
                     let p = ln_p.exp();
                     (p, (p - p_rad_zero).max(0.0) / gravity)
                 }
                 (r, _) => {
-                    return Err(Error::Integration {
-                        leg: "atmosphere",
-                        mass_g: ctx.total_mass_g,
-                        reason: format!("grey atmosphere failed at T_eff = {teff:.1} K ({r:?})"),
-                    })
+                    let physics = physics_error.borrow_mut().take();
+                    let cause = match (physics, r) {
+                        (Some(e), _) => LegCause::Physics(e),
+                        (None, Err(e)) => LegCause::Integrator(format!(
+                            "grey atmosphere at T_eff = {teff:.1} K: {e}"
+                        )),
+                        (None, Ok(_)) => LegCause::NonFinite,
+                    };
+                    return Err(atmosphere_error(ctx, reached.exp(), cause));
                 }
             }
         }
     };
     let d0 = 4.0 * PI * r * r * column_g_cm2 / ctx.total_mass_g;
     if !(d0 > 0.0 && d0 < 1e-2) {
-        return Err(Error::Integration {
-            leg: "atmosphere",
-            mass_g: ctx.total_mass_g,
-            reason: format!("implausible atmosphere mass fraction {d0:.3e}"),
-        });
+        return Err(atmosphere_error(
+            ctx,
+            PHOTOSPHERE_TAU,
+            LegCause::InvalidStart(format!(
+                "implausible atmosphere mass fraction {d0:.3e} above the photosphere"
+            )),
+        ));
     }
     let mut y0 = State::zeros();
     y0[LN_R] = ln_r;

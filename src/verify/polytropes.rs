@@ -179,7 +179,7 @@ pub fn checks() -> Vec<Check> {
 /// The first zero of the polytrope of index `TENTHS / 10`.
 fn zero<const TENTHS: u32>() -> Result<FirstZero> {
     let n = f64::from(TENTHS) / 10.0;
-    first_zero(n)?.ok_or_else(|| Error::invalid("--index", n, INDEX_ALLOWED))
+    first_zero(n)?.ok_or_else(|| Error::invalid("index", n, INDEX_ALLOWED))
 }
 
 fn xi1<const TENTHS: u32>() -> Result<f64> {
@@ -206,8 +206,9 @@ fn n5_mass_constant() -> Result<f64> {
         .with_unbounded_xi_max(1000.0)?;
     let s = solve_lane_emden(5.0, &settings)?;
     let last = s.profile.last().ok_or_else(|| Error::Integration {
-        leg: "lane-emden",
-        mass_g: 1000.0,
+        what: "lane-emden",
+        variable: "xi",
+        at: 1000.0,
         reason: "empty profile".to_string(),
     })?;
     Ok(-last.xi * last.xi * last.dtheta_dxi)

@@ -6,18 +6,17 @@
 //! shared; a model that fails to converge fails every check that uses it, with its message.
 
 use super::{Check, Tolerance};
-use crate::error::{Error, Result};
-use crate::output::zams::ZamsSummary;
-use crate::physics::{Composition, PhysicsOptions};
+use crate::error::Result;
+use crate::physics::{Composition, PhysicsSet};
 use crate::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
-use crate::structure::{solve, ZamsSettings};
+use crate::structure::{solve, ModelSummary, ZamsSettings};
 use std::sync::OnceLock;
 
 const GROUP: &str = "zams";
 
 /// The masses the checks use, M_sun; `MODELS[i]` caches the model of `MASSES_MSUN[i]`.
 const MASSES_MSUN: [f64; 2] = [1.0, 10.0];
-static MODELS: [OnceLock<Option<ZamsSummary>>; 2] = [OnceLock::new(), OnceLock::new()];
+static MODELS: [OnceLock<Option<ModelSummary>>; 2] = [OnceLock::new(), OnceLock::new()];
 
 /// Hydrogen and metal mass fractions of every model here: Z = 0.02 of the Tout et al. (1996)
 /// fit, whose underlying X = 0.76 - 3Z is 0.70 (docs/references.md §6, memory).
@@ -43,7 +42,7 @@ pub fn checks() -> Vec<Check> {
             ZAMS_SUN_L,
             0.70,
             Tolerance::Range(0.65, 0.75),
-            || quantity(0, "luminosity_lsun", |s| s.luminosity_lsun),
+            || quantity(0, |s| s.luminosity_lsun),
         ),
         Check::new(
             "zams.sun.radius",
@@ -52,7 +51,7 @@ pub fn checks() -> Vec<Check> {
             ZAMS_SUN_INTERIOR,
             0.88,
             Tolerance::Range(0.853, 0.908),
-            || quantity(0, "radius_rsun", |s| s.radius_rsun),
+            || quantity(0, |s| s.radius_rsun),
         ),
         Check::new(
             "zams.sun.central-temperature",
@@ -61,7 +60,7 @@ pub fn checks() -> Vec<Check> {
             ZAMS_SUN_INTERIOR,
             13.5e6,
             Tolerance::Range(13.0e6, 14.0e6),
-            || quantity(0, "central_temperature_k", |s| s.central_temperature_k),
+            || quantity(0, |s| s.central_temperature_k),
         ),
         Check::new(
             "zams.sun.central-density",
@@ -70,7 +69,7 @@ pub fn checks() -> Vec<Check> {
             ZAMS_SUN_INTERIOR,
             82.5,
             Tolerance::Range(75.0, 90.0),
-            || quantity(0, "central_density_g_cm3", |s| s.central_density_g_cm3),
+            || quantity(0, |s| s.central_density_g_cm3),
         ),
         // The requirement every converged model of the ZAMS solver meets.
         Check::new(
@@ -80,7 +79,7 @@ pub fn checks() -> Vec<Check> {
             "fact of the trade (virial theorem of hydrostatic equilibrium)",
             0.0,
             Tolerance::Absolute(1e-4),
-            || quantity(0, "virial_residual", |s| s.virial_residual),
+            || quantity(0, |s| s.virial_residual),
         ),
         Check::new(
             "zams.sun.luminosity-residual",
@@ -89,7 +88,7 @@ pub fn checks() -> Vec<Check> {
             "fact of the trade (thermal equilibrium of a ZAMS star)",
             0.0,
             Tolerance::Absolute(1e-6),
-            || quantity(0, "luminosity_residual", |s| s.luminosity_residual),
+            || quantity(0, |s| s.luminosity_residual),
         ),
         // About 4-5 near 1 M_sun and about 3 near 10 M_sun: the 1-10 average lies between.
         Check::new(
@@ -143,46 +142,38 @@ pub fn checks() -> Vec<Check> {
     ]
 }
 
-fn solve_mass(mass_msun: f64) -> Result<ZamsSummary> {
-    let physics = PhysicsOptions::default().build()?;
-    let settings =
-        ZamsSettings::new(mass_msun, Composition::new(X, Z)?, physics)?.with_profile(false);
+fn solve_mass(mass_msun: f64) -> Result<ModelSummary> {
+    let settings = ZamsSettings::new(mass_msun, Composition::new(X, Z)?, PhysicsSet::refined())?;
     Ok(solve(&settings)?.summary)
 }
 
 /// The summary of model `i`, solved on first use. A model that failed is solved again only to
 /// recover its error (the solve is deterministic, so it fails the same way).
-fn model(i: usize) -> Result<ZamsSummary> {
+fn model(i: usize) -> Result<ModelSummary> {
     let mass = MASSES_MSUN[i];
     match MODELS[i].get_or_init(|| solve_mass(mass).ok()) {
-        Some(s) => Ok(s.clone()),
+        Some(s) => Ok(*s),
         None => solve_mass(mass),
     }
 }
 
-/// One summary field of model `i`; a converged model has every field, so a missing one means
-/// the model did not converge.
-fn quantity(i: usize, name: &str, field: fn(&ZamsSummary) -> Option<f64>) -> Result<f64> {
-    let s = model(i)?;
-    field(&s).ok_or_else(|| Error::NoConvergence {
-        iterations: s.iterations,
-        residual: s.fit_mismatch,
-        reason: format!("{name} missing from the {} M_sun model", s.mass_msun),
-    })
+/// One summary quantity of model `i`.
+fn quantity(i: usize, field: fn(&ModelSummary) -> f64) -> Result<f64> {
+    Ok(field(&model(i)?))
 }
 
 fn mass_luminosity_slope() -> Result<f64> {
-    let l1 = quantity(0, "luminosity_lsun", |s| s.luminosity_lsun)?;
-    let l10 = quantity(1, "luminosity_lsun", |s| s.luminosity_lsun)?;
+    let l1 = quantity(0, |s| s.luminosity_lsun)?;
+    let l10 = quantity(1, |s| s.luminosity_lsun)?;
     Ok((l10 / l1).log10() / (MASSES_MSUN[1] / MASSES_MSUN[0]).log10())
 }
 
 fn tout_dlog_l(i: usize) -> Result<f64> {
-    let l = quantity(i, "luminosity_lsun", |s| s.luminosity_lsun)?;
+    let l = quantity(i, |s| s.luminosity_lsun)?;
     Ok((l / tout1996_luminosity_lsun(MASSES_MSUN[i])).log10())
 }
 
 fn tout_dlog_r(i: usize) -> Result<f64> {
-    let r = quantity(i, "radius_rsun", |s| s.radius_rsun)?;
+    let r = quantity(i, |s| s.radius_rsun)?;
     Ok((r / tout1996_radius_rsun(MASSES_MSUN[i])).log10())
 }

@@ -62,8 +62,8 @@ pub fn relative(a: f64, b: f64) -> f64 {
 
 /// The largest relative change of R, L, T_c and rho_c between two ZAMS summaries.
 pub fn relative_change(
-    a: &starpoise::output::zams::ZamsSummary,
-    b: &starpoise::output::zams::ZamsSummary,
+    a: &starpoise::structure::ModelSummary,
+    b: &starpoise::structure::ModelSummary,
 ) -> f64 {
     [
         (a.radius_rsun, b.radius_rsun),
@@ -72,6 +72,6 @@ pub fn relative_change(
         (a.central_density_g_cm3, b.central_density_g_cm3),
     ]
     .iter()
-    .map(|(x, y)| (x.unwrap() / y.unwrap() - 1.0).abs())
+    .map(|(x, y)| (x / y - 1.0).abs())
     .fold(0.0, f64::max)
 }

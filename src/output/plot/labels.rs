@@ -23,13 +23,19 @@ pub fn format_mass(mass_msun: f64) -> String {
     }
 }
 
+/// Relative tolerance for "equals a round number": masses come from grids built by
+/// multiplication, so allow a few parts in 1e6 of rounding (common practice, no source).
+const ROUND_TOLERANCE: f64 = 1e-6;
+
+fn is_near(value: f64, target: f64) -> bool {
+    (value - target).abs() <= ROUND_TOLERANCE * target
+}
+
 /// How round a mass is, smaller is rounder: 1×10^k first, then 2 and 5×10^k, then other
 /// one-digit mantissas, then one-decimal mantissas (1.5, 2.5), then the rest.
-fn roundness(mass_msun: f64) -> u8 {
+pub(crate) fn roundness(mass_msun: f64) -> u8 {
     let mantissa = mass_msun / 10f64.powf(mass_msun.log10().floor());
-    // Relative tolerance for "equals a round number": masses come from grids built by
-    // multiplication, so allow a few parts in 1e6 of rounding (common practice, no source).
-    let near = |x: f64| (mantissa - x).abs() <= 1e-6 * x;
+    let near = |x: f64| is_near(mantissa, x);
     if near(1.0) || near(10.0) {
         0
     } else if near(2.0) || near(5.0) {
@@ -44,7 +50,7 @@ fn roundness(mass_msun: f64) -> u8 {
 }
 
 /// Below this many labels, a crowded series also labels masses that are not round.
-const MIN_LABELS: usize = 3;
+pub(crate) const MIN_LABELS: usize = 3;
 
 /// Indices (ascending) of the points of one series that get a mass label.
 ///
@@ -95,6 +101,49 @@ pub fn select_mass_labels(masses_msun: &[f64], max_labels: usize) -> Vec<usize> 
     chosen
 }
 
+/// Largest mass ratio between two neighbouring models across which a power of ten is marked on
+/// the line between them: with at least about three models per decade the straight line
+/// between neighbours is a fair reading of the sequence there.
+pub const MAX_TICK_RATIO: f64 = 2.0;
+
+/// A power-of-ten mass that no model has, between two neighbouring models.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct MassTick {
+    /// The mass, M_sun (0.1, 1, 10, 100, ...).
+    pub mass_msun: f64,
+    /// Index of the model just below it (the one just above is the next).
+    pub below: usize,
+    /// How far from the model below to the one above it lies, in log M (0..1).
+    pub fraction: f64,
+}
+
+/// The powers of ten strictly inside the range of `masses_msun` (ascending, finite, positive)
+/// that no model has (to [`ROUND_TOLERANCE`]) and whose neighbouring models are at most
+/// [`MAX_TICK_RATIO`] apart in mass, each with where it lies between them in log M.
+pub fn decade_ticks(masses_msun: &[f64]) -> Vec<MassTick> {
+    let (Some(&lo), Some(&hi)) = (masses_msun.first(), masses_msun.last()) else {
+        return Vec::new();
+    };
+    if !(lo > 0.0 && hi.is_finite()) {
+        return Vec::new();
+    }
+    let first = lo.log10().floor() as i32;
+    let last = hi.log10().ceil() as i32;
+    (first..=last)
+        .map(|k| 10f64.powi(k))
+        .filter(|&d| d > lo && d < hi && !masses_msun.iter().any(|&m| is_near(m, d)))
+        .filter_map(|d| {
+            let below = masses_msun.windows(2).position(|w| w[0] < d && d < w[1])?;
+            let (m0, m1) = (masses_msun[below], masses_msun[below + 1]);
+            (m1 / m0 <= MAX_TICK_RATIO).then(|| MassTick {
+                mass_msun: d,
+                below,
+                fraction: (d / m0).log10() / (m1 / m0).log10(),
+            })
+        })
+        .collect()
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -109,6 +158,29 @@ mod tests {
         assert_eq!(format_mass(12.589), "12.6");
         assert_eq!(format_mass(120.0), "120");
         assert_eq!(format_mass(100.0), "100");
+    }
+
+    #[test]
+    fn decades_between_close_models_are_ticked() {
+        // 60 masses log-spaced from 0.08 to 150: none is a power of ten, neighbours are 13.6 %
+        // apart, so 0.1, 1, 10 and 100 are ticked.
+        let masses: Vec<f64> = (0..60)
+            .map(|i| 0.08 * (150.0_f64 / 0.08).powf(i as f64 / 59.0))
+            .collect();
+        let ticks = decade_ticks(&masses);
+        let decades: Vec<f64> = ticks.iter().map(|t| t.mass_msun).collect();
+        assert_eq!(decades, [0.1, 1.0, 10.0, 100.0]);
+        for t in &ticks {
+            let (m0, m1) = (masses[t.below], masses[t.below + 1]);
+            assert!(m0 < t.mass_msun && t.mass_msun < m1);
+            // log M interpolation puts the decade back; tolerance for rounding only.
+            let back = m0 * (m1 / m0).powf(t.fraction);
+            assert!((back / t.mass_msun - 1.0).abs() < 1e-12, "{t:?}");
+        }
+        // A model at the decade needs no tick; models far apart get none.
+        assert!(decade_ticks(&[0.5, 1.0, 1.5]).is_empty());
+        assert!(decade_ticks(&[0.5, 2.5, 5.0]).is_empty());
+        assert_eq!(decade_ticks(&[0.9, 1.2]).len(), 1);
     }
 
     #[test]

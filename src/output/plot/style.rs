@@ -1,13 +1,16 @@
 //! Line and marker styles that stay apart in grey print, fonts, and the legend box.
 
-use super::drawing_error;
+use super::canvas::drawing_error;
+use super::font::text_box_px;
+use super::geometry::PixelBox;
 use crate::error::Result;
 use plotters::coord::Shift;
 use plotters::element::DashedPathElement;
 use plotters::prelude::*;
 use plotters::style::text_anchor::{HPos, Pos, VPos};
 
-/// Font family for every text; the SVG viewer picks the face.
+/// Font family for every text: in SVG files the viewer picks the face; PNG files and the layout
+/// of both use the embedded DejaVu Sans registered under this name (see `font.rs`).
 pub(crate) const FONT: &str = "sans-serif";
 /// Requested font sizes. The SVG backend writes `font-size` as the request divided by 1.24, so
 /// these give about 22, 18, 16 and 14 px in the file.
@@ -115,12 +118,13 @@ pub(crate) fn text_style(size: f64, color: RGBColor, h: HPos, v: VPos) -> TextSt
 }
 
 /// Draw the polyline `points` (in the area's coordinates) with the style's dash and width.
-pub(crate) fn draw_line<CT>(
-    area: &DrawingArea<SVGBackend<'_>, CT>,
+pub(crate) fn draw_line<DB, CT>(
+    area: &DrawingArea<DB, CT>,
     points: &[CT::From],
     style: &SeriesStyle,
 ) -> Result<()>
 where
+    DB: DrawingBackend,
     CT: CoordTranslate,
     CT::From: Clone,
 {
@@ -141,13 +145,14 @@ where
 }
 
 /// Draw one marker of `marker` shape at `at` (in the area's coordinates).
-pub(crate) fn draw_marker<CT>(
-    area: &DrawingArea<SVGBackend<'_>, CT>,
+pub(crate) fn draw_marker<DB, CT>(
+    area: &DrawingArea<DB, CT>,
     at: CT::From,
     marker: Marker,
     color: RGBColor,
 ) -> Result<()>
 where
+    DB: DrawingBackend,
     CT: CoordTranslate,
     CT::From: Clone,
 {
@@ -190,29 +195,26 @@ const LEGEND_PAD: i32 = 8;
 const LEGEND_KEY_WIDTH: i32 = 40;
 const LEGEND_ROW: i32 = 24;
 
-/// Width and height in pixels of the legend box for `entries`. Text width is estimated at
-/// 0.56 em per character, a typical sans-serif average (common practice, no source).
-pub(crate) fn legend_size(entries: &[LegendEntry]) -> (i32, i32) {
-    let em = NOTE_SIZE / 1.24;
-    let chars = entries
-        .iter()
-        .map(|e| e.label.chars().count())
-        .max()
-        .unwrap_or(0);
-    let text_w = (chars as f64 * 0.56 * em).ceil() as i32;
-    (
+/// Width and height in pixels of the legend box for `entries`, with the text measured in the
+/// embedded font.
+pub(crate) fn legend_size(entries: &[LegendEntry]) -> Result<(i32, i32)> {
+    let mut text_w = 0;
+    for e in entries {
+        text_w = text_w.max(text_box_px(&e.label, NOTE_SIZE)?.0);
+    }
+    Ok((
         3 * LEGEND_PAD + LEGEND_KEY_WIDTH + text_w,
         2 * LEGEND_PAD + LEGEND_ROW * entries.len() as i32,
-    )
+    ))
 }
 
-/// Draw a legend box with its top-left corner at pixel `corner` of `area`.
-pub(crate) fn draw_legend(
-    area: &DrawingArea<SVGBackend<'_>, Shift>,
+/// Draw a legend box with its top-left corner at pixel `corner` of `area`; returns the box.
+pub(crate) fn draw_legend<DB: DrawingBackend>(
+    area: &DrawingArea<DB, Shift>,
     corner: (i32, i32),
     entries: &[LegendEntry],
-) -> Result<()> {
-    let (w, h) = legend_size(entries);
+) -> Result<PixelBox> {
+    let (w, h) = legend_size(entries)?;
     let (x0, y0) = corner;
     area.draw(&Rectangle::new(
         [(x0, y0), (x0 + w, y0 + h)],
@@ -252,5 +254,100 @@ pub(crate) fn draw_legend(
         ))
         .map_err(drawing_error)?;
     }
-    Ok(())
+    Ok(PixelBox::at(corner, (w, h)))
+}
+
+/// Radius in pixels of the circle of the solar symbol (small enough that a model one marker
+/// away, such as the 1 M_sun ZAMS model, stays visible beside it).
+pub(crate) const SUN_RADIUS: i32 = 6;
+/// Colour of the solar symbol's circle: Okabe–Ito orange, which no series uses before the
+/// sixth, so that the symbol does not read as a model of the first series.
+pub(crate) const SUN_COLOR: RGBColor = ORANGE_OI;
+
+/// Draw the astronomical symbol of the Sun, a circle with a dot at its centre (⊙), centred at
+/// pixel `at` of `area`, on a white disc so that it reads as a symbol over the lines; returns
+/// the box it covers.
+pub(crate) fn draw_sun_symbol<DB: DrawingBackend>(
+    area: &DrawingArea<DB, Shift>,
+    at: (i32, i32),
+) -> Result<PixelBox> {
+    area.draw(&Circle::new(
+        at,
+        SUN_RADIUS,
+        ShapeStyle::from(&WHITE).filled(),
+    ))
+    .map_err(drawing_error)?;
+    area.draw(&Circle::new(
+        at,
+        SUN_RADIUS,
+        ShapeStyle::from(&SUN_COLOR).stroke_width(2),
+    ))
+    .map_err(drawing_error)?;
+    area.draw(&Circle::new(at, 2, ShapeStyle::from(&BLACK).filled()))
+        .map_err(drawing_error)?;
+    Ok(PixelBox::around(at, SUN_RADIUS + 1, SUN_RADIUS + 1))
+}
+
+/// Half-length in pixels of the tick that marks a round mass between two models.
+pub(crate) const TICK_HALF_LENGTH: i32 = 7;
+
+/// Draw a short tick across the line running from `along.0` to `along.1`, centred at pixel
+/// `at` of `area`, in `color`; returns the box it covers.
+pub(crate) fn draw_tick<DB: DrawingBackend>(
+    area: &DrawingArea<DB, Shift>,
+    at: (i32, i32),
+    along: ((i32, i32), (i32, i32)),
+    color: RGBColor,
+) -> Result<PixelBox> {
+    let (dx, dy) = (
+        f64::from(along.1 .0 - along.0 .0),
+        f64::from(along.1 .1 - along.0 .1),
+    );
+    let length = dx.hypot(dy);
+    let (nx, ny) = if length > 0.0 {
+        (-dy / length, dx / length)
+    } else {
+        (0.0, 1.0)
+    };
+    let h = f64::from(TICK_HALF_LENGTH);
+    let end = |s: f64| {
+        (
+            at.0 + (s * h * nx).round() as i32,
+            at.1 + (s * h * ny).round() as i32,
+        )
+    };
+    area.draw(&PathElement::new(
+        vec![end(-1.0), end(1.0)],
+        ShapeStyle::from(&color).stroke_width(3),
+    ))
+    .map_err(drawing_error)?;
+    Ok(PixelBox::around(
+        at,
+        TICK_HALF_LENGTH + 1,
+        TICK_HALF_LENGTH + 1,
+    ))
+}
+
+/// Write `text` centred in the pixel box `within` of `area`, in `color`; with `backing`, on a
+/// white box first (for a label that had to be set over a line).
+pub(crate) fn draw_label<DB: DrawingBackend>(
+    area: &DrawingArea<DB, Shift>,
+    text: &str,
+    within: PixelBox,
+    color: RGBColor,
+    backing: bool,
+) -> Result<()> {
+    if backing {
+        area.draw(&Rectangle::new(
+            [(within.left, within.top), (within.right, within.bottom)],
+            ShapeStyle::from(&WHITE).filled(),
+        ))
+        .map_err(drawing_error)?;
+    }
+    area.draw(&Text::new(
+        text.to_string(),
+        within.centre(),
+        text_style(NOTE_SIZE, color, HPos::Center, VPos::Center),
+    ))
+    .map_err(drawing_error)
 }

@@ -3,7 +3,7 @@
 
 use super::hr::{HrPoint, HrSeries};
 use crate::error::{Error, Result};
-use crate::output::zams::{ProfileRow, PROFILE_COLUMNS};
+use crate::structure::{ProfileRow, PROFILE_COLUMNS};
 use std::path::Path;
 
 /// What a saved table holds.
@@ -36,8 +36,9 @@ fn csv_error(path: &Path, e: &csv::Error) -> Error {
 /// Read a CSV table written by the `zams` profile output or by a mass sequence.
 ///
 /// - Header exactly [`PROFILE_COLUMNS`]: a profile; every row must parse.
-/// - Header with `mass_msun`, `teff_k` and `luminosity_lsun` (other columns ignored): a
-///   sequence. Rows whose optional `status` column is not `converged`, or with an empty value
+/// - Header with `mass_msun`, `teff_k` and `luminosity_lsun` (other columns ignored; leading
+///   `#` lines skipped): a sequence. Rows whose optional `status` column is neither `converged`
+///   nor `continued`, or with an empty value
 ///   in one of the three columns, are skipped. With a `variant` column, rows are grouped into
 ///   one series per variant in order of first appearance; otherwise one series is labelled
 ///   with the file name without extension.
@@ -48,6 +49,7 @@ fn csv_error(path: &Path, e: &csv::Error) -> Error {
 pub fn read_table(path: &Path) -> Result<PlotInput> {
     let mut reader = csv::ReaderBuilder::new()
         .has_headers(true)
+        .comment(Some(b'#'))
         .trim(csv::Trim::All)
         .from_path(path)
         .map_err(|e| csv_error(path, &e))?;
@@ -119,7 +121,7 @@ fn read_sequence(
         let line = record.position().map_or(0, |p| p.line());
         let field = |i: usize| record.get(i).unwrap_or("");
         if let Some(i) = i_status {
-            if field(i) != "converged" {
+            if !matches!(field(i), "converged" | "continued") {
                 continue;
             }
         }

@@ -3,6 +3,7 @@
 use super::{Convection, ConvectionPoint};
 use crate::constants::{A_RAD_CGS, C_CM_S};
 use crate::error::{Error, PhysicsError, Result};
+use crate::numerics::cube_root::cbrt;
 
 /// Default mixing-length parameter alpha = l / H_P (solar calibrations give 1.5–2.2 depending
 /// on the physics; docs/references.md §5).
@@ -42,9 +43,9 @@ impl MixingLength {
     pub fn new(alpha: f64) -> Result<Self> {
         if !(alpha.is_finite() && (0.1..=10.0).contains(&alpha)) {
             return Err(Error::invalid(
-                "--alpha",
+                "alpha",
                 alpha,
-                "the mixing-length parameter must be between 0.1 and 10, e.g. --alpha 1.8",
+                "the mixing-length parameter must be between 0.1 and 10, e.g. 1.8",
             ));
         }
         Ok(Self { alpha })
@@ -70,7 +71,7 @@ pub fn mlt_root(u: f64, w: f64) -> f64 {
     let a = 8.0 * u / 9.0;
     let b = 16.0 * u * u / 9.0;
     let c = a * w;
-    let mut y = c.cbrt().min(w / (2.0 * u));
+    let mut y = cbrt(c).min(w / (2.0 * u));
     for _ in 0..200 {
         let f = ((y + a) * y + b) * y - c;
         let df = (3.0 * y + 2.0 * a) * y + b;

@@ -5,22 +5,26 @@
 //! - psi <= -10: the convergent series F_j = Gamma(j+1) sum_k (-1)^(k+1) e^(k psi) / k^(j+1),
 //!   five terms (relative truncation error below 1e-20).
 //! - -10 < psi < 50: cubic Hermite interpolation in ln F_j on a uniform table (step 0.05) with
-//!   the exact slopes d ln F_j / d psi = j F_(j-1) / F_j. The table is built once per process
-//!   by the trapezoid rule in t = sqrt(x) (an even, analytic integrand, for which the rule
-//!   converges exponentially; step 0.02, error far below 1e-12). Interpolation error is below
-//!   about 1e-8 relative (checked in `tests/fermi_dirac.rs`).
+//!   the exact slopes d ln F_j / d psi = j F_(j-1) / F_j. The table comes from the trapezoid
+//!   rule in t = sqrt(x) (an even, analytic integrand, for which the rule converges
+//!   exponentially; step 0.02, error far below 1e-12), evaluated once at build time by
+//!   `build.rs` (the quadrature is in `fermi_dirac/quadrature.rs`, shared with the build
+//!   script), so a process pays nothing for it. Interpolation error is below about 1e-8
+//!   relative (checked in `tests/fermi_dirac.rs`, which also checks every node against the
+//!   quadrature).
 //! - psi >= 50: the Sommerfeld expansion F_j = psi^(j+1)/(j+1) [1 + (pi^2/6) (j+1) j psi^-2 +
 //!   (7 pi^4/360) (j+1) j (j-1) (j-2) psi^-4] (e.g. Cox & Giuli 1968, *Principles of Stellar
 //!   Structure*, ch. 24), whose next term is below 1e-10 there.
 //!
-//! No allocation per call: the table lives in a process-wide `OnceLock`.
+//! No allocation per call: the table is a `static` in the binary.
 
-use std::sync::OnceLock;
+/// The exact quadrature behind the table, and the table's grid (shared with `build.rs`).
+pub mod quadrature;
 
-const PSI_MIN: f64 = -10.0;
-const PSI_MAX: f64 = 50.0;
-const STEP: f64 = 0.05;
-const NODES: usize = 1201; // (PSI_MAX - PSI_MIN) / STEP + 1
+pub use quadrature::fermi_dirac_by_quadrature;
+use quadrature::{
+    TABLE_NODES as NODES, TABLE_PSI_MAX as PSI_MAX, TABLE_PSI_MIN as PSI_MIN, TABLE_STEP as STEP,
+};
 
 /// sqrt(pi).
 const SQRT_PI: f64 = 1.772_453_850_905_516;
@@ -51,56 +55,8 @@ struct Table {
     slope: [[f64; NODES]; 3],
 }
 
-static TABLE: OnceLock<Box<Table>> = OnceLock::new();
-
-/// F_j(psi) for j = -1/2, 1/2, 3/2 by the trapezoid rule in t = sqrt(x), together with
-/// dF_-1/2/dpsi. Returns [F_-1/2, F_1/2, F_3/2, dF_-1/2/dpsi].
-///
-/// F_j = 2 integral_0^inf t^(2j+1) / (exp(t^2 - psi) + 1) dt. The integrands are even in t and
-/// analytic near the real axis, so the trapezoid rule with step 0.02 up to t^2 = max(psi, 0) + 60
-/// is accurate to about machine precision. Slow (a few thousand exponentials): for tests and for
-/// building the table, not for per-point use.
-pub fn fermi_dirac_by_quadrature(psi: f64) -> [f64; 4] {
-    let h = 0.02;
-    let t_max = (psi.max(0.0) + 60.0).sqrt();
-    let n = (t_max / h).ceil() as usize;
-    let mut sums = [0.0; 4];
-    for i in 0..=n {
-        let t = i as f64 * h;
-        let weight = if i == 0 { 0.5 } else { 1.0 };
-        let e = (t * t - psi).exp();
-        let occ = 1.0 / (e + 1.0);
-        let t2 = t * t;
-        sums[0] += weight * occ;
-        sums[1] += weight * t2 * occ;
-        sums[2] += weight * t2 * t2 * occ;
-        // d/dpsi of 1/(e+1) is e/(e+1)^2.
-        sums[3] += weight * e * occ * occ;
-    }
-    sums.map(|s| 2.0 * h * s)
-}
-
-fn build_table() -> Box<Table> {
-    let mut table = Box::new(Table {
-        ln_f: [[0.0; NODES]; 3],
-        slope: [[0.0; NODES]; 3],
-    });
-    for i in 0..NODES {
-        let psi = PSI_MIN + i as f64 * STEP;
-        let [fm, fh, f3, dfm] = fermi_dirac_by_quadrature(psi);
-        table.ln_f[0][i] = fm.ln();
-        table.ln_f[1][i] = fh.ln();
-        table.ln_f[2][i] = f3.ln();
-        table.slope[0][i] = dfm / fm;
-        table.slope[1][i] = 0.5 * fm / fh;
-        table.slope[2][i] = 1.5 * fh / f3;
-    }
-    table
-}
-
-fn table() -> &'static Table {
-    TABLE.get_or_init(build_table)
-}
+// `static TABLE: Table`, tabulated by build.rs with `quadrature::table_node` at every node.
+include!(concat!(env!("OUT_DIR"), "/fermi_dirac_table.rs"));
 
 /// (-1)^(k+1) / k^(j+1) for k = 1..5 and j + 1 = 1/2, 3/2, 5/2.
 const SERIES: [[f64; 5]; 3] = [
@@ -200,7 +156,7 @@ pub fn ln_fermi_dirac(psi: f64) -> [f64; 3] {
 
 /// Cubic Hermite interpolation of ln F_j in the table, PSI_MIN < psi < PSI_MAX.
 fn table_ln(psi: f64) -> [f64; 3] {
-    let tab = table();
+    let tab = &TABLE;
     let u = (psi - PSI_MIN) / STEP;
     let i = (u.floor() as usize).min(NODES - 2);
     let s = u - i as f64;
@@ -266,4 +222,30 @@ pub fn inverse_fermi_dirac_half(f_half: f64) -> Option<f64> {
         }
     }
     Some(psi)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// The build-time table is the library's own quadrature at every node, bit for bit (the
+    /// build script includes the same source; a stale or differently computed table fails).
+    #[test]
+    fn build_time_table_is_the_quadrature() {
+        for i in 0..NODES {
+            let (ln_f, slope) = quadrature::table_node(i);
+            for j in 0..3 {
+                assert_eq!(
+                    TABLE.ln_f[j][i].to_bits(),
+                    ln_f[j].to_bits(),
+                    "node {i} j {j}"
+                );
+                assert_eq!(
+                    TABLE.slope[j][i].to_bits(),
+                    slope[j].to_bits(),
+                    "node {i} j {j}"
+                );
+            }
+        }
+    }
 }

@@ -2,6 +2,7 @@
 
 use super::{EnergyGeneration, EnergyRate};
 use crate::error::PhysicsError;
+use crate::numerics::cube_root::cbrt;
 use crate::physics::composition::Composition;
 use crate::physics::opacity::check_point;
 
@@ -30,7 +31,7 @@ const CNO: (f64, f64) = (8.67e27, 152.28);
 
 /// T6^(-2/3) exp(-B T6^(-1/3)) and its logarithmic temperature derivative.
 fn gamow_factor(t6: f64, b: f64) -> (f64, f64) {
-    let t13 = t6.cbrt();
+    let t13 = cbrt(t6);
     let value = (-b / t13).exp() / (t13 * t13);
     (value, -2.0 / 3.0 + b / (3.0 * t13))
 }

@@ -4,6 +4,7 @@
 use super::{EnergyGeneration, EnergyRate};
 use crate::constants::{E_ESU, HBAR_ERG_S, K_B_ERG_K, MEV_ERG, M_E_G, M_P_G, M_U_G};
 use crate::error::PhysicsError;
+use crate::numerics::cube_root::cbrt;
 use crate::physics::composition::{Composition, METAL_MEAN_MASS_NUMBER};
 use crate::physics::opacity::check_point;
 
@@ -164,7 +165,7 @@ pub fn screening(z1: f64, z2: f64, rho: f64, t: f64, comp: &Composition) -> (f64
         * (4.0 * std::f64::consts::PI * rho * zeta2 / M_U_G).sqrt()
         * kt.powf(-1.5);
     let n_e = rho / M_U_G * 0.5 * (1.0 + comp.x());
-    let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
+    let a_e = cbrt(3.0 / (4.0 * std::f64::consts::PI * n_e));
     let p53 = |z: f64| z.powf(5.0 / 3.0);
     let strong = 0.9 * (p53(z1 + z2) - p53(z1) - p53(z2)) * E_ESU * E_ESU / (a_e * kt);
     bridge(weak, strong)
@@ -280,10 +281,10 @@ impl Conditions {
         let weak_unit = E_ESU.powi(3) * (4.0 * std::f64::consts::PI * rho * zeta2 / M_U_G).sqrt()
             / (kt * kt_sqrt);
         let n_e = rho / M_U_G * 0.5 * (1.0 + comp.x());
-        let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
+        let a_e = cbrt(3.0 / (4.0 * std::f64::consts::PI * n_e));
         Self {
             kt,
-            kt_cbrt: kt.cbrt(),
+            kt_cbrt: cbrt(kt),
             kt_sqrt,
             weak_unit,
             strong_unit: E_ESU * E_ESU / (a_e * kt),

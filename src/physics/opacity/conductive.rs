@@ -3,6 +3,7 @@
 use super::{check_point, Opacity};
 use crate::constants::{A_RAD_CGS, C_CM_S, E_ESU, HBAR_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
 use crate::error::PhysicsError;
+use crate::numerics::cube_root::cbrt;
 use crate::physics::composition::{Composition, METAL_MEAN_MASS_NUMBER};
 
 /// Conductive opacity kappa_cd = 4 a c T^3 / (3 rho lambda_cd) cm^2 g^-1 (Kippenhahn & Weigert
@@ -35,7 +36,7 @@ impl Conductive {
                 + METAL_CHARGE * METAL_CHARGE * comp.z() / METAL_MEAN_MASS_NUMBER);
         let n_ion = per_mu * (comp.x() + 0.25 * comp.y() + comp.z() / METAL_MEAN_MASS_NUMBER);
         let pi = std::f64::consts::PI;
-        let v_f = HBAR_ERG_S * (3.0 * pi * pi * n_e).cbrt() / M_E_G;
+        let v_f = HBAR_ERG_S * cbrt(3.0 * pi * pi * n_e) / M_E_G;
         let v2 = v_f * v_f + 3.0 * K_B_ERG_K * t / M_E_G;
         let v = v2.sqrt();
         // ln(a_i / b_min) with a_i = (3 / (4 pi n_ion))^(1/3), b_min = hbar / (2 m_e v),

@@ -1,0 +1,811 @@
+//! The DOP853 driver: stages, error estimate, step-size control, dense output, events, output
+//! points (Hairer, Nørsett & Wanner 1993, §II.4 for the step-size control and starting step,
+//! §II.5 for the method, §II.10 for the dense output; Hairer & Wanner 1996, §IV.2 for the PI
+//! controller and the stiffness test). Written for this crate from the published method.
+
+use super::dense::{AcceptedStep, DenseOutput};
+use super::error::OdeError;
+use super::settings::{check_tolerances, Dop853Settings, RhsFailure};
+use super::tableau::{A, B, BHH, C, D, ER, STAGES};
+use super::{Control, Crossing, Observer, OdeSystem};
+use crate::error::Error;
+use crate::numerics::scalar::illinois;
+use nalgebra::SVector;
+
+/// Weight of the 3rd-order estimate in the denominator of Hairer's error norm
+/// err = |h| err5^2 / sqrt(n (err5^2 + 0.01 err3^2)) (§II.10, the estimate of DOP853).
+const ERR3_WEIGHT: f64 = 0.01;
+/// Floor of the previous error in the PI controller (Hairer's 1e-4).
+const MIN_OLD_ERROR: f64 = 1e-4;
+/// Hairer's stiffness test: h |lambda| above this (near the border of DOP853's stability
+/// region on the negative real axis) is a positive test.
+const STIFF_H_LAMBDA: f64 = 6.1;
+/// Positive stiffness tests in a row that stop the integration (Hairer's 15).
+const STIFF_POSITIVE_TESTS: usize = 15;
+/// Negative tests that reset the count of positive ones (Hairer's 6).
+const STIFF_NEGATIVE_RESET: usize = 6;
+/// Attempts of the starting-step probe after right-hand-side failures (with `RejectStep`).
+const PROBE_ATTEMPTS: usize = 30;
+
+/// Work counts of one integration (in [`Outcome::stats`]) or of an integrator's life
+/// ([`Dop853::total_stats`]).
+#[derive(Debug, Clone, Copy, Default, PartialEq, Eq)]
+pub struct Stats {
+    /// Calls of the right-hand side, failed ones included.
+    pub rhs_evaluations: usize,
+    /// Accepted steps.
+    pub accepted_steps: usize,
+    /// Rejected steps (error too large, or a failed trial with `RejectStep`).
+    pub rejected_steps: usize,
+    /// Steps whose dense output was prepared (three right-hand sides each, counted above).
+    pub dense_outputs: usize,
+}
+
+impl Stats {
+    fn add(&mut self, other: &Stats) {
+        self.rhs_evaluations += other.rhs_evaluations;
+        self.accepted_steps += other.accepted_steps;
+        self.rejected_steps += other.rejected_steps;
+        self.dense_outputs += other.dense_outputs;
+    }
+}
+
+/// Why an integration returned normally.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Stop {
+    /// It reached x_end.
+    End,
+    /// An event whose [`Observer::on_event`] said stop.
+    Event {
+        /// Which event function.
+        index: usize,
+    },
+    /// [`Observer::on_step`] said stop (at the end of a step).
+    Observer,
+}
+
+/// Where and why an integration stopped.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Outcome<const N: usize> {
+    /// Final x (exactly x_end at the end).
+    pub x: f64,
+    /// State at `x`.
+    pub y: SVector<f64, N>,
+    /// Why it stopped.
+    pub stop: Stop,
+    /// Output points used up (emitted or skipped); continue with `points[outputs_done..]`.
+    pub outputs_done: usize,
+    /// The step size the controller proposes next (a good `initial_step` for a restart).
+    pub next_step: f64,
+    /// Work done by this integration.
+    pub stats: Stats,
+}
+
+/// A failed trial: a right-hand-side error or a non-finite value.
+enum Failure<E> {
+    Rhs { x: f64, source: E },
+    NonFinite,
+}
+
+/// The DOP853 integrator for states of size `N`. It owns its stage vectors, so one integrator
+/// can run many integrations without allocating (its event buffers grow to the largest event
+/// count seen, once).
+#[derive(Debug, Clone)]
+pub struct Dop853<const N: usize> {
+    settings: Dop853Settings,
+    rtol: [f64; N],
+    atol: [f64; N],
+    controlled: [bool; N],
+    k: [SVector<f64, N>; STAGES],
+    y_new: SVector<f64, N>,
+    y_stage11: SVector<f64, N>,
+    dense: DenseOutput<N>,
+    g_old: Vec<f64>,
+    g_new: Vec<f64>,
+    roots: Vec<Option<f64>>,
+    run: Stats,
+    totals: Stats,
+}
+
+impl<const N: usize> Dop853<N> {
+    /// An integrator with `settings` (validated), every component under the same tolerances.
+    pub fn new(settings: Dop853Settings) -> Result<Self, Error> {
+        settings.validate()?;
+        if N == 0 {
+            return Err(Error::invalid("state size", N, ">= 1"));
+        }
+        Ok(Self {
+            settings,
+            rtol: [settings.rtol; N],
+            atol: [settings.atol; N],
+            controlled: [true; N],
+            k: [SVector::zeros(); STAGES],
+            y_new: SVector::zeros(),
+            y_stage11: SVector::zeros(),
+            dense: DenseOutput::empty(),
+            g_old: Vec::new(),
+            g_new: Vec::new(),
+            roots: Vec::new(),
+            run: Stats::default(),
+            totals: Stats::default(),
+        })
+    }
+
+    /// The settings (the scalar tolerances in them are those of the last
+    /// [`Dop853::set_tolerances`]).
+    pub fn settings(&self) -> &Dop853Settings {
+        &self.settings
+    }
+
+    /// The same `rtol` and `atol` for every component (components taken out of the error
+    /// control stay out).
+    pub fn set_tolerances(&mut self, rtol: f64, atol: f64) -> Result<(), Error> {
+        check_tolerances(rtol, atol)?;
+        self.settings.rtol = rtol;
+        self.settings.atol = atol;
+        self.rtol = [rtol; N];
+        self.atol = [atol; N];
+        Ok(())
+    }
+
+    /// Tolerances of one component.
+    pub fn set_component_tolerances(
+        &mut self,
+        index: usize,
+        rtol: f64,
+        atol: f64,
+    ) -> Result<(), Error> {
+        check_tolerances(rtol, atol)?;
+        if index >= N {
+            return Err(Error::invalid("component", index, "below the state size"));
+        }
+        self.rtol[index] = rtol;
+        self.atol[index] = atol;
+        Ok(())
+    }
+
+    /// Leave component `index` out of the error estimate (a running integral that feeds back
+    /// into nothing, say), or put it back. At least one component must stay in.
+    pub fn set_error_control(&mut self, index: usize, controlled: bool) -> Result<(), Error> {
+        if index >= N {
+            return Err(Error::invalid("component", index, "below the state size"));
+        }
+        let others = (0..N).filter(|&i| i != index && self.controlled[i]).count();
+        if !controlled && others == 0 {
+            return Err(Error::invalid(
+                "component",
+                index,
+                "a component other than the last one under error control",
+            ));
+        }
+        self.controlled[index] = controlled;
+        Ok(())
+    }
+
+    /// The first step of the next integrations (`None`: estimate it).
+    pub fn set_initial_step(&mut self, h: Option<f64>) -> Result<(), Error> {
+        let mut s = self.settings;
+        s.initial_step = h;
+        s.validate()?;
+        self.settings = s;
+        Ok(())
+    }
+
+    /// Work done by every integration since this integrator was built (failed ones included).
+    pub fn total_stats(&self) -> Stats {
+        self.totals
+    }
+
+    /// Integrate dy/dx = f(x, y) from (`x0`, `y0`) towards `x_end` (above or below x0), watched
+    /// by `observer`. Returns the end state, or the state at an event or observer stop; or why
+    /// it could not go on, with the x where that happened.
+    pub fn integrate<S, O>(
+        &mut self,
+        system: &mut S,
+        x0: f64,
+        y0: &SVector<f64, N>,
+        x_end: f64,
+        observer: &mut O,
+    ) -> Result<Outcome<N>, OdeError<S::Error>>
+    where
+        S: OdeSystem<N>,
+        O: Observer<N, S::Error>,
+    {
+        self.run = Stats::default();
+        let result = self.run_integration(system, x0, y0, x_end, observer);
+        self.totals.add(&self.run);
+        result.map(|mut outcome| {
+            outcome.stats = self.run;
+            outcome
+        })
+    }
+
+    fn run_integration<S, O>(
+        &mut self,
+        system: &mut S,
+        x0: f64,
+        y0: &SVector<f64, N>,
+        x_end: f64,
+        observer: &mut O,
+    ) -> Result<Outcome<N>, OdeError<S::Error>>
+    where
+        S: OdeSystem<N>,
+        O: Observer<N, S::Error>,
+    {
+        if !x0.is_finite() {
+            return Err(OdeError::InvalidStart { what: "x0" });
+        }
+        if !x_end.is_finite() {
+            return Err(OdeError::InvalidStart { what: "x_end" });
+        }
+        if !y0.iter().all(|v| v.is_finite()) {
+            return Err(OdeError::InvalidStart { what: "y0" });
+        }
+        let direction = if x_end >= x0 { 1.0 } else { -1.0 };
+        let mut outputs_done = start_outputs(observer, x0, y0, direction);
+        let n_events = observer.event_count();
+        self.g_old.clear();
+        self.g_old.resize(n_events, 0.0);
+        self.g_new.clear();
+        self.g_new.resize(n_events, 0.0);
+        self.roots.clear();
+        self.roots.resize(n_events, None);
+        for i in 0..n_events {
+            self.g_old[i] = event_value(observer, i, x0, y0)?;
+        }
+        let stop_outcome = |x: f64, y: SVector<f64, N>, stop: Stop, done: usize, h: f64| {
+            Ok(Outcome {
+                x,
+                y,
+                stop,
+                outputs_done: done,
+                next_step: h,
+                stats: Stats::default(),
+            })
+        };
+        if x_end == x0 {
+            return stop_outcome(x0, *y0, Stop::End, outputs_done, 0.0);
+        }
+        self.run.rhs_evaluations += 1;
+        system
+            .rhs(x0, y0, &mut self.k[0])
+            .map_err(|source| OdeError::Rhs { x: x0, source })?;
+        if !self.k[0].iter().all(|v| v.is_finite()) {
+            return Err(OdeError::NonFinite { x: x0 });
+        }
+        let s = self.settings;
+        let fixed = s.fixed_step.is_some();
+        let mut h = match (s.fixed_step, s.initial_step) {
+            (Some(hf), _) => direction * hf.abs(),
+            (None, Some(h0)) => direction * h0.abs().min(s.max_step),
+            (None, None) => self.starting_step(system, x0, y0, x_end, direction)?,
+        };
+        // Hairer's DOP853: the current error's exponent 1/8 - 0.2 beta.
+        let expo = 0.125 - 0.2 * s.beta;
+        let mut x = x0;
+        let mut y = *y0;
+        let mut reject = false;
+        let mut err_old = MIN_OLD_ERROR;
+        let mut last_failure: Option<(f64, S::Error)> = None;
+        let (mut stiff_positive, mut stiff_negative) = (0usize, 0usize);
+        loop {
+            if self.run.accepted_steps + self.run.rejected_steps >= s.max_steps {
+                return Err(OdeError::TooManySteps {
+                    x,
+                    max_steps: s.max_steps,
+                });
+            }
+            if h == 0.0 || 0.1 * h.abs() <= x.abs() * f64::EPSILON {
+                return Err(match last_failure {
+                    Some((x, source)) => OdeError::Rhs { x, source },
+                    None => OdeError::StepSizeUnderflow { x, h },
+                });
+            }
+            let mut last = false;
+            if (x + 1.01 * h - x_end) * direction > 0.0 {
+                h = x_end - x;
+                last = true;
+            }
+            let x_new = if last { x_end } else { x + h };
+
+            // The trial step, its error and (if it passes) the right-hand side at its end.
+            let err = match self.attempt(system, x, &y, h, x_new) {
+                Ok(err) => err,
+                Err(failure) => {
+                    h = self.after_failure(failure, x, h, &mut last_failure)?;
+                    reject = true;
+                    continue;
+                }
+            };
+            if err > 1.0 {
+                h /= (1.0 / s.min_factor).min(err.powf(expo) / s.safety);
+                reject = true;
+                self.run.rejected_steps += 1;
+                continue;
+            }
+
+            // Events and output points decide whether the dense output is needed.
+            let y_new = self.y_new;
+            let mut crossing = false;
+            for i in 0..n_events {
+                let g = event_value(observer, i, x_new, &y_new)?;
+                self.g_new[i] = g;
+                crossing |= crosses(self.g_old[i], g, observer.event_direction(i));
+            }
+            let output_inside = observer
+                .output_points()
+                .get(outputs_done)
+                .is_some_and(|&p| (p - x_new) * direction <= 0.0);
+            let need_dense = crossing || output_inside || observer.dense_every_step();
+            if need_dense {
+                if let Err(failure) = self.prepare_dense(system, x, &y, h) {
+                    h = self.after_failure(failure, x, h, &mut last_failure)?;
+                    reject = true;
+                    continue;
+                }
+            }
+
+            // The step is accepted.
+            self.run.accepted_steps += 1;
+            last_failure = None;
+            let h_next = if fixed {
+                h.signum() * s.fixed_step.map_or(h.abs(), f64::abs)
+            } else {
+                let fac = (err.powf(expo) / err_old.powf(s.beta) / s.safety)
+                    .clamp(1.0 / s.max_factor, 1.0 / s.min_factor);
+                err_old = err.max(MIN_OLD_ERROR);
+                let mut h_new = h / fac;
+                if h_new.abs() > s.max_step {
+                    h_new = direction * s.max_step;
+                }
+                if reject {
+                    h_new = direction * h_new.abs().min(h.abs());
+                }
+                h_new
+            };
+            reject = false;
+            if let Some(every) = s.stiffness_check {
+                if self.run.accepted_steps.is_multiple_of(every) || stiff_positive > 0 {
+                    if self.stiffness_test(h) {
+                        stiff_negative = 0;
+                        stiff_positive += 1;
+                        if stiff_positive == STIFF_POSITIVE_TESTS {
+                            return Err(OdeError::Stiff { x });
+                        }
+                    } else {
+                        stiff_negative += 1;
+                        if stiff_negative == STIFF_NEGATIVE_RESET {
+                            stiff_positive = 0;
+                        }
+                    }
+                }
+            }
+
+            let stop_event = if crossing {
+                self.locate_events(observer, x, x_new, &y_new, direction)?
+            } else {
+                None
+            };
+            let (x_stop, y_stop) = match &stop_event {
+                Some((_, xe, ye)) => (*xe, *ye),
+                None => (x_new, y_new),
+            };
+            outputs_done =
+                self.step_outputs(observer, outputs_done, x, (x_stop, &y_stop), direction);
+            let view = AcceptedStep {
+                x_old: x,
+                y_old: &y,
+                x: x_stop,
+                y: &y_stop,
+                dense: need_dense.then_some(&self.dense),
+            };
+            let control = observer.on_step(&view);
+            if let Some((index, xe, ye)) = stop_event {
+                return stop_outcome(xe, ye, Stop::Event { index }, outputs_done, h_next);
+            }
+            x = x_new;
+            y = y_new;
+            self.k[0] = self.k[12];
+            std::mem::swap(&mut self.g_old, &mut self.g_new);
+            if control == Control::Stop {
+                return stop_outcome(x, y, Stop::Observer, outputs_done, h_next);
+            }
+            if last {
+                return stop_outcome(x, y, Stop::End, outputs_done, h_next);
+            }
+            h = h_next;
+        }
+    }
+
+    /// y + h sum_j a_ij k_j for stage `i`.
+    #[inline(always)]
+    fn stage_input(&self, i: usize, y: &SVector<f64, N>, h: f64) -> SVector<f64, N> {
+        let mut acc = SVector::<f64, N>::zeros();
+        for &(j, a) in A[i] {
+            acc.axpy(a, &self.k[j], 1.0);
+        }
+        y + acc * h
+    }
+
+    /// One trial step: its stages and error (0 with fixed steps), and, if the error is at most
+    /// 1, the right-hand side at the new point (stage 12, the next step's stage 0).
+    fn attempt<S: OdeSystem<N>>(
+        &mut self,
+        system: &mut S,
+        x: f64,
+        y: &SVector<f64, N>,
+        h: f64,
+        x_new: f64,
+    ) -> Result<f64, Failure<S::Error>> {
+        self.try_step(system, x, y, h, x_new)?;
+        let err = if self.settings.fixed_step.is_some() {
+            0.0
+        } else {
+            self.error_norm(y, h)
+        };
+        if !err.is_finite() {
+            return Err(Failure::NonFinite);
+        }
+        if err <= 1.0 {
+            self.run.rhs_evaluations += 1;
+            system
+                .rhs(x_new, &self.y_new, &mut self.k[12])
+                .map_err(|source| Failure::Rhs { x: x_new, source })?;
+            if !self.k[12].iter().all(|v| v.is_finite()) {
+                return Err(Failure::NonFinite);
+            }
+        }
+        Ok(err)
+    }
+
+    /// Stages 1-11 and the 8th-order solution y_new (stage 0 is f at the start).
+    fn try_step<S: OdeSystem<N>>(
+        &mut self,
+        system: &mut S,
+        x: f64,
+        y: &SVector<f64, N>,
+        h: f64,
+        x_new: f64,
+    ) -> Result<(), Failure<S::Error>> {
+        // Written out stage by stage so that each row of A is a constant after inlining.
+        self.stage(system, 1, x + C[1] * h, y, h)?;
+        self.stage(system, 2, x + C[2] * h, y, h)?;
+        self.stage(system, 3, x + C[3] * h, y, h)?;
+        self.stage(system, 4, x + C[4] * h, y, h)?;
+        self.stage(system, 5, x + C[5] * h, y, h)?;
+        self.stage(system, 6, x + C[6] * h, y, h)?;
+        self.stage(system, 7, x + C[7] * h, y, h)?;
+        self.stage(system, 8, x + C[8] * h, y, h)?;
+        self.stage(system, 9, x + C[9] * h, y, h)?;
+        self.stage(system, 10, x + C[10] * h, y, h)?;
+        // Stage 11 has c = 1: evaluate it exactly at the step's end.
+        self.stage(system, 11, x_new, y, h)?;
+        self.y_new = self.stage_input(12, y, h);
+        if self.y_new.iter().all(|v| v.is_finite()) {
+            Ok(())
+        } else {
+            Err(Failure::NonFinite)
+        }
+    }
+
+    /// k_i = f(x_i, y + h sum_j a_ij k_j).
+    #[inline(always)]
+    fn stage<S: OdeSystem<N>>(
+        &mut self,
+        system: &mut S,
+        i: usize,
+        x_i: f64,
+        y: &SVector<f64, N>,
+        h: f64,
+    ) -> Result<(), Failure<S::Error>> {
+        let y_i = self.stage_input(i, y, h);
+        if i == 11 {
+            self.y_stage11 = y_i;
+        }
+        self.run.rhs_evaluations += 1;
+        system
+            .rhs(x_i, &y_i, &mut self.k[i])
+            .map_err(|source| Failure::Rhs { x: x_i, source })
+    }
+
+    /// Hairer's error norm of DOP853: the 5th-order estimate, corrected by the 3rd-order one,
+    /// err = |h| E5^2 / sqrt(n (E5^2 + 0.01 E3^2)) with E_p^2 = sum_i (e_p,i / sk_i)^2 and
+    /// sk_i = atol_i + rtol_i max(|y_i|, |y_new,i|) over the controlled components.
+    fn error_norm(&self, y: &SVector<f64, N>, h: f64) -> f64 {
+        let (mut err5, mut err3, mut n) = (0.0, 0.0, 0usize);
+        for i in 0..N {
+            if !self.controlled[i] {
+                continue;
+            }
+            n += 1;
+            let sk = (self.atol[i] + self.rtol[i] * y[i].abs().max(self.y_new[i].abs()))
+                .max(f64::MIN_POSITIVE);
+            let mut e3 = 0.0;
+            for &(j, b) in &B {
+                e3 += b * self.k[j][i];
+            }
+            for &(j, b) in &BHH {
+                e3 -= b * self.k[j][i];
+            }
+            let mut e5 = 0.0;
+            for &(j, e) in &ER {
+                e5 += e * self.k[j][i];
+            }
+            err3 += (e3 / sk) * (e3 / sk);
+            err5 += (e5 / sk) * (e5 / sk);
+        }
+        let mut deno = err5 + ERR3_WEIGHT * err3;
+        if deno <= 0.0 {
+            deno = 1.0;
+        }
+        h.abs() * err5 / (n as f64 * deno).sqrt()
+    }
+
+    /// What a failed trial does: with `RejectStep` (and adaptive steps) it counts as a rejected
+    /// step and the next step size is returned, else the error.
+    fn after_failure<E>(
+        &mut self,
+        failure: Failure<E>,
+        x: f64,
+        h: f64,
+        last_failure: &mut Option<(f64, E)>,
+    ) -> Result<f64, OdeError<E>> {
+        match (self.settings.on_rhs_failure, self.settings.fixed_step) {
+            (RhsFailure::RejectStep { shrink }, None) => {
+                if let Failure::Rhs { x, source } = failure {
+                    *last_failure = Some((x, source));
+                }
+                self.run.rejected_steps += 1;
+                Ok(h * shrink)
+            }
+            _ => Err(match failure {
+                Failure::Rhs { x, source } => OdeError::Rhs { x, source },
+                Failure::NonFinite => OdeError::NonFinite { x },
+            }),
+        }
+    }
+
+    /// Hairer's starting step (§II.4): h0 from |y|/|f| (or 1e-6), an explicit Euler probe to
+    /// estimate the second derivative, then h with h^8 max(|f|, |f'|) = 0.01, at most 100 h0.
+    fn starting_step<S: OdeSystem<N>>(
+        &mut self,
+        system: &mut S,
+        x: f64,
+        y: &SVector<f64, N>,
+        x_end: f64,
+        direction: f64,
+    ) -> Result<f64, OdeError<S::Error>> {
+        let sk = |i: usize| (self.atol[i] + self.rtol[i] * y[i].abs()).max(f64::MIN_POSITIVE);
+        let (mut dnf, mut dny) = (0.0, 0.0);
+        for i in (0..N).filter(|&i| self.controlled[i]) {
+            dnf += (self.k[0][i] / sk(i)).powi(2);
+            dny += (y[i] / sk(i)).powi(2);
+        }
+        let mut h: f64 = if dnf <= 1e-10 || dny <= 1e-10 {
+            1e-6
+        } else {
+            (dny / dnf).sqrt() * 0.01
+        };
+        let span = (x_end - x).abs();
+        h = h.min(self.settings.max_step).min(span);
+        let mut probe_ok = false;
+        for _ in 0..PROBE_ATTEMPTS {
+            let y1 = y + self.k[0] * (direction * h);
+            self.run.rhs_evaluations += 1;
+            let (k0, k1) = self.k.split_at_mut(1);
+            match system.rhs(x + direction * h, &y1, &mut k1[0]) {
+                Ok(())
+                    if k1[0].iter().all(|v| v.is_finite())
+                        && k0[0].iter().all(|v| v.is_finite()) =>
+                {
+                    probe_ok = true;
+                    break;
+                }
+                Ok(()) => {}
+                Err(source) => {
+                    if self.settings.on_rhs_failure == RhsFailure::Stop {
+                        return Err(OdeError::Rhs {
+                            x: x + direction * h,
+                            source,
+                        });
+                    }
+                }
+            }
+            match self.settings.on_rhs_failure {
+                RhsFailure::RejectStep { shrink } => h *= shrink,
+                RhsFailure::Stop => return Err(OdeError::NonFinite { x }),
+            }
+        }
+        if !probe_ok {
+            // Every probe failed: start with the smallest probe and let the step control act.
+            return Ok(direction * h);
+        }
+        let mut der2 = 0.0;
+        for i in (0..N).filter(|&i| self.controlled[i]) {
+            der2 += ((self.k[1][i] - self.k[0][i]) / sk(i)).powi(2);
+        }
+        let der2 = der2.sqrt() / h;
+        let der12 = der2.max(dnf.sqrt());
+        let h1 = if der12 <= 1e-15 {
+            (h * 1e-3).max(1e-6)
+        } else {
+            (0.01 / der12).powf(1.0 / 8.0)
+        };
+        Ok(direction * (100.0 * h).min(h1).min(self.settings.max_step).min(span))
+    }
+
+    /// The three extra stages and the coefficients of the continuous extension for the step
+    /// from (`x`, `y`) of size `h` (stages 0-12 and y_new must be those of the step).
+    fn prepare_dense<S: OdeSystem<N>>(
+        &mut self,
+        system: &mut S,
+        x: f64,
+        y: &SVector<f64, N>,
+        h: f64,
+    ) -> Result<(), Failure<S::Error>> {
+        for (i, &c) in C.iter().enumerate().skip(13) {
+            self.stage(system, i, x + c * h, y, h)?;
+            if !self.k[i].iter().all(|v| v.is_finite()) {
+                return Err(Failure::NonFinite);
+            }
+        }
+        let ydiff = self.y_new - y;
+        let bspl = self.k[0] * h - ydiff;
+        let c = &mut self.dense.coefficients;
+        c[0] = *y;
+        c[1] = ydiff;
+        c[2] = bspl;
+        c[3] = ydiff - self.k[12] * h - bspl;
+        for (r, row) in D.iter().enumerate() {
+            let mut acc = SVector::<f64, N>::zeros();
+            for &(j, d) in *row {
+                acc.axpy(d, &self.k[j], 1.0);
+            }
+            c[4 + r] = acc * h;
+        }
+        self.dense.x_old = x;
+        self.dense.h = h;
+        self.run.dense_outputs += 1;
+        Ok(())
+    }
+
+    /// Hairer's stiffness test: h |lambda| estimated from stages 11 and 12, which are both at
+    /// x + h, by |f(y_new) - f(y_11)| / |y_new - y_11|.
+    fn stiffness_test(&self, h: f64) -> bool {
+        let num = (self.k[12] - self.k[11]).norm_squared();
+        let den = (self.y_new - self.y_stage11).norm_squared();
+        den > 0.0 && h.abs() * (num / den).sqrt() > STIFF_H_LAMBDA
+    }
+
+    /// Locate every event that changed sign on the step and report them in order of x; the
+    /// first whose observer says stop ends the search. Returns (index, x, y) of that one.
+    #[allow(clippy::type_complexity)]
+    fn locate_events<E, O: Observer<N, E>>(
+        &mut self,
+        observer: &mut O,
+        x_old: f64,
+        x_new: f64,
+        y_new: &SVector<f64, N>,
+        direction: f64,
+    ) -> Result<Option<(usize, f64, SVector<f64, N>)>, OdeError<E>> {
+        let ulp_floor = 4.0 * f64::EPSILON * x_old.abs().max(x_new.abs());
+        let tolerance = self.settings.event_tolerance.max(ulp_floor);
+        for i in 0..self.roots.len() {
+            self.roots[i] = None;
+            let (g0, g1) = (self.g_old[i], self.g_new[i]);
+            if !crosses(g0, g1, observer.event_direction(i)) {
+                continue;
+            }
+            let dense = &self.dense;
+            let root = illinois(
+                |x| event_value(observer, i, x, &dense.evaluate(x)),
+                x_old,
+                g0,
+                x_new,
+                g1,
+                tolerance,
+            )?;
+            self.roots[i] = Some(root);
+        }
+        loop {
+            let mut first: Option<(usize, f64)> = None;
+            for (i, r) in self.roots.iter().enumerate() {
+                if let Some(r) = *r {
+                    if first.is_none_or(|(_, f)| (r - f) * direction < 0.0) {
+                        first = Some((i, r));
+                    }
+                }
+            }
+            let Some((i, r)) = first else {
+                return Ok(None);
+            };
+            self.roots[i] = None;
+            let y_r = if r == x_new {
+                *y_new
+            } else {
+                self.dense.evaluate(r)
+            };
+            if observer.on_event(i, r, &y_r) == Control::Stop {
+                return Ok(Some((i, r, y_r)));
+            }
+        }
+    }
+
+    /// Emit the output points from the current one up to `stop.0` (the step's end or its
+    /// event); returns how many points are used up. Points before the step are skipped.
+    fn step_outputs<E, O: Observer<N, E>>(
+        &self,
+        observer: &mut O,
+        mut done: usize,
+        x_old: f64,
+        stop: (f64, &SVector<f64, N>),
+        direction: f64,
+    ) -> usize {
+        let (x_stop, y_stop) = stop;
+        while let Some(&p) = observer.output_points().get(done) {
+            if (p - x_stop) * direction > 0.0 {
+                break;
+            }
+            if (p - x_old) * direction > 0.0 {
+                let y_p = if p == x_stop {
+                    *y_stop
+                } else {
+                    self.dense.evaluate(p)
+                };
+                observer.on_output(done, p, &y_p);
+            }
+            done += 1;
+        }
+        done
+    }
+}
+
+/// Emit the output points at x0, skip those before it; returns how many are used up.
+fn start_outputs<const N: usize, E, O: Observer<N, E>>(
+    observer: &mut O,
+    x0: f64,
+    y0: &SVector<f64, N>,
+    direction: f64,
+) -> usize {
+    let mut done = 0;
+    while let Some(&p) = observer.output_points().get(done) {
+        if (p - x0) * direction > 0.0 {
+            break;
+        }
+        if p == x0 {
+            observer.on_output(done, x0, y0);
+        }
+        done += 1;
+    }
+    done
+}
+
+/// g_index(x, y), its error and non-finite values turned into [`OdeError`]s.
+fn event_value<const N: usize, E, O: Observer<N, E>>(
+    observer: &mut O,
+    index: usize,
+    x: f64,
+    y: &SVector<f64, N>,
+) -> Result<f64, OdeError<E>> {
+    let g = observer
+        .event_value(index, x, y)
+        .map_err(|source| OdeError::Event { index, x, source })?;
+    if g.is_finite() {
+        Ok(g)
+    } else {
+        Err(OdeError::EventNotFinite { index, x })
+    }
+}
+
+/// A sign change of g from `g0` (at a step's start) to `g1` (at its end) that counts: g0 must
+/// be nonzero (a start exactly on a root is not an event), g1 may be zero.
+fn crosses(g0: f64, g1: f64, direction: Crossing) -> bool {
+    if g0 == 0.0 || (g1 != 0.0 && (g0 < 0.0) == (g1 < 0.0)) {
+        return false;
+    }
+    match direction {
+        Crossing::Either => true,
+        Crossing::Rising => g0 < 0.0,
+        Crossing::Falling => g0 > 0.0,
+    }
+}

@@ -5,6 +5,7 @@ pub mod compare;
 pub mod format;
 pub mod limits;
 pub mod meta;
+pub mod modes;
 pub mod plot;
 pub mod polytrope;
 pub mod probe;

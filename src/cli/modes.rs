@@ -6,7 +6,7 @@ use starpoise::error::{Error, Result};
 use starpoise::oscillation::polytropic::GAMMA1_ALLOWED;
 use starpoise::oscillation::search::{MAX_DEGREE, MAX_ORDER};
 use starpoise::oscillation::{
-    find_modes, Mode, OscillationSettings, PolytropicModel, SeismicSummary,
+    find_modes_of_degrees, Mode, OscillationSettings, PolytropicModel, SeismicSummary,
 };
 use starpoise::output::meta::Provenance;
 use starpoise::output::modes::{write_eigenfunctions_csv, ModesMeta, ModesReport};
@@ -128,10 +128,12 @@ pub fn run(args: ModesArgs) -> Result<()> {
         &LaneEmdenSettings::default().with_points(request.points)?,
     )?;
     let model = PolytropicModel::new(&solution, request.gamma1)?;
-    let mut modes: Vec<Mode> = Vec::new();
-    for &l in &request.degrees {
-        modes.extend(find_modes(&model, l, request.max_order, &request.settings)?);
-    }
+    let modes = find_modes_of_degrees(
+        &model,
+        &request.degrees,
+        request.max_order,
+        &request.settings,
+    )?;
     let provenance = Provenance::of_this_process();
     if let Some(path) = &request.eigenfunctions {
         write_eigenfunctions_csv(path, &modes, &provenance)?;

@@ -38,7 +38,7 @@
 //! 3/l for its Kelvin f modes (xi = grad(r^l Y)), both derived from this definition.
 
 use super::equations::Formulation;
-use super::equilibrium::Equilibrium;
+use super::equilibrium::{point_at, Equilibrium};
 use super::mesh::Grid;
 use super::shooting::Sample;
 use std::f64::consts::PI;
@@ -224,7 +224,7 @@ fn eigenfunction<const D: usize>(
         } else if s.x == ctx.grid.x[last_x] {
             (ctx.model.surface_u(), 1.0)
         } else {
-            let p = ctx.model.point(ctx.grid.interval[s.step], s.x);
+            let p = point_at(ctx.model, s.x);
             (p.u, p.c1)
         };
         let z: Vec<f64> = s.z.iter().map(|v| v / surface).collect();

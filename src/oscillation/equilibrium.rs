@@ -16,8 +16,10 @@
 //! N^2 R^3/(G M) = A*/c1 and the gravity g R^2/(G M) = x/c1 (all derived from the definitions).
 //!
 //! A model supplies them through [`Equilibrium`]: a set of breakpoints 0 = x_0 < ... < x_N = 1
-//! between which its coefficients are smooth (the solver never straddles a breakpoint), their
-//! values at points strictly inside an interval, and a few limits at the centre and surface.
+//! between which its coefficients are smooth, whether the solver's steps may straddle each of
+//! them (they may where the coefficients and their slopes are continuous, as for an
+//! interpolant of a smooth star; never at a kink), their values at points inside an interval,
+//! and a few limits at the centre and surface.
 
 use crate::error::{Error, Result};
 
@@ -78,13 +80,27 @@ pub struct CentreValues {
 /// Implementations: [`super::HomogeneousSphere`] (analytic), [`super::PolytropicModel`] (a
 /// Lane–Emden solution from [`crate::polytrope`]) and [`super::TabulatedModel`] (arrays on a
 /// mesh, e.g. a ZAMS model).
-pub trait Equilibrium {
+///
+/// Models are shared between the threads of a mode search, hence `Sync`.
+pub trait Equilibrium: Sync {
     /// Breakpoints 0 = x_0 < x_1 < ... < x_N = 1, N >= 1: the coefficients are smooth inside
     /// each interval [x_i, x_(i+1)].
     fn breakpoints(&self) -> &[f64];
 
-    /// The coefficients at `x` strictly inside interval `interval` (x_i < x < x_(i+1)).
+    /// The coefficients at `x` strictly inside interval `interval` (x_i < x < x_(i+1)); at an
+    /// interior breakpoint either neighbouring interval may be asked and must give the same
+    /// values (the coefficients are continuous).
     fn point(&self, interval: usize, x: f64) -> StructurePoint;
+
+    /// Whether a collocation step may straddle interior breakpoint `i` (0 < i < N): true where
+    /// the coefficients and their first derivatives are continuous there, as for an
+    /// interpolant of a smooth star, so that a step across it keeps nearly the method's order
+    /// and the solver's mesh can follow the solutions rather than the model's mesh; false at a
+    /// kink or jump (a convective boundary). Default false: every breakpoint ends a step.
+    fn smooth_at(&self, i: usize) -> bool {
+        let _ = i;
+        false
+    }
 
     /// Limits at the centre.
     fn centre(&self) -> CentreValues;
@@ -93,6 +109,20 @@ pub trait Equilibrium {
     /// the homogeneous sphere. It enters the matching of the potential perturbation to the
     /// exterior solution through the surface mass layer.
     fn surface_u(&self) -> f64;
+}
+
+/// The interval of `breakpoints` that holds `x` (the last one for x = 1, the first for x <= 0).
+pub fn interval_of(breakpoints: &[f64], x: f64) -> usize {
+    let last = breakpoints.len().saturating_sub(2);
+    breakpoints
+        .partition_point(|&b| b <= x)
+        .saturating_sub(1)
+        .min(last)
+}
+
+/// The coefficients of `model` at any `x` strictly between 0 and 1.
+pub fn point_at(model: &dyn Equilibrium, x: f64) -> StructurePoint {
+    model.point(interval_of(model.breakpoints(), x), x)
 }
 
 /// Check that breakpoints start at 0, end at 1, increase strictly, and number at least two.

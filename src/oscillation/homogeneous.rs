@@ -76,6 +76,11 @@ impl Equilibrium for HomogeneousSphere {
         }
     }
 
+    /// Analytic coefficients: steps may straddle every breakpoint.
+    fn smooth_at(&self, _i: usize) -> bool {
+        true
+    }
+
     fn centre(&self) -> CentreValues {
         CentreValues {
             c1: 1.0,

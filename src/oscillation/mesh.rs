@@ -1,132 +1,155 @@
-//! The solver's mesh: the model's breakpoints, each interval cut into collocation steps so
-//! that no step spans more than a set phase of the oscillatory solutions, nor more than a set
-//! growth of the non-oscillatory ones, in the frequency band being searched; and the structure
-//! coefficients at every collocation node.
+//! The solver's mesh: steps placed so that none spans more than a set phase of the oscillatory
+//! solutions, nor more than a set growth of the non-oscillatory ones, in the frequency band
+//! being searched, nor too much of the star's structure; and the structure coefficients at
+//! every collocation node.
 //!
 //! Rates come from the leading 2 x 2 block of the equations (module `equations`): the phase
-//! rate is the imaginary part of its eigenvalues, the growth rate their largest modulus. Inside
-//! the star each model interval is cut into equal steps. The first interval, which starts at the
-//! regular centre, is cut by the phase rate only (the regular solution is smooth there). The
-//! last interval, which ends at the surface, is cut into steps that shrink geometrically toward
-//! x = 1 wherever the growth rate demands it: where the pressure vanishes V grows like 1/(1 - x)
-//! and the solution that is singular at the surface varies like a power (1 - x)^(-k) of
-//! exponent up to (n + 1)(1 - 1/Gamma_1) + ... for a polytrope of index n; equal steps there
-//! lose the method's order and left errors of a few 1e-8 in high-order p modes of the n = 3
-//! polytrope.
+//! rate is the imaginary part of its eigenvalues, the growth rate their largest modulus. The
+//! structure rate is that of ln c1 = ln(x^3 M/m), |3 - U|/x ([`structure_rate`]), which follows
+//! the mass concentration of a condensed core; a longest step bounds the rest. The steps follow
+//! these rates, not the model's mesh: a step may straddle any breakpoint where the model says
+//! its coefficients are smooth ([`Equilibrium::smooth_at`]), and ends at every other breakpoint,
+//! at the points the caller forces (the fitting point, so that meshes for different bands share
+//! it) and at x = 0 and 1. Steps are marched outward through each segment between such points,
+//! each as long as the rates sampled at its middle and near its end allow (after a first sample
+//! at the middle of the longest step allowed), at most twice the one before, and the last two
+//! of a segment share what is left rather than leave a sliver. Near the regular centre (below
+//! the model's first breakpoint) the growth rate does not limit a step: the solutions there
+//! are regular power series, whatever the rate of the singular ones. The segment that ends at
+//! the surface is graded geometrically toward x = 1 (no step longer than a set fraction of the
+//! remaining depth): where the pressure vanishes V grows like 1/(1 - x) and the solution that
+//! is singular at the surface varies like a power (1 - x)^(-k) of exponent up to
+//! (n + 1)(1 - 1/Gamma_1) + ... for a polytrope of index n; equal steps there lose the method's
+//! order and left errors of a few 1e-8 in high-order p modes of the n = 3 polytrope.
 
 use super::collocation::NODES;
-use super::equilibrium::{Equilibrium, StructurePoint};
+use super::equilibrium::{point_at, Equilibrium, StructurePoint};
 use crate::error::{Error, Result};
 
-/// Most steps one model interval may be cut into.
-pub const MAX_SUBDIVISIONS: usize = 100_000;
 /// Most steps in a whole mesh.
 pub const MAX_STEPS: usize = 2_000_000;
-/// Where in a model interval (fractions of its length) the rates are sampled.
-const RATE_SAMPLES: [f64; 5] = [0.1, 0.3, 0.5, 0.7, 0.9];
-/// The graded steps of the last interval stop this close to the surface (as a fraction of the
-/// interval's length); one last step covers the rest.
+/// The graded steps of the surface segment stop this close to the surface (in x); one last
+/// step covers the rest. Graded steps are alike in the variable ln(1 - x), so each adds about
+/// the same error: stopping deeper adds steps without adding accuracy (checked on the n = 1.5,
+/// 3 and 4.5 polytropes: no change at 1e-9 from 2e-9 to 2e-6).
 const SURFACE_DEPTH: f64 = 1e-6;
+/// A step is at most this many times as long as the one before it.
+const MAX_STEP_RATIO: f64 = 2.0;
+/// Where in a tentative step (fractions of its length) the rates are sampled.
+const RATE_SAMPLES: [f64; 2] = [0.5, 0.95];
 
 /// One collocation step.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Step {
-    /// The model interval it lies in.
-    pub interval: usize,
     /// Its inner end.
     pub start: f64,
     /// Its outer end.
     pub end: f64,
 }
 
-/// Limits on one step: largest phase (radians) and largest growth (e-folds) across it.
+/// Limits on one step (module documentation).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct StepLimits {
-    /// Largest phase of the oscillatory solutions.
+    /// Largest phase of the oscillatory solutions, radians.
     pub phase: f64,
-    /// Largest growth (rate times length) of the non-oscillatory solutions.
+    /// Largest growth (rate times length) of the non-oscillatory solutions, e-folds.
     pub growth: f64,
+    /// Largest change of ln c1.
+    pub structure: f64,
+    /// Longest step.
+    pub longest: f64,
+    /// Longest step near the surface, as a fraction of the depth below it.
+    pub grading: f64,
 }
 
-/// Cut the model's intervals into steps (module documentation). `rates(x, point)` gives the
-/// phase and growth rates at x, each already the largest over the frequency band.
-pub fn plan<F>(model: &dyn Equilibrium, limits: StepLimits, rates: F) -> Result<Vec<Step>>
+/// The rate of change of ln c1 per unit x: |dln c1/dln x|/x = |3 - U|/x (from c1 = x^3 M/m and
+/// U = dln m/dln r). It vanishes at the centre and is 3/x at a surface of zero density. (The
+/// rates of ln(V/x^2) and ln U grow like 1/(1 - x) where the surface pressure vanishes, while
+/// the regular solution stays smooth there, so they would over-resolve the surface layers.)
+pub fn structure_rate(x: f64, p: &StructurePoint) -> f64 {
+    (3.0 - p.u).abs() / x
+}
+
+/// Cut [0, 1] into steps (module documentation), ending steps at the model's non-smooth
+/// breakpoints and at the points of `forced` (inside (0, 1)). `rates(x, point)` gives the phase
+/// and growth rates at x, each already the largest over the frequency band. Errors if a rate is
+/// not finite or the mesh would exceed [`MAX_STEPS`].
+pub fn plan<F>(
+    model: &dyn Equilibrium,
+    limits: StepLimits,
+    forced: &[f64],
+    rates: F,
+) -> Result<Vec<Step>>
 where
     F: Fn(f64, &StructurePoint) -> (f64, f64),
 {
     let b = model.breakpoints();
-    let last = b.len() - 2;
-    let mut steps = Vec::new();
-    let finite = |r: (f64, f64), x: f64| {
-        if r.0.is_finite() && r.1.is_finite() {
-            Ok(r)
-        } else {
-            Err(Error::invalid(
+    let intervals = b.len() - 1;
+    let mut ends: Vec<f64> = (1..intervals)
+        .filter(|&i| !model.smooth_at(i))
+        .map(|i| b[i])
+        .chain(forced.iter().copied().filter(|&f| f > 0.0 && f < 1.0))
+        .chain([0.0, 1.0])
+        .collect();
+    ends.sort_by(f64::total_cmp);
+    ends.dedup();
+    let centre_zone = b[1];
+    // The longest step allowed by the rates at x.
+    let longest = |x: f64| -> Result<f64> {
+        let point = point_at(model, x);
+        let r = rates(x, &point);
+        let structure = structure_rate(x, &point);
+        if !(r.0.is_finite() && r.1.is_finite() && structure.is_finite()) {
+            return Err(Error::invalid(
                 "model",
                 format!("rates {r:?} at x = {x}"),
                 "the structure coefficients must be finite inside the star",
-            ))
-        }
-    };
-    for i in 0..=last {
-        let (xa, xb) = (b[i], b[i + 1]);
-        let h = xb - xa;
-        if i == last && i > 0 {
-            // Graded toward the surface.
-            let mut start = xa;
-            while 1.0 - start > SURFACE_DEPTH * h {
-                let depth = 1.0 - start;
-                let x = start + 0.25 * depth;
-                let (phase, growth) = finite(rates(x, &model.point(i, x)), x)?;
-                let length = (0.5 * depth)
-                    .min(limits.phase / phase)
-                    .min(limits.growth / growth);
-                steps.push(Step {
-                    interval: i,
-                    start,
-                    end: start + length,
-                });
-                start += length;
-                if steps.len() > MAX_STEPS {
-                    break;
-                }
-            }
-            steps.push(Step {
-                interval: i,
-                start,
-                end: 1.0,
-            });
-        } else {
-            let mut wanted: f64 = 1.0;
-            for t in RATE_SAMPLES {
-                let x = xa + t * h;
-                let (phase, growth) = finite(rates(x, &model.point(i, x)), x)?;
-                wanted = wanted.max(phase * h / limits.phase);
-                if i > 0 {
-                    wanted = wanted.max(growth * h / limits.growth);
-                }
-            }
-            let m = (wanted.ceil() as usize).clamp(1, MAX_SUBDIVISIONS);
-            let length = h / m as f64;
-            for k in 0..m {
-                steps.push(Step {
-                    interval: i,
-                    start: xa + k as f64 * length,
-                    end: if k + 1 == m {
-                        xb
-                    } else {
-                        xa + (k + 1) as f64 * length
-                    },
-                });
-            }
-        }
-        if steps.len() > MAX_STEPS {
-            return Err(Error::invalid(
-                "resolution",
-                steps.len(),
-                "the oscillation mesh would exceed 2000000 steps; ask for fewer modes or a \
-                 coarser phase per step",
             ));
+        }
+        let mut length = (limits.phase / r.0).min(limits.structure / structure);
+        if x > centre_zone {
+            length = length.min(limits.growth / r.1);
+        }
+        Ok(length)
+    };
+    let mut steps: Vec<Step> = Vec::new();
+    for segment in ends.windows(2) {
+        let (a, e) = (segment[0], segment[1]);
+        let graded = e == 1.0;
+        let mut x = a;
+        let mut previous = f64::INFINITY;
+        while x < e {
+            if graded && 1.0 - x <= SURFACE_DEPTH {
+                steps.push(Step { start: x, end: 1.0 });
+                break;
+            }
+            let remaining = e - x;
+            let mut cap = remaining.min(MAX_STEP_RATIO * previous).min(limits.longest);
+            if graded {
+                cap = cap.min(limits.grading * (1.0 - x));
+            }
+            let mut length = cap.min(longest(x + 0.5 * cap)?);
+            for t in RATE_SAMPLES {
+                length = length.min(longest(x + t * length)?);
+            }
+            // No sliver at the end of a segment: the last two steps share what is left.
+            if length >= remaining || (graded && 1.0 - (x + length) <= SURFACE_DEPTH) {
+                length = remaining;
+            } else if remaining < 1.5 * length && !graded {
+                length = 0.5 * remaining;
+            }
+            let end = if length >= remaining { e } else { x + length };
+            steps.push(Step { start: x, end });
+            previous = end - x;
+            x = end;
+            if steps.len() > MAX_STEPS {
+                return Err(Error::invalid(
+                    "resolution",
+                    steps.len(),
+                    "the oscillation mesh would exceed 2000000 steps; ask for fewer modes or a \
+                     coarser phase per step",
+                ));
+            }
         }
     }
     Ok(steps)
@@ -137,8 +160,6 @@ where
 pub struct Grid {
     /// Step boundaries, from 0 to 1.
     pub x: Vec<f64>,
-    /// The model interval each step lies in.
-    pub interval: Vec<usize>,
     /// Structure coefficients at the three collocation nodes of each step.
     pub points: Vec<[StructurePoint; 3]>,
 }
@@ -148,7 +169,6 @@ impl Grid {
     /// Errors if a node's coefficients are not physical (module `equilibrium`).
     pub fn new(model: &dyn Equilibrium, steps: &[Step]) -> Result<Self> {
         let mut x = Vec::with_capacity(steps.len() + 1);
-        let mut interval = Vec::with_capacity(steps.len());
         let mut points = Vec::with_capacity(steps.len());
         x.push(0.0);
         for step in steps {
@@ -162,7 +182,7 @@ impl Grid {
             }; 3];
             for (node, c) in nodes.iter_mut().zip(NODES) {
                 let xn = step.start + c * h;
-                *node = model.point(step.interval, xn);
+                *node = point_at(model, xn);
                 if !node.is_physical() {
                     return Err(Error::invalid(
                         "model",
@@ -172,15 +192,10 @@ impl Grid {
                     ));
                 }
             }
-            interval.push(step.interval);
             points.push(nodes);
             x.push(step.end);
         }
-        Ok(Self {
-            x,
-            interval,
-            points,
-        })
+        Ok(Self { x, points })
     }
 
     /// Number of steps.
@@ -188,15 +203,82 @@ impl Grid {
         self.points.len()
     }
 
-    /// The step boundary nearest to `x`, kept away from the centre and the surface.
-    pub fn boundary_near(&self, x: f64) -> usize {
-        let last = self.x.len() - 1;
+    /// The index of the step boundary at exactly `x`, if there is one.
+    pub fn boundary_at(&self, x: f64) -> Option<usize> {
         let k = self.x.partition_point(|&b| b < x);
-        let k = if k > 0 && k <= last && (x - self.x[k - 1]) < (self.x[k] - x) {
-            k - 1
-        } else {
-            k
-        };
-        k.clamp(1.min(last), last.saturating_sub(1).max(1))
+        (k < self.x.len() && self.x[k] == x).then_some(k)
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::oscillation::equilibrium::CentreValues;
+    use crate::oscillation::HomogeneousSphere;
+
+    /// The homogeneous sphere on 50 intervals, smooth everywhere or with a kink declared at
+    /// x = 0.3.
+    struct Sphere {
+        inner: HomogeneousSphere,
+        kink: Option<usize>,
+    }
+
+    impl Equilibrium for Sphere {
+        fn breakpoints(&self) -> &[f64] {
+            self.inner.breakpoints()
+        }
+        fn point(&self, interval: usize, x: f64) -> StructurePoint {
+            self.inner.point(interval, x)
+        }
+        fn smooth_at(&self, i: usize) -> bool {
+            Some(i) != self.kink
+        }
+        fn centre(&self) -> CentreValues {
+            self.inner.centre()
+        }
+        fn surface_u(&self) -> f64 {
+            self.inner.surface_u()
+        }
+    }
+
+    const LIMITS: StepLimits = StepLimits {
+        phase: 0.2,
+        growth: 1.0,
+        structure: 0.07,
+        longest: 0.1,
+        grading: 0.5,
+    };
+
+    /// Steps cover [0, 1] without gaps, end at the forced point and at a declared kink, follow
+    /// the rates rather than the 50 model intervals, and grade toward the surface.
+    #[test]
+    fn steps_follow_the_rates_and_end_where_they_must() {
+        let inner = HomogeneousSphere::new(5.0 / 3.0, 50).unwrap();
+        let rates = |_: f64, _: &StructurePoint| (1.0, 1.0);
+        for kink in [None, Some(15)] {
+            let model = Sphere {
+                inner: inner.clone(),
+                kink,
+            };
+            let steps = plan(&model, LIMITS, &[0.45], rates).unwrap();
+            assert_eq!(steps[0].start, 0.0);
+            assert_eq!(steps.last().unwrap().end, 1.0);
+            assert!(steps.windows(2).all(|p| p[0].end == p[1].start));
+            let ends: Vec<f64> = steps.iter().map(|s| s.end).collect();
+            assert!(ends.contains(&0.45));
+            assert_eq!(ends.contains(&0.3), kink.is_some());
+            // Phase 0.2 at rate 1 allows 0.2, the longest step 0.1: about 10 steps below 0.9.
+            let interior = steps.iter().filter(|s| s.end <= 0.9).count();
+            assert!((9..=13).contains(&interior), "{interior}");
+            // Graded: no step longer than half the depth below its start near the surface.
+            assert!(steps
+                .iter()
+                .filter(|s| s.start > 0.9 && s.end < 1.0)
+                .all(|s| s.end - s.start <= 0.5 * (1.0 - s.start) + 1e-15));
+            // The last step starts within the surface depth (or the one step before it, which
+            // would have left less than that depth).
+            let depth = 1.0 - steps.last().unwrap().start;
+            assert!(depth > 0.0 && depth <= 2.0 * SURFACE_DEPTH, "{depth}");
+        }
     }
 }

@@ -56,7 +56,7 @@ pub use equations::Formulation;
 pub use equilibrium::{CentreValues, Equilibrium, StructurePoint};
 pub use homogeneous::HomogeneousSphere;
 pub use polytropic::PolytropicModel;
-pub use search::{find_eigenvalues, find_modes, OscillationSettings};
+pub use search::{find_eigenvalues, find_modes, find_modes_of_degrees, OscillationSettings};
 pub use spectrum::{
     dynamical_frequency_hz, large_separation_near, small_separation_near, Mode, ModeKind,
     SeismicSummary,

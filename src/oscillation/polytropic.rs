@@ -180,6 +180,12 @@ impl Equilibrium for PolytropicModel {
         }
     }
 
+    /// theta is interpolated with its first two derivatives continuous (quintic Hermite), so
+    /// the coefficients are continuous with their slopes at every breakpoint.
+    fn smooth_at(&self, _i: usize) -> bool {
+        true
+    }
+
     fn centre(&self) -> CentreValues {
         CentreValues {
             c1: -3.0 * self.dtheta_surface / self.xi_surface,

@@ -1,17 +1,32 @@
 //! Finding every mode of a degree up to a given order: scan, bracket, converge, classify, and
 //! check that the orders found are complete.
 //!
-//! The scan steps through sigma with a step that is a fraction (1/`scan_density`) of the
-//! expected local mode spacing: 2 pi Delta nu for p modes and sigma^2 Pi_0/(2 pi sqrt(l(l+1)))
-//! for g modes (from the asymptotic relations, module `asymptotic`). Each sign change of the
-//! discriminant (module `shooting`) brackets an eigenvalue, which Brent's method converges to
-//! rounding. Each mode is then classified (module `eigenfunction`). Sorted by frequency, the
-//! orders must increase by exactly one from one mode to the next (by two from g1 to p1 for
-//! dipole modes of the full problem, which have no f mode): a larger jump means two modes fell
-//! between two scan points, and that stretch is scanned again more finely; a repeated or
-//! decreasing order is reported as an error, never hidden. The frequency range is widened until
-//! it holds the lowest order wanted (order -K for degrees with g modes, the f mode, p1 or the
-//! radial fundamental otherwise) and order K.
+//! # Bands and two resolutions
+//!
+//! The frequency range is cut into bands a factor [`BAND_RATIO`] wide in sigma, and each band
+//! gets its own two meshes (module `mesh`), built for the rates at its own ends: a coarse one
+//! (phase per step [`COARSE_PHASE_FACTOR`] times the requested one, growth at most
+//! [`COARSE_MAX_GROWTH`] e-folds) to find the modes, and the requested (fine) one to converge
+//! them. Both end a step at the fitting point, so that their discriminants approximate the same
+//! function of w (module `shooting`) and the coarse one predicts the fine one's root and slope.
+//! Bands are searched in parallel (rayon).
+//!
+//! In each band the coarse discriminant is scanned with a step that is a fraction
+//! (1/`scan_density`) of the expected local mode spacing: 2 pi Delta nu for p modes and
+//! sigma^2 Pi_0/(2 pi sqrt(l(l+1))) for g modes (from the asymptotic relations, module
+//! `asymptotic`). Each sign change brackets an eigenvalue, which Brent's method converges on
+//! the coarse mesh to [`COARSE_TOLERANCE`]; the secant method on the fine mesh then starts
+//! from that root with the coarse slope (a Newton step) and stops when its step falls below
+//! [`FINAL_STEP`], the last evaluation keeping the solution for the eigenfunction; should the
+//! secant leave the bracket, Brent's method on the fine mesh takes over. Each mode is then
+//! classified (module `eigenfunction`).
+//!
+//! Sorted by frequency, the orders must increase by exactly one from one mode to the next (by
+//! two from g1 to p1 for dipole modes of the full problem, which have no f mode): a larger jump
+//! means two modes fell between two scan points, and that stretch is scanned again more finely;
+//! a repeated or decreasing order is reported as an error, never hidden. The frequency range is
+//! widened until it holds the lowest order wanted (order -K for degrees with g modes, the f
+//! mode, p1 or the radial fundamental otherwise) and order K.
 
 use super::asymptotic::asymptotic_values;
 use super::eigenfunction::{analyse, Context};
@@ -25,14 +40,28 @@ use super::shooting::Discretized;
 use super::spectrum::{Mode, ModeKind};
 use crate::error::{Error, Result};
 use crate::numerics::brent::{brent, BrentError};
+use rayon::prelude::*;
 use std::f64::consts::PI;
 
 /// Default largest phase of the oscillatory solutions across one collocation step, radians.
-pub const DEFAULT_PHASE_PER_STEP: f64 = 0.3;
+pub const DEFAULT_PHASE_PER_STEP: f64 = 0.2;
 /// Largest growth (e-folds) of the non-oscillatory solutions across one step, per radian of
 /// the phase limit: 5, i.e. 1.5 e-folds per step at the default phase of 0.3 rad, so that
 /// halving the phase per step halves both limits.
 const GROWTH_PER_PHASE: f64 = 5.0;
+/// Largest change of ln c1 across one step, per radian of the phase limit (module `mesh`):
+/// 1/3, i.e. 0.067 at the default phase of 0.2 rad. This resolves the mass concentration of a
+/// condensed core (the n = 4.5 polytrope's core spans x ~ 0.01), where neither the phase nor
+/// the growth of the solutions limits the steps.
+const STRUCTURE_PER_PHASE: f64 = 1.0 / 3.0;
+/// Longest step (in x) per radian of the phase limit: 0.1, i.e. 0.02 at the default phase, so
+/// that low-frequency modes, whose solutions barely oscillate, still see the structure
+/// resolved (without it the dipole p1 of the n = 3 polytrope was wrong by 1e-4).
+const LONGEST_PER_PHASE: f64 = 0.1;
+/// Longest step near the surface, as a fraction of the depth below it, per radian of the phase
+/// limit: 2.5, i.e. 0.5 at the default phase, the grading that keeps the method's order where
+/// V grows like 1/(1 - x) (module `mesh`).
+const GRADING_PER_PHASE: f64 = 2.5;
 /// Default fitting point x = r/R.
 pub const DEFAULT_FITTING_POINT: f64 = 0.5;
 /// Default scan points per expected mode spacing.
@@ -43,17 +72,48 @@ pub const MAX_DEGREE: u32 = 1000;
 pub const MAX_ORDER: u32 = 1000;
 /// Times the frequency range may be widened to hold the orders wanted.
 const MAX_WIDENINGS: usize = 8;
-/// The mesh resolves frequencies down to this fraction of the lowest scanned...
-const MESH_MARGIN_LOW: f64 = 0.85;
-/// ... and up to this multiple of the highest, so that a first widening of the scan reuses it.
-const MESH_MARGIN_HIGH: f64 = 1.3;
 /// Times a gap in the orders may be rescanned, each time eight times more finely.
 const MAX_RESCANS: u32 = 4;
 /// Brent iterations allowed per root.
 const MAX_ROOT_ITERATIONS: usize = 200;
-/// Relative accuracy of each root in sigma: a few units of rounding, far below the
-/// discretisation error, so the reported value is the discrete problem's eigenvalue.
+/// Relative accuracy in sigma of a root converged by Brent's method on the fine mesh (the
+/// fallback): a few units of rounding, far below the discretisation error, so the reported
+/// value is the discrete problem's eigenvalue.
 const ROOT_TOLERANCE: f64 = 1e-14;
+/// Width of a band: its upper end in sigma over its lower end. Each band's meshes resolve the
+/// rates at its ends, so a band over-resolves its modes by at most this factor.
+pub const BAND_RATIO: f64 = 1.25;
+/// The coarse mesh's phase per step (and its other limits, within the caps below), as a
+/// multiple of the requested (fine) one: 1.2 rad at the default, where the method's phase error
+/// is about 4e-5 rad per step (the error constant of the (3,3) Pade approximant, h^7/100800;
+/// Hairer, Norsett & Wanner 1993, §II.7), so that the coarse roots lie within about 1e-4 of a
+/// mode spacing of the fine ones (measured: 4e-6 of sigma typically, 2e-5 at most, on the
+/// n = 3 polytrope).
+pub const COARSE_PHASE_FACTOR: f64 = 6.0;
+/// The coarse mesh's largest growth per step, e-folds: the method's stability function (the
+/// (3,3) Pade approximant of exp) matches exp(mu) to 1 per cent up to mu = 2.5; its real pole
+/// is at mu = 4.64.
+pub const COARSE_MAX_GROWTH: f64 = 2.5;
+/// The coarse mesh's largest step near the surface, as a fraction of the depth below it.
+const COARSE_MAX_GRADING: f64 = 0.5;
+/// Relative accuracy in sigma of the coarse roots: about the coarse mesh's own error (module
+/// documentation of [`COARSE_PHASE_FACTOR`]); converging further would not bring the fine
+/// secant's start closer.
+pub const COARSE_TOLERANCE: f64 = 1e-5;
+/// The fine secant stops when its step is below this, relative to sigma: its error is then of
+/// the order of that step times the previous one over the mode spacing, far below rounding.
+pub const FINAL_STEP: f64 = 1e-11;
+/// The fine secant keeps the solution (for the eigenfunction) at an evaluation whose step from
+/// the one before is below this, relative to sigma: the next step is then expected to be below
+/// [`FINAL_STEP`] (the first fine step, a Newton step with the coarse slope, leaves errors of
+/// 3e-10 typically and 5e-8 at most on the n = 3 polytrope, as the coarse slope is off by 6e-5
+/// typically).
+const RECORD_STEP: f64 = 1e-8;
+/// Secant iterations on the fine mesh before Brent's method takes over.
+const MAX_SECANT_ITERATIONS: usize = 12;
+/// Two modes of the same order whose sigma^2 agree to this are one mode found from two bands
+/// (on different meshes, so their values differ by the discretisation error, about 1e-9).
+const DUPLICATE_TOLERANCE: f64 = 1e-6;
 
 /// How modes are computed. Defaults: full problem (not Cowling), phase per step
 /// [`DEFAULT_PHASE_PER_STEP`], fitting point [`DEFAULT_FITTING_POINT`], scan density
@@ -183,12 +243,37 @@ fn node_matrices<const D: usize>(
         .collect()
 }
 
+/// The step limits of the requested (fine) resolution.
+fn fine_limits(settings: &OscillationSettings) -> StepLimits {
+    StepLimits {
+        phase: settings.phase_per_step,
+        growth: GROWTH_PER_PHASE * settings.phase_per_step,
+        structure: STRUCTURE_PER_PHASE * settings.phase_per_step,
+        longest: LONGEST_PER_PHASE * settings.phase_per_step,
+        grading: GRADING_PER_PHASE * settings.phase_per_step,
+    }
+}
+
+/// The step limits of the coarse resolution (module documentation).
+fn coarse_limits(settings: &OscillationSettings) -> StepLimits {
+    let fine = fine_limits(settings);
+    StepLimits {
+        phase: COARSE_PHASE_FACTOR * fine.phase,
+        growth: (COARSE_PHASE_FACTOR * fine.growth).min(COARSE_MAX_GROWTH.max(fine.growth)),
+        structure: COARSE_PHASE_FACTOR * fine.structure,
+        longest: COARSE_PHASE_FACTOR * fine.longest,
+        grading: (COARSE_PHASE_FACTOR * fine.grading).min(COARSE_MAX_GRADING),
+    }
+}
+
 impl<'a> Prepared<'a> {
-    /// Mesh and matrices for `degree`, resolving the band of w from `w_lo` to `w_hi`.
+    /// Mesh and matrices for `degree` with step `limits`, resolving the band of w from `w_lo`
+    /// to `w_hi`.
     fn new(
         model: &'a dyn Equilibrium,
         degree: u32,
         settings: &OscillationSettings,
+        limits: StepLimits,
         w_lo: f64,
         w_hi: f64,
     ) -> Result<Self> {
@@ -202,19 +287,17 @@ impl<'a> Prepared<'a> {
             let (phase_hi, growth_hi) = node.rates(w_hi);
             (phase_lo.max(phase_hi), growth_lo.max(growth_hi))
         };
-        let limits = StepLimits {
-            phase: settings.phase_per_step,
-            growth: GROWTH_PER_PHASE * settings.phase_per_step,
-        };
-        let grid = Grid::new(model, &plan(model, limits, rates)?)?;
-        if grid.steps() < 2 {
-            return Err(Error::invalid(
-                "model",
-                "one mesh interval",
-                "the oscillation mesh needs at least two steps",
-            ));
-        }
-        let fit = grid.boundary_near(settings.fitting_point);
+        let grid = Grid::new(
+            model,
+            &plan(model, limits, &[settings.fitting_point], rates)?,
+        )?;
+        let fit = grid.boundary_at(settings.fitting_point).ok_or_else(|| {
+            Error::invalid(
+                "fitting_point",
+                settings.fitting_point,
+                "the fitting point must be a boundary of the oscillation mesh",
+            )
+        })?;
         let centre = model.centre();
         let shooter = match formulation {
             Formulation::Radial => Shooter::Second(Discretized {
@@ -265,8 +348,9 @@ impl<'a> Prepared<'a> {
         d.ok_or_else(|| self.failure(w, "the solutions could not be carried through the mesh"))
     }
 
-    /// The classified mode at the eigenvalue w.
-    fn mode(&self, w: f64) -> Result<Mode> {
+    /// The discriminant at w and the classified mode whose eigenfunction is the solution there
+    /// (w should be an eigenvalue, to the accuracy wanted of the eigenfunction).
+    fn solution(&self, w: f64) -> Result<(f64, Mode)> {
         let ctx = Context {
             model: self.model,
             grid: &self.grid,
@@ -274,16 +358,17 @@ impl<'a> Prepared<'a> {
             degree: self.degree,
             w,
         };
-        let analysis = match &self.shooter {
+        let analysed = match &self.shooter {
             Shooter::Second(p) => p
                 .eigenfunction::<6>(w)
-                .and_then(|s| analyse(&ctx, &s, self.keep)),
+                .and_then(|(d, s)| Some((d, analyse(&ctx, &s, self.keep)?))),
             Shooter::Fourth(p) => p
                 .eigenfunction::<12>(w)
-                .and_then(|s| analyse(&ctx, &s, self.keep)),
-        }
-        .ok_or_else(|| self.failure(w, "the eigenfunction could not be built"))?;
-        Ok(Mode {
+                .and_then(|(d, s)| Some((d, analyse(&ctx, &s, self.keep)?))),
+        };
+        let (det, analysis) =
+            analysed.ok_or_else(|| self.failure(w, "the eigenfunction could not be built"))?;
+        let mode = Mode {
             degree: self.degree,
             order: analysis.order,
             kind: ModeKind::of_order(analysis.order),
@@ -292,52 +377,87 @@ impl<'a> Prepared<'a> {
             nodes_g: analysis.nodes_g,
             inertia: analysis.inertia,
             eigenfunction: analysis.eigenfunction,
-        })
+        };
+        Ok((det, mode))
     }
 
-    /// Roots of the discriminant as a function of `s` (w = `to_w(s)`) between `from` and `to`,
-    /// stepping by `step(s)`.
-    fn scan(
+    /// Brackets [a, b] (with the discriminant's values there) of the sign changes of the
+    /// discriminant as a function of `s` (w = `to_w(s)`) between `from` and `to`, stepping by
+    /// `step(s)`. A zero at a scan point closes the bracket that ends there.
+    fn brackets(
         &self,
         from: f64,
         to: f64,
         step: &dyn Fn(f64) -> f64,
         to_w: &dyn Fn(f64) -> f64,
-    ) -> Result<Vec<f64>> {
+    ) -> Result<Vec<[f64; 4]>> {
         let f = |s: f64| self.discriminant(to_w(s));
-        let mut roots = Vec::new();
+        let mut found = Vec::new();
         let (mut a, mut fa) = (from, f(from)?);
+        if fa == 0.0 {
+            found.push([a, a, fa, fa]);
+        }
         while a < to {
             let b = (a + step(a)).min(to);
-            let fb = f(b)?;
-            if fa == 0.0 {
-                roots.push(a);
-            } else if fa * fb < 0.0 {
-                let tolerance = ROOT_TOLERANCE * b.abs().max(f64::MIN_POSITIVE);
-                let root = brent(&f, a, b, fa, fb, tolerance, MAX_ROOT_ITERATIONS).map_err(
-                    |e| match e {
-                        BrentError::Evaluation(e) => e,
-                        _ => self.failure(to_w(a), "a bracketed root did not converge"),
-                    },
-                )?;
-                roots.push(root);
-            }
             if b <= a {
                 break;
             }
+            let fb = f(b)?;
+            if fa * fb < 0.0 || (fb == 0.0 && fa != 0.0) {
+                found.push([a, b, fa, fb]);
+            }
             (a, fa) = (b, fb);
         }
-        if fa == 0.0 && roots.last() != Some(&a) {
-            roots.push(a);
-        }
-        Ok(roots)
+        Ok(found)
+    }
+
+    /// The root of the discriminant (in s, with w = `to_w(s)`) in `bracket`, converged by
+    /// Brent's method to the relative accuracy `tolerance`, with the slope dD/ds there from
+    /// the two evaluations nearest the root.
+    fn root(
+        &self,
+        bracket: [f64; 4],
+        tolerance: f64,
+        to_w: &dyn Fn(f64) -> f64,
+    ) -> Result<(f64, f64)> {
+        let [a, b, fa, fb] = bracket;
+        let mut seen = vec![(a, fa), (b, fb)];
+        let root = if fa == 0.0 || a == b {
+            a
+        } else {
+            brent(
+                |s: f64| {
+                    let v = self.discriminant(to_w(s))?;
+                    seen.push((s, v));
+                    Ok(v)
+                },
+                a,
+                b,
+                fa,
+                fb,
+                tolerance * b.abs().max(f64::MIN_POSITIVE),
+                MAX_ROOT_ITERATIONS,
+            )
+            .map_err(|e| match e {
+                BrentError::Evaluation(e) => e,
+                _ => self.failure(to_w(a), "a bracketed root did not converge"),
+            })?
+        };
+        seen.sort_by(|p, q| (p.0 - root).abs().total_cmp(&(q.0 - root).abs()));
+        seen.dedup_by(|p, q| p.0 == q.0);
+        let slope = match seen.as_slice() {
+            [p, q, ..] => (p.1 - q.1) / (p.0 - q.0),
+            _ => (fb - fa) / (b - a),
+        };
+        Ok((root, slope))
     }
 }
 
 /// The eigenvalues w = sigma^2 of degree `degree` in [w_lo, w_hi], found by scanning `points`
-/// equal steps in w (negative w allowed: unstable modes). For degree >= 1 the interval must not
-/// contain 0, where the equations are singular. No classification and no completeness check:
-/// for the search of stable modes by order use [`find_modes`].
+/// equal steps in w (negative w allowed: unstable modes) on one mesh at the requested
+/// resolution. For degree >= 1 the interval must not contain 0, where the equations are
+/// singular. No classification and no completeness check: for the search of stable modes by
+/// order use [`find_modes`].
 pub fn find_eigenvalues(
     model: &dyn Equilibrium,
     degree: u32,
@@ -356,15 +476,130 @@ pub fn find_eigenvalues(
             "an increasing finite range, not containing 0 for l >= 1, and at least one step",
         ));
     }
-    let prepared = Prepared::new(model, degree, settings, w_lo, w_hi)?;
+    let prepared = Prepared::new(model, degree, settings, fine_limits(settings), w_lo, w_hi)?;
     let step = (w_hi - w_lo) / points as f64;
-    prepared.scan(w_lo, w_hi, &|_| step, &|w| w)
+    let identity = |w: f64| w;
+    prepared
+        .brackets(w_lo, w_hi, &|_| step, &identity)?
+        .into_iter()
+        .map(|bracket| Ok(prepared.root(bracket, ROOT_TOLERANCE, &identity)?.0))
+        .collect()
 }
 
 /// Orders expected for a degree: the lowest wanted and whether order 0 is skipped.
 struct Expected {
     lowest: i32,
     skips_zero: bool,
+}
+
+/// The search for the modes of one degree (module documentation).
+struct Search<'a, F> {
+    model: &'a dyn Equilibrium,
+    degree: u32,
+    settings: OscillationSettings,
+    /// The scan step in sigma at sigma.
+    step: F,
+}
+
+fn square(s: f64) -> f64 {
+    s * s
+}
+
+impl<F: Fn(f64) -> f64 + Sync> Search<'_, F> {
+    /// Every mode in [lo, hi] (sigma), scanning with `step / refinement`, band by band in
+    /// parallel.
+    fn modes(&self, lo: f64, hi: f64, refinement: f64) -> Result<Vec<Mode>> {
+        let mut bands = Vec::new();
+        let mut a = lo;
+        while a < hi {
+            let b = if a * BAND_RATIO * BAND_RATIO.sqrt() >= hi {
+                hi
+            } else {
+                a * BAND_RATIO
+            };
+            bands.push((a, b));
+            a = b;
+        }
+        let found = bands
+            .par_iter()
+            .map(|&(a, b)| self.band(a, b, refinement))
+            .collect::<Result<Vec<_>>>()?;
+        Ok(found.into_iter().flatten().collect())
+    }
+
+    /// The modes of one band (module documentation).
+    fn band(&self, lo: f64, hi: f64, refinement: f64) -> Result<Vec<Mode>> {
+        let (w_lo, w_hi) = (square(lo), square(hi));
+        let coarse = Prepared::new(
+            self.model,
+            self.degree,
+            &self.settings,
+            coarse_limits(&self.settings),
+            w_lo,
+            w_hi,
+        )?;
+        let step = |s: f64| (self.step)(s) / refinement;
+        let brackets = coarse.brackets(lo, hi, &step, &square)?;
+        if brackets.is_empty() {
+            return Ok(Vec::new());
+        }
+        let fine = Prepared::new(
+            self.model,
+            self.degree,
+            &self.settings,
+            fine_limits(&self.settings),
+            w_lo,
+            w_hi,
+        )?;
+        brackets
+            .into_iter()
+            .map(|bracket| {
+                let (guess, slope) = coarse.root(bracket, COARSE_TOLERANCE, &square)?;
+                refine(&fine, guess, slope, bracket)
+            })
+            .collect()
+    }
+}
+
+/// The mode of the fine discretisation `fine` near the coarse root `guess` with the coarse
+/// slope dD/dsigma `slope`, both from the coarse scan's `bracket` (module documentation).
+fn refine(fine: &Prepared<'_>, guess: f64, slope: f64, bracket: [f64; 4]) -> Result<Mode> {
+    let f = |s: f64| fine.discriminant(square(s));
+    let (a, b) = (bracket[0], bracket[1]);
+    let inside = |s: f64| s.is_finite() && s >= a && s <= b;
+    let (mut s0, mut f0) = (guess, f(guess)?);
+    if f0 == 0.0 {
+        return Ok(fine.solution(square(s0))?.1);
+    }
+    let mut s1 = s0 - f0 / slope;
+    for _ in 0..MAX_SECANT_ITERATIONS {
+        if !inside(s1) || s1 == s0 {
+            break;
+        }
+        if (s1 - s0).abs() <= RECORD_STEP * s1 {
+            let (f1, mut mode) = fine.solution(square(s1))?;
+            let s2 = if f1 == 0.0 {
+                s1
+            } else {
+                s1 - f1 * (s1 - s0) / (f1 - f0)
+            };
+            if (s2 - s1).abs() <= FINAL_STEP * s1 && inside(s2) {
+                mode.sigma_squared = square(s2);
+                return Ok(mode);
+            }
+            (s0, f0, s1) = (s1, f1, s2);
+        } else {
+            let f1 = f(s1)?;
+            if f1 == 0.0 {
+                return Ok(fine.solution(square(s1))?.1);
+            }
+            (s0, f0, s1) = (s1, f1, s1 - f1 * (s1 - s0) / (f1 - f0));
+        }
+    }
+    // The secant left the bracket or did not settle: Brent's method on the fine mesh.
+    let (fa, fb) = (f(a)?, f(b)?);
+    let (root, _) = fine.root([a, b, fa, fb], ROOT_TOLERANCE, &square)?;
+    Ok(fine.solution(square(root))?.1)
 }
 
 /// Every mode of `degree` with order from the lowest that exists (radial fundamental, f mode
@@ -431,36 +666,21 @@ pub fn find_modes(
         };
         p_spacing.min(g) / density
     };
+    let search = Search {
+        model,
+        degree,
+        settings: *settings,
+        step,
+    };
     let mut s_lo: f64 = if has_g {
         lf * buoyancy / (PI * f64::from(max_order + 4))
     } else {
         0.02 * p_spacing
     };
     let mut s_hi: f64 = p_spacing * (f64::from(max_order) + 0.5 * f64::from(degree) + 3.0);
-    // The mesh resolves a band wider than the first scan, so that widening the scan a little
-    // reuses it (and the modes already found); a larger widening rebuilds it.
-    let square = |s: f64| s * s;
-    let build = |lo: f64, hi: f64| {
-        Prepared::new(
-            model,
-            degree,
-            settings,
-            square(lo * MESH_MARGIN_LOW),
-            square(hi * MESH_MARGIN_HIGH),
-        )
-    };
-    let converge = |prepared: &Prepared<'_>, from: f64, to: f64| -> Result<Vec<Mode>> {
-        prepared
-            .scan(from, to, &step, &square)?
-            .iter()
-            .map(|&s| prepared.mode(s * s))
-            .collect()
-    };
-    let mut mesh_band = (s_lo * MESH_MARGIN_LOW, s_hi * MESH_MARGIN_HIGH);
-    let mut prepared = build(s_lo, s_hi)?;
-    let mut modes = converge(&prepared, s_lo, s_hi)?;
+    let mut modes = search.modes(s_lo, s_hi, 1.0)?;
     for _ in 0..MAX_WIDENINGS {
-        fill_gaps(&prepared, &mut modes, &expected, &step)?;
+        fill_gaps(&search, &mut modes, &expected)?;
         let lowest = modes.first().map_or(i32::MAX, |m| m.order);
         let highest = modes.last().map_or(i32::MIN, |m| m.order);
         // Widen by the asymptotic spacing of the orders missing, plus two.
@@ -483,17 +703,11 @@ pub fn find_modes(
             modes.retain(|m| m.order >= expected.lowest && m.order <= k);
             return Ok(modes);
         }
-        if lo < mesh_band.0 || hi > mesh_band.1 {
-            mesh_band = (lo * MESH_MARGIN_LOW, hi * MESH_MARGIN_HIGH);
-            prepared = build(lo, hi)?;
-            modes = converge(&prepared, lo, hi)?;
-        } else {
-            if lo < s_lo {
-                modes.extend(converge(&prepared, lo, s_lo)?);
-            }
-            if hi > s_hi {
-                modes.extend(converge(&prepared, s_hi, hi)?);
-            }
+        if lo < s_lo {
+            modes.extend(search.modes(lo, s_lo, 1.0)?);
+        }
+        if hi > s_hi {
+            modes.extend(search.modes(s_hi, hi, 1.0)?);
         }
         (s_lo, s_hi) = (lo, hi);
     }
@@ -507,6 +721,22 @@ pub fn find_modes(
     })
 }
 
+/// Every mode of each degree of `degrees` up to `max_order` ([`find_modes`]), the degrees
+/// searched in parallel; by degree in the order given, then by frequency. Errors as
+/// [`find_modes`] (the first failing degree's).
+pub fn find_modes_of_degrees(
+    model: &dyn Equilibrium,
+    degrees: &[u32],
+    max_order: u32,
+    settings: &OscillationSettings,
+) -> Result<Vec<Mode>> {
+    let found = degrees
+        .par_iter()
+        .map(|&l| find_modes(model, l, max_order, settings))
+        .collect::<Result<Vec<_>>>()?;
+    Ok(found.into_iter().flatten().collect())
+}
+
 /// The order that should follow `order`.
 fn next_order(order: i32, expected: &Expected) -> i32 {
     if order == -1 && expected.skips_zero {
@@ -516,26 +746,31 @@ fn next_order(order: i32, expected: &Expected) -> i32 {
     }
 }
 
+/// Sort by frequency and drop the second copy of a mode found from two bands.
+fn sort_and_merge(modes: &mut Vec<Mode>) {
+    modes.sort_by(|a, b| a.sigma_squared.total_cmp(&b.sigma_squared));
+    modes.dedup_by(|b, a| {
+        a.order == b.order
+            && (b.sigma_squared - a.sigma_squared).abs() <= DUPLICATE_TOLERANCE * a.sigma_squared
+    });
+}
+
 /// Rescan between consecutive modes whose orders jump by more than one step, more finely each
 /// time; error if orders repeat or decrease, or a gap remains.
-fn fill_gaps(
-    prepared: &Prepared<'_>,
+fn fill_gaps<F: Fn(f64) -> f64 + Sync>(
+    search: &Search<'_, F>,
     modes: &mut Vec<Mode>,
     expected: &Expected,
-    step: &dyn Fn(f64) -> f64,
 ) -> Result<()> {
-    let square = |s: f64| s * s;
     for pass in 0..=MAX_RESCANS {
-        modes.sort_by(|a, b| a.sigma_squared.total_cmp(&b.sigma_squared));
-        // A root on the boundary of two scanned ranges is found by both.
-        modes.dedup_by(|b, a| (b.sigma_squared - a.sigma_squared).abs() <= 1e-12 * a.sigma_squared);
+        sort_and_merge(modes);
         let mut gaps = Vec::new();
         for pair in modes.windows(2) {
             let (a, b) = (&pair[0], &pair[1]);
             let wanted = next_order(a.order, expected);
             if b.order < wanted {
                 return Err(Error::ModeSearch {
-                    degree: prepared.degree,
+                    degree: search.degree,
                     reason: format!(
                         "orders not increasing with frequency: {} at sigma^2 = {:.10e}, then {} \
                          at {:.10e}",
@@ -553,17 +788,14 @@ fn fill_gaps(
         if pass == MAX_RESCANS {
             let (_, _, a, b) = gaps[0];
             return Err(Error::ModeSearch {
-                degree: prepared.degree,
+                degree: search.degree,
                 reason: format!("no mode found between orders {a} and {b} after rescanning"),
             });
         }
         let factor = 8f64.powi(pass as i32 + 1);
         for (sa, sb, _, _) in gaps {
             let margin = 1e-6 * (sb - sa);
-            let finer = |s: f64| step(s) / factor;
-            for root in prepared.scan(sa + margin, sb - margin, &finer, &square)? {
-                modes.push(prepared.mode(root * root)?);
-            }
+            modes.extend(search.modes(sa + margin, sb - margin, factor)?);
         }
     }
     Ok(())

@@ -170,24 +170,18 @@ impl<const D: usize, const K: usize> Discretized<D, K> {
     pub fn discriminant<const N: usize>(&self, w: f64) -> Option<f64> {
         let qc = self.outward::<N>(w, None)?;
         let qs = self.inward::<N>(w, None)?;
-        let mut m = [[0.0; D]; D];
-        for d in 0..D {
-            for k in 0..K {
-                m[d][k] = qc[d][k];
-                m[d][K + k] = qs[d][k];
-            }
-        }
-        let det = determinant(m);
-        det.is_finite().then_some(det)
+        joined_determinant(&qc, &qs)
     }
 
-    /// The solution at an eigenvalue w: values at every step boundary and collocation node,
-    /// in increasing x, with an arbitrary normalisation. `None` if a step fails.
-    pub fn eigenfunction<const N: usize>(&self, w: f64) -> Option<Vec<Sample<D>>> {
+    /// The discriminant at w and the solution there, which is an eigenfunction if w is an
+    /// eigenvalue: values at every step boundary and collocation node, in increasing x (the
+    /// fitting point once), with an arbitrary normalisation. `None` if a step fails.
+    pub fn eigenfunction<const N: usize>(&self, w: f64) -> Option<(f64, Vec<Sample<D>>)> {
         let mut inner = Vec::with_capacity(self.fit);
         let mut outer = Vec::with_capacity(self.nodes.len() - self.fit);
         let qc = self.outward::<N>(w, Some(&mut inner))?;
         let qs = self.inward::<N>(w, Some(&mut outer))?;
+        let det = joined_determinant(&qc, &qs)?;
         // Null vector of [qc | qs]: the right singular vector of the smallest singular value.
         let m = DMatrix::<f64>::from_fn(D, D, |i, j| if j < K { qc[i][j] } else { qs[i][j - K] });
         let svd = m.svd(false, true);
@@ -201,13 +195,13 @@ impl<const D: usize, const K: usize> Discretized<D, K> {
             b[k] = -v_t[(smallest, K + k)];
         }
         let mut samples = Vec::with_capacity(4 * (self.nodes.len() + 1));
-        // Inner side, from the fitting point back to the centre.
+        // Inner side, from the fitting point back to the centre (in decreasing x, reversed
+        // below).
         let mut coef = a;
         for (s, rec) in inner.iter().enumerate().rev() {
             coef = back_substitute(&rec.r, coef)?;
             let h = self.x[s + 1] - self.x[s];
-            samples.push(boundary_sample(self.x[s], &rec.start, &coef, s));
-            for (j, stage) in rec.stages.iter().enumerate() {
+            for (j, stage) in rec.stages.iter().enumerate().rev() {
                 let x = self.x[s] + super::collocation::NODES[j] * h;
                 samples.push(node_sample(
                     x,
@@ -218,7 +212,9 @@ impl<const D: usize, const K: usize> Discretized<D, K> {
                     j,
                 ));
             }
+            samples.push(boundary_sample(self.x[s], &rec.start, &coef, s));
         }
+        samples.reverse();
         samples.push(boundary_sample(self.x[self.fit], &qc, &a, self.fit));
         // Outer side, from the fitting point out to the surface.
         let mut coef = b;
@@ -228,7 +224,7 @@ impl<const D: usize, const K: usize> Discretized<D, K> {
             let s = steps - 1 - t;
             coef = back_substitute(&rec.r, coef)?;
             let h = self.x[s + 1] - self.x[s];
-            for (j, stage) in rec.stages.iter().enumerate() {
+            for (j, stage) in rec.stages.iter().enumerate().rev() {
                 // Inward stage j sits at node 2 - j of the step.
                 let node = 2 - j;
                 let x = self.x[s] + super::collocation::NODES[node] * h;
@@ -248,9 +244,23 @@ impl<const D: usize, const K: usize> Discretized<D, K> {
                 (s + 1).min(steps - 1),
             ));
         }
-        samples.sort_by(|p, q| p.x.total_cmp(&q.x));
-        Some(samples)
+        debug_assert!(samples.windows(2).all(|p| p[0].x <= p[1].x));
+        Some((det, samples))
     }
+}
+
+/// det [qc | qs]; `None` if not finite.
+fn joined_determinant<const D: usize, const K: usize>(
+    qc: &Block<D, K>,
+    qs: &Block<D, K>,
+) -> Option<f64> {
+    let mut m = [[0.0; D]; D];
+    for ((row, c), s) in m.iter_mut().zip(qc).zip(qs) {
+        row[..K].copy_from_slice(c);
+        row[K..].copy_from_slice(s);
+    }
+    let det = determinant(m);
+    det.is_finite().then_some(det)
 }
 
 /// Solve R c = coef for upper-triangular R.

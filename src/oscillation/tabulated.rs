@@ -35,6 +35,12 @@
 //! - A* and Gamma_1, with slopes from the parabola through each point and its two neighbours
 //!   (one-sided at the surface, zero at the centre by symmetry). These local slopes keep a kink
 //!   of N^2 at a convective boundary from ringing through the mesh, as a spline would.
+//!
+//! The interpolant is continuous with its first derivative at every mesh point, so the
+//! solver's steps may straddle mesh points ([`Equilibrium::smooth_at`]) except the two that
+//! bound an interval where A* changes sign (A* > 0 on one side, <= 0 on the other): there N^2
+//! has a kink at a convective boundary somewhere inside, and steps end at the mesh points
+//! around it.
 
 use super::equilibrium::{validate_breakpoints, CentreValues, Equilibrium, StructurePoint};
 use crate::constants::G_CGS;
@@ -86,6 +92,8 @@ struct Knot {
 #[derive(Debug, Clone, PartialEq)]
 pub struct TabulatedModel {
     breakpoints: Vec<f64>,
+    /// Whether a step may straddle each breakpoint (module documentation).
+    smooth: Vec<bool>,
     knots: Vec<Knot>,
     centre: CentreValues,
     surface_u: f64,
@@ -228,8 +236,14 @@ impl TabulatedModel {
                 Knot { value, slope }
             })
             .collect();
+        // A convective boundary lies inside an interval whose ends differ in the sign of A*.
+        let boundary = |i: usize| (a.a_star[i] > 0.0) != (a.a_star[i + 1] > 0.0);
+        let smooth = (0..k)
+            .map(|i| i > 0 && i + 1 < k && !boundary(i - 1) && !boundary(i))
+            .collect();
         Ok(Self {
             breakpoints: x.to_vec(),
+            smooth,
             knots,
             centre: CentreValues {
                 c1: points[0].c1,
@@ -261,6 +275,10 @@ fn three_point_slope(x: &[f64], f: &[f64], i: usize) -> f64 {
 impl Equilibrium for TabulatedModel {
     fn breakpoints(&self) -> &[f64] {
         &self.breakpoints
+    }
+
+    fn smooth_at(&self, i: usize) -> bool {
+        self.smooth.get(i).copied().unwrap_or(false)
     }
 
     fn point(&self, interval: usize, x: f64) -> StructurePoint {

@@ -34,9 +34,34 @@ pub fn tout1996_radius_rsun(m: f64) -> f64 {
         / (nu + xi * m.powi(2) + om * m.powf(8.5) + m.powf(18.5) + pi * m.powf(19.5))
 }
 
+/// Large separation from the solar-scaled relation of Kjeldsen & Bedding (1995, A&A 293, 87):
+/// Delta nu = 134.9 uHz (M/M_sun)^(1/2) (R/R_sun)^(-3/2), uHz (docs/references.md §8.6, memory).
+/// It scales the Sun's observed large separation with the square root of the mean density.
+pub fn kjeldsen_bedding_large_separation_uhz(mass_msun: f64, radius_rsun: f64) -> f64 {
+    134.9 * mass_msun.sqrt() * radius_rsun.powf(-1.5)
+}
+
+/// Frequency of maximum oscillation power from the solar-scaled relation of Kjeldsen & Bedding
+/// (1995; after Brown et al. 1991, ApJ 368, 599, who proposed nu_max proportional to the
+/// acoustic cut-off frequency): nu_max = 3.05 mHz (M/M_sun) (R/R_sun)^-2 (T_eff/5777 K)^(-1/2),
+/// uHz (docs/references.md §8.6, memory; 5777 K as in the paper, not the nominal 5772 K).
+pub fn kjeldsen_bedding_nu_max_uhz(mass_msun: f64, radius_rsun: f64, teff_k: f64) -> f64 {
+    3050.0 * mass_msun * radius_rsun.powi(-2) * (teff_k / 5777.0).powf(-0.5)
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    /// At the Sun the relations return their solar values (docs/references.md §8.6).
+    #[test]
+    fn kjeldsen_bedding_at_the_sun() {
+        assert!((kjeldsen_bedding_large_separation_uhz(1.0, 1.0) - 134.9).abs() < 1e-12);
+        assert!((kjeldsen_bedding_nu_max_uhz(1.0, 1.0, 5777.0) - 3050.0).abs() < 1e-9);
+        // Delta nu scales as the square root of the mean density: 8 times denser, sqrt(8).
+        let ratio = kjeldsen_bedding_large_separation_uhz(1.0, 0.5) / 134.9;
+        assert!((ratio - 8f64.sqrt()).abs() < 1e-12);
+    }
 
     /// Sample values computed from the fit (docs/references.md §6, computed flag).
     #[test]

@@ -23,6 +23,11 @@
 //!
 //! Nodes are found between consecutive collocation nodes (three per step), where the structure
 //! coefficients are known; positive scale factors of the variables do not change the count.
+//! Both terms of Y1 vanish like x^2 at the centre (J = 1 - U/3, and y3 = y4 there for l = 1),
+//! so near the centre Y1 is a small quantity that depends on U to its last digits; in a ZAMS
+//! profile U is known there only to about 1e-7 (1 - U/3 is not even monotonic below x = 2e-4
+//! for the 1 M_sun model), which put spurious nodes at x ~ 1e-4. Samples where |Y1| is below
+//! [`DIPOLE_SIGNIFICANCE`] times |y1| therefore place no node.
 //!
 //! # Normalisation and inertia
 //!
@@ -42,6 +47,12 @@ use super::equilibrium::{point_at, Equilibrium};
 use super::mesh::Grid;
 use super::shooting::Sample;
 use std::f64::consts::PI;
+
+/// Samples of a dipole mode where |Y1| <= this times |y1| (scaled variables) place no node
+/// (module documentation): above the uncertainty of J = 1 - U/3 near the centre of a tabulated
+/// model (about 1e-7), far below |Y1|/|y1| anywhere else except within a tiny distance of a
+/// node.
+pub const DIPOLE_SIGNIFICANCE: f64 = 1e-6;
 
 /// Eigenfunctions of one mode at the mesh's step boundaries, normalised to xi_r(R) = R.
 #[derive(Debug, Clone, PartialEq)]
@@ -161,6 +172,13 @@ pub fn analyse<const D: usize>(
             let v = p.v_over_x2 * s.x * s.x;
             let j = 1.0 - p.u / 3.0;
             let criterion = 9.0 * v * p.c1 * ctx.w - 18.0 * p.gamma1 * j * j;
+            // Y1 vanishes like x^2 at the centre, where J = 1 - U/3 is only as good as the
+            // model's U; below that level Y1 has no reliable sign (module documentation).
+            let y1 = if y1.abs() <= DIPOLE_SIGNIFICANCE * s.z[0].abs() {
+                0.0
+            } else {
+                y1
+            };
             count.add(y1, criterion, |q, _| q > 0.0);
         } else {
             count.add(s.z[0], s.z[1], |y2, falling| (y2 > 0.0) == falling);

@@ -21,7 +21,8 @@
 //! - [`eigenfunction`]: mode order (Eckart–Scuflaire–Osaki, Takata for dipole modes), inertia,
 //!   eigenfunctions;
 //! - [`spectrum`], [`asymptotic`]: modes, frequencies in muHz, large and small separations,
-//!   the asymptotic large separation and g-mode period spacing.
+//!   the asymptotic large separation and g-mode period spacing;
+//! - [`zams`]: a ZAMS model's profile as a [`TabulatedModel`].
 //!
 //! Every frequency here is dimensionless: sigma^2 = omega^2 R^3/(G M).
 //!
@@ -49,6 +50,7 @@ pub mod search;
 pub mod shooting;
 pub mod spectrum;
 pub mod tabulated;
+pub mod zams;
 
 pub use asymptotic::{asymptotic_values, AsymptoticValues};
 pub use eigenfunction::Eigenfunction;
@@ -62,3 +64,4 @@ pub use spectrum::{
     SeismicSummary,
 };
 pub use tabulated::{DimensionlessArrays, PhysicalArrays, TabulatedModel};
+pub use zams::tabulated_from_profile;

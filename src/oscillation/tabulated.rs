@@ -25,22 +25,30 @@
 //!
 //! # Interpolation
 //!
-//! The mesh points are the model's breakpoints. Between two of them each coefficient is a cubic
-//! Hermite polynomial in x (error O(h^4) for mesh spacing h):
+//! The mesh points are the model's breakpoints. Between two of them:
 //!
-//! - ln(V/x^2), ln U and ln c1, with slopes from the structure equations themselves (exact for
-//!   a model in hydrostatic equilibrium; derived from the definitions):
-//!   dln(V/x^2)/dln x = U - 3 + V (1 - 1/Gamma_1) - A*, dln U/dln x = 3 - U - V/Gamma_1 - A*,
-//!   dln c1/dln x = 3 - U (all three vanish at the centre, where the functions are even in x);
-//! - A* and Gamma_1, with slopes from the parabola through each point and its two neighbours
-//!   (one-sided at the surface, zero at the centre by symmetry). These local slopes keep a kink
-//!   of N^2 at a convective boundary from ringing through the mesh, as a spline would.
+//! - ln(V/x^2), ln U and ln c1 are quintic Hermite polynomials in x through their values,
+//!   slopes and second derivatives at both ends. The slopes come from the structure equations
+//!   themselves (exact for a model in hydrostatic equilibrium; derived from the definitions):
+//!   with D = d/dln x, D ln(V/x^2) = U - 3 + V (1 - 1/Gamma_1) - A*,
+//!   D ln U = 3 - U - V/Gamma_1 - A*, D ln c1 = 3 - U (all three vanish at the centre, where the
+//!   functions are even in x); the second derivatives by differentiating these once more, with
+//!   D U = U D ln U, D V = V (D ln(V/x^2) + 2) and the slopes of Gamma_1 and A* below
+//!   (D^2 ln(V/x^2) = D U + D V (1 - 1/Gamma_1) + V D Gamma_1/Gamma_1^2 - D A*,
+//!   D^2 ln U = -D U - D V/Gamma_1 + V D Gamma_1/Gamma_1^2 - D A*, D^2 ln c1 = -D U; then
+//!   f'' = (D^2 f - D f)/x^2; at the centre the value at the first mesh point, f'' being even);
+//! - A* and Gamma_1 are cubic splines (cubic Hermite with the slopes that make the second
+//!   derivative continuous) within each segment between the mesh points that bound a
+//!   convective boundary (below), clamped there and at the surface to the slope of the parabola
+//!   through the point and its neighbours (zero at the centre by symmetry). Ending the splines
+//!   at convective boundaries keeps the kink of N^2 there from ringing through the mesh.
 //!
-//! The interpolant is continuous with its first derivative at every mesh point, so the
-//! solver's steps may straddle mesh points ([`Equilibrium::smooth_at`]) except the two that
+//! The interpolant is thus continuous with its first two derivatives inside each segment, so
+//! the solver's steps may straddle mesh points ([`Equilibrium::smooth_at`]) except the two that
 //! bound an interval where A* changes sign (A* > 0 on one side, <= 0 on the other): there N^2
 //! has a kink at a convective boundary somewhere inside, and steps end at the mesh points
-//! around it.
+//! around it. (With cubic Hermite polynomials, continuous only in the first derivative, steps
+//! across many mesh points of a ZAMS profile left errors of order h^4, 1e-7 at steps of 0.02.)
 
 use super::equilibrium::{validate_breakpoints, CentreValues, Equilibrium, StructurePoint};
 use crate::constants::G_CGS;
@@ -86,6 +94,8 @@ pub struct DimensionlessArrays<'a> {
 struct Knot {
     value: [f64; 5],
     slope: [f64; 5],
+    /// Second derivatives of the first three (ln(V/x^2), ln U, ln c1).
+    curvature: [f64; 3],
 }
 
 /// A model given on a mesh, interpolated as described in the module documentation.
@@ -220,26 +230,53 @@ impl TabulatedModel {
             points.push(p);
         }
         let x = a.x;
+        // A convective boundary lies inside an interval whose ends differ in the sign of A*;
+        // the knots around it end the spline segments and the solver's steps.
+        let boundary = |i: usize| (a.a_star[i] > 0.0) != (a.a_star[i + 1] > 0.0);
+        let smooth: Vec<bool> = (0..k)
+            .map(|i| i > 0 && i + 1 < k && !boundary(i - 1) && !boundary(i))
+            .collect();
+        let a_star_slopes = spline_slopes(x, a.a_star, &smooth);
+        let gamma1_slopes = spline_slopes(x, a.gamma1, &smooth);
+        // Slopes and second derivatives in x at mesh point i > 0 (module documentation).
+        let derivatives = |i: usize| {
+            let p = points[i];
+            let (xi, v, g, a) = (x[i], p.v_over_x2 * x[i] * x[i], p.gamma1, p.a_star);
+            let (dg, da) = (xi * gamma1_slopes[i], xi * a_star_slopes[i]);
+            let d = [
+                p.u - 3.0 + v * (1.0 - 1.0 / g) - a,
+                3.0 - p.u - v / g - a,
+                3.0 - p.u,
+            ];
+            let du = p.u * d[1];
+            let dv = v * (d[0] + 2.0);
+            let d2 = [
+                du + dv * (1.0 - 1.0 / g) + v * dg / (g * g) - da,
+                -du - dv / g + v * dg / (g * g) - da,
+                -du,
+            ];
+            let slope = d.map(|di| di / xi);
+            let curvature = [0, 1, 2].map(|j| (d2[j] - d[j]) / (xi * xi));
+            (slope, curvature)
+        };
         let knots = (0..k)
             .map(|i| {
                 let p = points[i];
                 let value = [p.v_over_x2.ln(), p.u.ln(), p.c1.ln(), p.a_star, p.gamma1];
                 let mut slope = [0.0; 5];
+                // Even in x at the centre: zero slope, the curvature of the first mesh point.
+                let (first, curvature) = derivatives(i.max(1));
                 if i > 0 {
-                    let (xi, v) = (x[i], p.v_over_x2 * x[i] * x[i]);
-                    slope[0] = (p.u - 3.0 + v * (1.0 - 1.0 / p.gamma1) - p.a_star) / xi;
-                    slope[1] = (3.0 - p.u - v / p.gamma1 - p.a_star) / xi;
-                    slope[2] = (3.0 - p.u) / xi;
-                    slope[3] = three_point_slope(x, a.a_star, i);
-                    slope[4] = three_point_slope(x, a.gamma1, i);
+                    slope[..3].copy_from_slice(&first);
+                    slope[3] = a_star_slopes[i];
+                    slope[4] = gamma1_slopes[i];
                 }
-                Knot { value, slope }
+                Knot {
+                    value,
+                    slope,
+                    curvature,
+                }
             })
-            .collect();
-        // A convective boundary lies inside an interval whose ends differ in the sign of A*.
-        let boundary = |i: usize| (a.a_star[i] > 0.0) != (a.a_star[i + 1] > 0.0);
-        let smooth = (0..k)
-            .map(|i| i > 0 && i + 1 < k && !boundary(i - 1) && !boundary(i))
             .collect();
         Ok(Self {
             breakpoints: x.to_vec(),
@@ -253,6 +290,69 @@ impl TabulatedModel {
             surface_u: points[k - 1].u,
         })
     }
+}
+
+/// Slopes of `f` at the knots `x` for cubic Hermite interpolation: at the centre 0 (symmetry),
+/// at a knot that is not `smooth` (the segment ends: convective boundaries, the surface) the
+/// slope of the parabola through it and its neighbours, and inside each segment between them
+/// the slopes of the cubic spline clamped to those end slopes, so that the interpolant is
+/// continuous with its second derivative there (C2 continuity at knot i of the Hermite cubics
+/// with slopes m and secants d_i = (f_(i+1) - f_i)/h_i gives
+/// m_(i-1)/h_(i-1) + 2 m_i (1/h_(i-1) + 1/h_i) + m_(i+1)/h_i = 3 (d_(i-1)/h_(i-1) + d_i/h_i);
+/// derived for this module, solved by the tridiagonal (Thomas) algorithm, which needs no
+/// pivoting as the system is diagonally dominant).
+fn spline_slopes(x: &[f64], f: &[f64], smooth: &[bool]) -> Vec<f64> {
+    let k = x.len();
+    let mut m: Vec<f64> = (0..k)
+        .map(|i| {
+            if i == 0 {
+                0.0
+            } else {
+                three_point_slope(x, f, i)
+            }
+        })
+        .collect();
+    let secant = |i: usize| (f[i + 1] - f[i]) / (x[i + 1] - x[i]);
+    let mut start = 0;
+    while start + 1 < k {
+        // The segment runs from `start` to the next knot that is not smooth.
+        let end = (start + 1..k).find(|&i| !smooth[i]).unwrap_or(k - 1);
+        let n = end - start - 1;
+        if n > 0 {
+            let (mut diag, mut upper, mut rhs) = (vec![0.0; n], vec![0.0; n], vec![0.0; n]);
+            for j in 0..n {
+                let i = start + 1 + j;
+                let (h0, h1) = (x[i] - x[i - 1], x[i + 1] - x[i]);
+                diag[j] = 2.0 * (1.0 / h0 + 1.0 / h1);
+                upper[j] = 1.0 / h1;
+                rhs[j] = 3.0 * (secant(i - 1) / h0 + secant(i) / h1);
+                if j == 0 {
+                    rhs[j] -= m[start] / h0;
+                }
+                if j + 1 == n {
+                    rhs[j] -= m[end] / h1;
+                }
+            }
+            // Forward elimination (the sub-diagonal entry of row j is 1/h0 = upper[j - 1]'s
+            // interval, the same interval seen from the other side), then back substitution.
+            for j in 1..n {
+                let lower = upper[j - 1];
+                let factor = lower / diag[j - 1];
+                diag[j] -= factor * upper[j - 1];
+                rhs[j] -= factor * rhs[j - 1];
+            }
+            for j in (0..n).rev() {
+                let next = if j + 1 < n {
+                    upper[j] * m[start + 2 + j]
+                } else {
+                    0.0
+                };
+                m[start + 1 + j] = (rhs[j] - next) / diag[j];
+            }
+        }
+        start = end;
+    }
+    m
 }
 
 /// Slope at point `i` (> 0) of the parabola through it and its neighbours (the two previous
@@ -286,22 +386,42 @@ impl Equilibrium for TabulatedModel {
         let (ka, kb) = (&self.knots[interval], &self.knots[interval + 1]);
         let h = xb - xa;
         let t = (x - xa) / h;
-        let t2 = t * t;
-        let t3 = t2 * t;
-        // Cubic Hermite basis.
-        let h00 = 2.0 * t3 - 3.0 * t2 + 1.0;
-        let h10 = t3 - 2.0 * t2 + t;
-        let h01 = -2.0 * t3 + 3.0 * t2;
-        let h11 = t3 - t2;
-        let f = |j: usize| {
-            h00 * ka.value[j] + h * h10 * ka.slope[j] + h01 * kb.value[j] + h * h11 * kb.slope[j]
+        let (t2, t3) = (t * t, t * t * t);
+        let (t4, t5) = (t3 * t, t3 * t2);
+        // Cubic Hermite basis: value and slope at 0 and at 1.
+        let c = [
+            2.0 * t3 - 3.0 * t2 + 1.0,
+            t3 - 2.0 * t2 + t,
+            -2.0 * t3 + 3.0 * t2,
+            t3 - t2,
+        ];
+        // Quintic Hermite basis: value, slope, second derivative at 0; the same at 1.
+        let q = [
+            1.0 - 10.0 * t3 + 15.0 * t4 - 6.0 * t5,
+            t - 6.0 * t3 + 8.0 * t4 - 3.0 * t5,
+            0.5 * (t2 - 3.0 * t3 + 3.0 * t4 - t5),
+            10.0 * t3 - 15.0 * t4 + 6.0 * t5,
+            -4.0 * t3 + 7.0 * t4 - 3.0 * t5,
+            0.5 * (t3 - 2.0 * t4 + t5),
+        ];
+        let quintic = |j: usize| {
+            q[0] * ka.value[j]
+                + h * (q[1] * ka.slope[j] + h * q[2] * ka.curvature[j])
+                + q[3] * kb.value[j]
+                + h * (q[4] * kb.slope[j] + h * q[5] * kb.curvature[j])
+        };
+        let cubic = |j: usize| {
+            c[0] * ka.value[j]
+                + h * c[1] * ka.slope[j]
+                + c[2] * kb.value[j]
+                + h * c[3] * kb.slope[j]
         };
         StructurePoint {
-            v_over_x2: f(0).exp(),
-            u: f(1).exp(),
-            c1: f(2).exp(),
-            a_star: f(3),
-            gamma1: f(4),
+            v_over_x2: quintic(0).exp(),
+            u: quintic(1).exp(),
+            c1: quintic(2).exp(),
+            a_star: cubic(3),
+            gamma1: cubic(4),
         }
     }
 
@@ -317,6 +437,36 @@ impl Equilibrium for TabulatedModel {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    /// Spline slopes: exact for an even parabola (whose three-point end slopes are exact), and the
+    /// Hermite cubics they define are continuous in the second derivative inside a segment,
+    /// for a function that is not a polynomial, on an uneven mesh with a segment end at knot 4.
+    #[test]
+    fn spline_slopes_are_exact_for_parabolas_and_c2() {
+        let x = [0.0, 0.1, 0.25, 0.3, 0.5, 0.55, 0.7, 1.0];
+        let smooth = [false, true, true, true, false, true, true, false];
+        // An even parabola: zero slope at the centre, as the spline assumes.
+        let f: Vec<f64> = x.iter().map(|t| 2.0 + 5.0 * t * t).collect();
+        let m = spline_slopes(&x, &f, &smooth);
+        for i in 1..x.len() {
+            assert!((m[i] - 10.0 * x[i]).abs() < 1e-12, "{i}");
+        }
+        let g: Vec<f64> = x.iter().map(|t| (3.0 * t).sin()).collect();
+        let m = spline_slopes(&x, &g, &smooth);
+        let second = |i: usize, at_right_end: bool| {
+            let h = x[i + 1] - x[i];
+            let d = (g[i + 1] - g[i]) / h;
+            if at_right_end {
+                (2.0 * m[i] + 4.0 * m[i + 1] - 6.0 * d) / h
+            } else {
+                (-4.0 * m[i] - 2.0 * m[i + 1] + 6.0 * d) / h
+            }
+        };
+        for i in [1, 2, 3, 5, 6] {
+            let (left, right) = (second(i - 1, true), second(i, false));
+            assert!((left - right).abs() < 1e-10, "knot {i}: {left} vs {right}");
+        }
+    }
 
     /// The three-point slope is exact for a parabola on an uneven mesh, inside and at the end.
     #[test]

@@ -22,7 +22,9 @@
 //!   eigenfunctions;
 //! - [`spectrum`], [`asymptotic`]: modes, frequencies in muHz, large and small separations,
 //!   the asymptotic large separation and g-mode period spacing;
-//! - [`zams`]: a ZAMS model's profile as a [`TabulatedModel`].
+//! - [`zams`]: a ZAMS model's profile as a [`TabulatedModel`];
+//! - [`stability`]: the quasi-adiabatic growth rate of radial modes (the epsilon mechanism
+//!   against radiative damping).
 //!
 //! Every frequency here is dimensionless: sigma^2 = omega^2 R^3/(G M).
 //!
@@ -49,6 +51,7 @@ pub mod polytropic;
 pub mod search;
 pub mod shooting;
 pub mod spectrum;
+pub mod stability;
 pub mod tabulated;
 pub mod zams;
 
@@ -64,4 +67,5 @@ pub use spectrum::{
     SeismicSummary,
 };
 pub use tabulated::{DimensionlessArrays, PhysicalArrays, TabulatedModel};
+pub use stability::{radial_stability, RadialStability};
 pub use zams::tabulated_from_profile;

@@ -110,7 +110,7 @@ pub fn value_list(caller: Caller, key: &str, values: &Bound<'_, PyAny>) -> PyRes
     }
     // Rust's shortest round-trip text of each number reads back to the same double, so the
     // library's parser sees exactly these values.
-    let text: Vec<String> = numbers.iter().map(|v| format!("{v:?}")).collect();
+    let text: Vec<String> = numbers.iter().map(|v| format!("{v}")).collect();
     parse_value_list(key, &text.join(",")).or_raise(py, caller)
 }
 

@@ -210,3 +210,23 @@ impl<T> OrRaise<T> for Result<T, Failure> {
         self.map_err(|f| to_py(py, caller, f))
     }
 }
+
+/// For the test suite: raise what the boundary makes of a failure that no argument can
+/// provoke: `"physics"`, a law's error outside the shooting iteration, and `"panic"`, a
+/// panic in the library (a bug), which is caught and raised as `ComputationError` instead of
+/// crossing into Python.
+#[pyfunction]
+pub fn _check_boundary(py: Python<'_>, kind: &str) -> PyResult<()> {
+    let kind = kind.to_string();
+    detached(py, move || match kind.as_str() {
+        "physics" => Err(Error::Physics(starpoise::error::PhysicsError::new(
+            "demo-law",
+            "a failure made for the test of the boundary",
+            1.0,
+            1.0e7,
+        ))),
+        "panic" => panic!("a panic made for the test of the boundary"),
+        other => Err(Error::invalid("kind", other, "physics or panic")),
+    })
+    .or_raise(py, Caller::Zams)
+}

@@ -49,3 +49,9 @@ __all__ = [
     "sequence",
     "zams",
 ]
+
+# Shown as starpoise.InputError, starpoise.Table, ... in tracebacks and reprs.
+for _cls in (StarpoiseError, InputError, ConvergenceError, ComputationError, Table,
+             SequenceTable, Record, Polytrope):
+    _cls.__module__ = __name__
+del _cls

@@ -16,6 +16,10 @@ preset=${3:-refined}
 python=${STARPOISE_VENV:-.venv}/bin/python
 cargo build --release --quiet --example zams_repeat
 
+# Python's hash seed changes how much work its start-up and imports do; numpy's OpenBLAS
+# threads spin while they wait. Both are fixed so that two runs differ only in their calls.
+export PYTHONHASHSEED=0 OPENBLAS_NUM_THREADS=1
+
 count() {
     valgrind --tool=callgrind --callgrind-out-file=/dev/null "$@" 2>&1 >/dev/null |
         sed -n 's/.*Collected : \([0-9]*\).*/\1/p'

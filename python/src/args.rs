@@ -37,6 +37,19 @@ pub struct LawArgs {
     pub rates_factor: Option<f64>,
 }
 
+/// The law arguments of a function's signature as [`LawArgs`]: `physics` (the preset's text),
+/// then the other eight by name (`eos, opacity, rates, convection, atmosphere, alpha,
+/// opacity_factor, rates_factor`; the compiler checks that none is missing).
+macro_rules! law_args {
+    ($physics:ident, $($name:ident),+ $(,)?) => {
+        $crate::args::LawArgs {
+            physics: Some($physics.to_string()),
+            $($name),+
+        }
+    };
+}
+pub(crate) use law_args;
+
 fn law<S: std::str::FromStr<Err = starpoise::physics::spec::SpecError>>(
     text: &Option<String>,
 ) -> Result<Option<S>> {

@@ -1,7 +1,7 @@
 //! `starpoise.sequence` and `starpoise.compare`: many models in parallel (the grid module's
 //! runner), with the GIL released and Ctrl-C honoured between models.
 
-use crate::args::{count, meta, value_list, variants, Call, LawArgs};
+use crate::args::{count, law_args, meta, value_list, variants, Call, LawArgs};
 use crate::convert::{self, column};
 use crate::errors::{caught, Caller, Failure, OrRaise};
 use pyo3::prelude::*;
@@ -99,6 +99,63 @@ fn columns<'py>(
     Ok(d)
 }
 
+/// A grid to solve: the product of the lists, under each variant of the base laws.
+struct GridRequest<'a> {
+    laws: &'a LawArgs,
+    variants: Vec<Variant>,
+    masses: &'a [f64],
+    xs: &'a [f64],
+    zs: &'a [f64],
+    fit_mass_fraction: f64,
+    threads: i64,
+    tolerance: Option<f64>,
+}
+
+/// Build and solve the grid of `request` (see [`run_interruptible`]).
+fn solve_grid(
+    py: Python<'_>,
+    caller: Caller,
+    request: GridRequest<'_>,
+) -> PyResult<(Grid, Vec<PointResult>)> {
+    let threads = count(
+        "threads",
+        request.threads,
+        "the number of worker threads must be 0 (one per core) or more",
+        Ok,
+    )
+    .or_raise(py, caller)?;
+    let grid = Grid::product(
+        &request.laws.overrides().or_raise(py, caller)?,
+        request.variants,
+        request.masses,
+        request.xs,
+        request.zs,
+        request.fit_mass_fraction,
+    )
+    .or_raise(py, caller)?;
+    let points = grid.select(None);
+    let run = RunSettings {
+        threads,
+        tolerance: request.tolerance,
+    };
+    let results = run_interruptible(py, caller, &grid, &points, run)?;
+    Ok((grid, results))
+}
+
+/// A table (`class` of `starpoise._table`) of the JSON records `rows` under `keys`, with the
+/// units read off the keys and `meta`.
+fn records_table<'py>(
+    py: Python<'py>,
+    class: &str,
+    keys: &[&str],
+    rows: &[Map<String, Value>],
+    meta: Bound<'py, PyDict>,
+) -> PyResult<Bound<'py, PyAny>> {
+    let columns = columns(py, keys, rows)?;
+    let units = convert::units(py, keys.iter().copied())?;
+    convert::table(py, class, columns, units, meta)
+}
+
 /// Solve a grid of zero-age main-sequence models: masses x compositions x physics variants,
 /// in parallel.
 ///
@@ -166,8 +223,8 @@ pub fn sequence<'py>(
     fit_ranges: Option<&str>,
 ) -> PyResult<Bound<'py, PyAny>> {
     let caller = Caller::Sequence;
-    let laws = LawArgs {
-        physics: Some(physics.to_string()),
+    let laws = law_args!(
+        physics,
         eos,
         opacity,
         rates,
@@ -175,8 +232,8 @@ pub fn sequence<'py>(
         atmosphere,
         alpha,
         opacity_factor,
-        rates_factor,
-    };
+        rates_factor
+    );
     let mut call = Call::new(py, "sequence");
     call.positional(masses.repr()?.to_string())
         .object("x", x)
@@ -207,29 +264,19 @@ pub fn sequence<'py>(
         Some(t) => parse_ranges(t).or_raise(py, caller)?,
         None => DEFAULT_FIT_RANGES.to_vec(),
     };
-    let threads = count(
-        "threads",
-        threads,
-        "the number of worker threads must be 0 (one per core) or more",
-        Ok,
-    )
-    .or_raise(py, caller)?;
-    let grid = Grid::product(
-        &laws.overrides().or_raise(py, caller)?,
-        variants,
-        &masses,
-        &xs,
-        &zs,
-        fit_mass.unwrap_or(DEFAULT_FIT_MASS_FRACTION),
-    )
-    .or_raise(py, caller)?;
-    let points = grid.select(None);
-    let results = run_interruptible(
+    let (grid, results) = solve_grid(
         py,
         caller,
-        &grid,
-        &points,
-        RunSettings { threads, tolerance },
+        GridRequest {
+            laws: &laws,
+            variants,
+            masses: &masses,
+            xs: &xs,
+            zs: &zs,
+            fit_mass_fraction: fit_mass.unwrap_or(DEFAULT_FIT_MASS_FRACTION),
+            threads,
+            tolerance,
+        },
     )?;
 
     let fingerprint = grid.fingerprint();
@@ -245,14 +292,11 @@ pub fn sequence<'py>(
             _ => None,
         })
         .collect();
-    let keys = GridRow::columns();
-    let columns = columns(py, &keys, &maps)?;
-    let units = convert::units(py, keys.iter().copied())?;
     let meta = meta(py, &call.text_of())?;
     meta.set_item("grid_fingerprint", &fingerprint)?;
     meta.set_item("fit_ranges", convert::serialized(py, &ranges)?)?;
     meta.set_item("variants", variants_dict(py, &grid.variants)?)?;
-    let table = convert::table(py, "SequenceTable", columns, units, meta)?;
+    let table = records_table(py, "SequenceTable", &GridRow::columns(), &maps, meta)?;
     table.setattr("fits", convert::serialized(py, &fits)?)?;
     Ok(table)
 }
@@ -308,8 +352,8 @@ pub fn compare<'py>(
     threads: i64,
 ) -> PyResult<Bound<'py, PyAny>> {
     let caller = Caller::Compare;
-    let laws = LawArgs {
-        physics: Some(physics.to_string()),
+    let laws = law_args!(
+        physics,
         eos,
         opacity,
         rates,
@@ -317,8 +361,8 @@ pub fn compare<'py>(
         atmosphere,
         alpha,
         opacity_factor,
-        rates_factor,
-    };
+        rates_factor
+    );
     let mut call = Call::new(py, "compare");
     call.positional(masses.repr()?.to_string())
         .positional(variants.repr()?.to_string())
@@ -344,29 +388,16 @@ pub fn compare<'py>(
         .or_raise(py, caller);
     }
     let composition = starpoise::physics::Composition::new(x, z).or_raise(py, caller)?;
-    let threads = count(
-        "threads",
-        threads,
-        "the number of worker threads must be 0 (one per core) or more",
-        Ok,
-    )
-    .or_raise(py, caller)?;
-    let grid = Grid::product(
-        &laws.overrides().or_raise(py, caller)?,
-        variants,
-        &masses,
-        &[composition.x()],
-        &[composition.z()],
-        DEFAULT_FIT_MASS_FRACTION,
-    )
-    .or_raise(py, caller)?;
-    let points = grid.select(None);
-    let results = run_interruptible(
+    let (grid, results) = solve_grid(
         py,
         caller,
-        &grid,
-        &points,
-        RunSettings {
+        GridRequest {
+            laws: &laws,
+            variants,
+            masses: &masses,
+            xs: &[composition.x()],
+            zs: &[composition.z()],
+            fit_mass_fraction: DEFAULT_FIT_MASS_FRACTION,
             threads,
             tolerance: None,
         },
@@ -385,11 +416,9 @@ pub fn compare<'py>(
         .map(|m| m.keys().cloned().collect())
         .unwrap_or_default();
     let keys: Vec<&str> = keys.iter().map(String::as_str).collect();
-    let columns = columns(py, &keys, &maps)?;
-    let units = convert::units(py, keys.iter().copied())?;
     let meta = meta(py, &call.text_of())?;
     meta.set_item("reference", &table.reference)?;
     crate::args::add_model(py, &meta, &composition, grid.physics[0].spec())?;
     meta.set_item("variants", variants_dict(py, &grid.variants)?)?;
-    convert::table(py, "Table", columns, units, meta)
+    records_table(py, "Table", &keys, &maps, meta)
 }

@@ -1,6 +1,6 @@
 //! `starpoise.probe`: every law of a set at one density and temperature.
 
-use crate::args::{meta, Call, LawArgs};
+use crate::args::{law_args, meta, Call, LawArgs};
 use crate::convert::{self, repr_f64};
 use crate::errors::{detached, Caller, OrRaise};
 use pyo3::prelude::*;
@@ -59,8 +59,8 @@ pub fn probe<'py>(
     opacity_factor: Option<f64>,
     rates_factor: Option<f64>,
 ) -> PyResult<Bound<'py, PyAny>> {
-    let laws = LawArgs {
-        physics: Some(physics.to_string()),
+    let laws = law_args!(
+        physics,
         eos,
         opacity,
         rates,
@@ -68,8 +68,8 @@ pub fn probe<'py>(
         atmosphere,
         alpha,
         opacity_factor,
-        rates_factor,
-    };
+        rates_factor
+    );
     let mut call = Call::new(py, "probe");
     call.keyword("density_g_cm3", repr_f64(py, density_g_cm3))
         .keyword("temperature_k", repr_f64(py, temperature_k))

@@ -1,6 +1,6 @@
 //! `starpoise.zams` and the `Star` it returns.
 
-use crate::args::{count, meta, Call, LawArgs};
+use crate::args::{count, law_args, meta, Call, LawArgs};
 use crate::convert::{self, float_column};
 use crate::errors::{detached, history, Caller, Failure, OrRaise};
 use pyo3::exceptions::PyAttributeError;
@@ -85,8 +85,8 @@ pub fn zams(
     max_iterations: Option<i64>,
     guess: Option<Vec<f64>>,
 ) -> PyResult<Star> {
-    let laws = LawArgs {
-        physics: Some(physics.to_string()),
+    let laws = law_args!(
+        physics,
         eos,
         opacity,
         rates,
@@ -94,8 +94,8 @@ pub fn zams(
         atmosphere,
         alpha,
         opacity_factor,
-        rates_factor,
-    };
+        rates_factor
+    );
     let mut call = Call::new(py, "zams");
     call.positional(convert::repr_f64(py, mass))
         .float("x", Some(x))

@@ -15,7 +15,24 @@ def _needs(package: str, method: str) -> ImportError:
     )
 
 
-class Table:
+class _Named:
+    """Attribute access to the entries of the dict that ``_entries`` names (column names or
+    keys), and those names in ``dir()``."""
+
+    _entries = ""
+
+    def __getattr__(self, name: str) -> Any:
+        if not name.startswith("_"):
+            entries = self.__dict__.get(self._entries, {})
+            if name in entries:
+                return entries[name]
+        raise AttributeError(f"{type(self).__name__!r} object has no attribute or entry {name!r}")
+
+    def __dir__(self) -> list[str]:
+        return sorted(set(super().__dir__()) | set(self.__dict__.get(self._entries, {})))
+
+
+class Table(_Named):
     """Columns of equal length, each a numpy array under its name.
 
     The names are those of the command line's CSV files (``starpoise.PROFILE_COLUMNS``,
@@ -51,18 +68,10 @@ class Table:
         """The column names, in order."""
         return list(self._columns)
 
+    _entries = "_columns"
+
     def __getitem__(self, name: str) -> np.ndarray:
         return self._columns[name]
-
-    def __getattr__(self, name: str) -> np.ndarray:
-        if not name.startswith("_"):
-            columns = self.__dict__.get("_columns", {})
-            if name in columns:
-                return columns[name]
-        raise AttributeError(f"{type(self).__name__!r} object has no attribute or column {name!r}")
-
-    def __dir__(self) -> list[str]:
-        return sorted(set(super().__dir__()) | set(self._columns))
 
     def __contains__(self, name: object) -> bool:
         return name in self._columns
@@ -143,7 +152,7 @@ class SequenceTable(Table):
         self.fits: list[dict[str, Any]] = []
 
 
-class Record(Mapping[str, Any]):
+class Record(_Named, Mapping[str, Any]):
     """One set of named values (``starpoise.probe``, ``starpoise.polytrope``): a read-only
     mapping whose keys are also attributes, named as the command line's JSON keys (units at
     the end of the name; see ``units``), with the metadata in ``meta``."""
@@ -158,6 +167,8 @@ class Record(Mapping[str, Any]):
         self.units: dict[str, str] = dict(units)
         self.meta: dict[str, Any] = dict(meta)
 
+    _entries = "_values"
+
     def __getitem__(self, key: str) -> Any:
         return self._values[key]
 
@@ -166,16 +177,6 @@ class Record(Mapping[str, Any]):
 
     def __len__(self) -> int:
         return len(self._values)
-
-    def __getattr__(self, name: str) -> Any:
-        if not name.startswith("_"):
-            values = self.__dict__.get("_values", {})
-            if name in values:
-                return values[name]
-        raise AttributeError(f"{type(self).__name__!r} object has no attribute or key {name!r}")
-
-    def __dir__(self) -> list[str]:
-        return sorted(set(super().__dir__()) | set(self._values))
 
     def to_dict(self) -> dict[str, Any]:
         """The values as a new dict (the command line's JSON object)."""

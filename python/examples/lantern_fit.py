@@ -8,7 +8,7 @@ L and T_eff with the observation (Gaussian errors); a model that does not conver
 impossible. No sampler library is needed: the chain is a plain random-walk Metropolis
 algorithm in (M, Z) with flat priors.
 
-    python python/examples/lantern_fit.py                # 2000 steps, about two minutes
+    python python/examples/lantern_fit.py                # 2000 steps, about a minute
     python python/examples/lantern_fit.py --steps 200    # a quick look
 
 The test suite runs a few steps (python/tests/test_example.py).

@@ -37,6 +37,8 @@ fn _native(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(polytrope::polytrope, m)?)?;
     m.add_function(wrap_pyfunction!(probe::probe, m)?)?;
     m.add_class::<star::Star>()?;
+    m.getattr("Star")?
+        .setattr("__doc__", star::Star::documentation())?;
     m.add_function(wrap_pyfunction!(errors::_check_boundary, m)?)?;
     Ok(())
 }

@@ -14,6 +14,16 @@ use starpoise::structure::{
 };
 use starpoise::{Error, Result};
 
+/// The first part of `Star.__doc__` (the rest lists the summary quantities).
+const STAR_DOC: &str = "A converged zero-age main-sequence model (made by starpoise.zams).
+
+Every key of `starpoise zams --format json` is an attribute, named as in the JSON (units in
+the names, see .units): mass_msun, x, y, z, physics (dict), converged, iterations,
+fit_mismatch, fit_mass_fraction, the summary quantities below (floats; central_degeneracy is
+NaN for a law without electron degeneracy) and rhs_evaluations. summary() gives them as the
+JSON's dict, profile(points=400) the profile as a Table, meta what made the model, history
+the Newton iterations.";
+
 /// Build a zero-age main-sequence model of the given mass.
 ///
 /// Parameters
@@ -135,6 +145,9 @@ pub fn zams(
     }
 }
 
+// The default of `Star.profile(points=400)` (written out so that help() shows it).
+const _: () = assert!(DEFAULT_PROFILE_POINTS == 400);
+
 /// The settings of one model, checked by the library (errors name its keys).
 #[allow(clippy::too_many_arguments)]
 fn settings(
@@ -175,12 +188,6 @@ fn settings(
 }
 
 /// A converged zero-age main-sequence model (made by ``starpoise.zams``).
-///
-/// Every key of ``starpoise zams --format json`` is an attribute, named as in the JSON (units
-/// in the names): ``mass_msun``, ``x``, ``y``, ``z``, ``physics`` (dict), ``converged``,
-/// ``iterations``, ``fit_mismatch``, ``fit_mass_fraction``, the summary quantities of
-/// ``starpoise.SUMMARY_FIELDS`` (floats; ``central_degeneracy`` is NaN for a law without
-/// electron degeneracy) and ``rhs_evaluations``.
 #[pyclass(frozen, module = "starpoise", name = "Star")]
 pub struct Star {
     model: ZamsModel,
@@ -189,6 +196,24 @@ pub struct Star {
 }
 
 impl Star {
+    /// The class documentation with every summary quantity listed from
+    /// `ModelSummary::FIELDS` (set on the class when the module is loaded).
+    pub fn documentation() -> String {
+        let mut doc = String::from(STAR_DOC);
+        doc.push_str("\n\nSummary quantities (floats, from the library's one list)\n");
+        doc.push_str("--------------------------------------------------------\n");
+        for f in ModelSummary::FIELDS {
+            let unit = starpoise::units::unit_of(f.key);
+            let unit = if unit.is_empty() {
+                String::new()
+            } else {
+                format!(" [{unit}]")
+            };
+            doc.push_str(&format!("{}{unit}\n    {}\n", f.key, f.doc));
+        }
+        doc
+    }
+
     fn new(py: Python<'_>, model: ZamsModel, call: String) -> PyResult<Self> {
         let summary = convert::to_py(py, &summary_json(&model))?
             .cast_into::<PyDict>()?
@@ -251,7 +276,7 @@ impl Star {
     /// ``pressure_dyn_cm2``, ``temperature_k``, ``density_g_cm3``, ``luminosity_erg_s``, ...),
     /// with ``.units`` and ``.meta``; ``.to_pandas()`` and ``.to_astropy()`` convert it.
     /// The computation releases the GIL.
-    #[pyo3(signature = (points=DEFAULT_PROFILE_POINTS as i64))]
+    #[pyo3(signature = (points=400))]
     fn profile<'py>(&self, py: Python<'py>, points: i64) -> PyResult<Bound<'py, PyAny>> {
         let model = &self.model;
         let rows = detached(py, || {

@@ -56,3 +56,15 @@ def test_help_reads_well():
     assert "Ctrl-C" in pydoc.plain(pydoc.render_doc(starpoise.sequence))
     assert "profile CSV" in pydoc.plain(pydoc.render_doc(starpoise.Star.profile))
     assert starpoise.__doc__ and "zams" in starpoise.__doc__
+
+
+def test_star_documents_every_summary_quantity_from_the_librarys_list():
+    doc = starpoise.Star.__doc__
+    for key, text, unit in starpoise.SUMMARY_FIELDS:
+        assert f"{key} [{unit}]" in doc if unit else f"\n{key}\n" in doc, key
+        assert text in doc, key
+    profile = next(n for n in _stub().body if isinstance(n, ast.ClassDef) and n.name == "Star")
+    stub_profile = next(n for n in profile.body
+                        if isinstance(n, ast.FunctionDef) and n.name == "profile")
+    default = ast.literal_eval(stub_profile.args.defaults[0])
+    assert inspect.signature(starpoise.Star.profile).parameters["points"].default == default == 400

@@ -133,7 +133,8 @@ fn two_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
     }
 }
 
-fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
+/// max_i |v_i|, infinite if any component is NaN.
+pub(crate) fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
     v.iter().fold(0.0f64, |a, x| {
         if x.is_nan() {
             f64::INFINITY

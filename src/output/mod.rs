@@ -3,7 +3,9 @@
 pub mod atomic;
 pub mod compare;
 pub mod format;
+pub mod limits;
 pub mod meta;
+pub mod modes;
 pub mod plot;
 pub mod polytrope;
 pub mod probe;

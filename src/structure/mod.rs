@@ -9,6 +9,7 @@ pub mod equations;
 pub mod error;
 pub mod guess;
 pub mod legs;
+pub mod limits;
 pub mod model;
 pub mod profile;
 pub mod shooting;
@@ -209,20 +210,35 @@ impl ZamsSettings {
     }
 
     pub(crate) fn context(&self) -> LegContext<'_> {
-        let m = self.mass_msun * M_SUN_G;
-        LegContext {
-            physics: &self.physics,
-            composition: &self.composition,
-            total_mass_g: m,
-            scales: Scales {
-                luminosity_erg_s: L_SUN_ERG_S,
-                energy_erg: G_CGS * m * m / R_SUN_CM,
-            },
-            // The starting tolerance of the iteration (or the finest asked, if coarser): a leg
-            // at 1e-8 costs hardly more than at 1e-7, and a good guess needs no finer one to
-            // take its first Newton step.
-            tolerance: self.tolerance.max(START_TOLERANCE),
-        }
+        // The starting tolerance of the iteration (or the finest asked, if coarser): a leg at
+        // 1e-8 costs hardly more than at 1e-7, and a good guess needs no finer one to take its
+        // first Newton step.
+        leg_context(
+            self.mass_msun,
+            &self.physics,
+            &self.composition,
+            self.tolerance.max(START_TOLERANCE),
+        )
+    }
+}
+
+/// The context of the legs of a star of `mass_msun` with these laws and composition.
+pub(crate) fn leg_context<'a>(
+    mass_msun: f64,
+    physics: &'a PhysicsSet,
+    composition: &'a Composition,
+    tolerance: f64,
+) -> LegContext<'a> {
+    let m = mass_msun * M_SUN_G;
+    LegContext {
+        physics,
+        composition,
+        total_mass_g: m,
+        scales: Scales {
+            luminosity_erg_s: L_SUN_ERG_S,
+            energy_erg: G_CGS * m * m / R_SUN_CM,
+        },
+        tolerance,
     }
 }
 

@@ -3,7 +3,9 @@
 
 use proptest::prelude::*;
 use starpoise::physics::convection::{Convection, ConvectionPoint, MixingLength};
-use starpoise::physics::eos::{DegenerateGas, EquationOfState, IdealGas, RefinedEos, SahaGas};
+use starpoise::physics::eos::{
+    DegenerateGas, EquationOfState, IdealGas, MolecularEos, RefinedEos, SahaGas,
+};
 use starpoise::physics::nuclear::{AnalyticRates, EnergyGeneration, PowerLawRates, SFactorRates};
 use starpoise::physics::opacity::{
     AnalyticOpacity, Conductive, ElectronScattering, HMinus, Kramers, Opacity, RefinedOpacity,
@@ -41,8 +43,14 @@ proptest! {
 
     #[test]
     fn eos_inside_domain(c in comp(), rho in log_uniform(1e-15, 1e5), t in log_uniform(1e3, 1e9)) {
-        let laws: [&dyn EquationOfState; 4] = [&IdealGas, &SahaGas, &DegenerateGas, &RefinedEos];
+        let laws: [&dyn EquationOfState; 5] =
+            [&IdealGas, &SahaGas, &DegenerateGas, &RefinedEos, &MolecularEos];
         for law in laws {
+            // `molecular` documents one region where it refuses (its Coulomb switch at strong
+            // coupling): dense matter between 2e5 and 2e6 K.
+            if law.name() == "molecular" && rho > 300.0 && (2e5..2e6).contains(&t) {
+                continue;
+            }
             if law.name() == "saha" && rho > 1e3 {
                 prop_assert!(law.state(rho, t, &c).is_err());
                 continue;

@@ -35,7 +35,7 @@ pub struct PhysicsFlags {
     /// Physics preset: analytic or refined [default: refined].
     #[arg(long, value_name = "SET")]
     pub physics: Option<String>,
-    /// Equation of state: ideal, saha, degenerate, refined.
+    /// Equation of state: ideal, saha, degenerate, refined, molecular.
     #[arg(long, value_name = "LAW")]
     pub eos: Option<String>,
     /// Opacity: electron-scattering, kramers[:guillotine=T], h-minus, conductive, analytic,

@@ -14,6 +14,18 @@ pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
     (h, dh_dt / width)
 }
 
+/// As [`switch_weight`], with the second derivative as well: (h, dh / dln(a/b),
+/// d^2h / dln(a/b)^2), for laws whose thermodynamic derivatives need the switch's curvature.
+pub fn switch_weight_curved(a: f64, b: f64, r0: f64) -> (f64, f64, f64) {
+    let lo = r0.ln();
+    let width = -2.0 * lo;
+    let t = (((a / b).ln() - lo) / width).clamp(0.0, 1.0);
+    let h = t * t * t * (10.0 + t * (6.0 * t - 15.0));
+    let dh_dt = 30.0 * t * t * (1.0 - t) * (1.0 - t);
+    let d2h_dt2 = 60.0 * t * (1.0 - t) * (1.0 - 2.0 * t);
+    (h, dh_dt / width, d2h_dt2 / (width * width))
+}
+
 /// A twice-differentiable max(a, b) of positive numbers: exactly the larger one unless they are
 /// within a factor 1/`r0` of each other, where it blends b (1 - h) + a h with
 /// [`switch_weight`]`(a, b, r0)`. Never below the true max by more than the blend allows
@@ -43,6 +55,12 @@ mod tests {
                 - switch_weight((ln_r - e).exp(), 1.0, 0.8).0)
                 / (2.0 * e);
             assert!((fd - dh).abs() < 1e-6, "{ln_r}: {fd} vs {dh}");
+            let (h2, dh2, d2h) = switch_weight_curved(ln_r.exp(), 1.0, 0.8);
+            assert_eq!((h2, dh2), switch_weight(ln_r.exp(), 1.0, 0.8));
+            let fd2 = (switch_weight((ln_r + e).exp(), 1.0, 0.8).1
+                - switch_weight((ln_r - e).exp(), 1.0, 0.8).1)
+                / (2.0 * e);
+            assert!((fd2 - d2h).abs() < 1e-5, "{ln_r}: {fd2} vs {d2h}");
         }
     }
 }

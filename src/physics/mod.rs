@@ -92,15 +92,15 @@ impl PhysicsSet {
         }
     }
 
-    /// The `refined` set (the default): Saha ionisation with degenerate electrons
-    /// ([`eos::RefinedEos`]), the combined opacity with H-minus and conduction
+    /// The `refined` set (the default): H2 dissociation, Saha ionisation, degenerate electrons
+    /// and the ions' Coulomb term ([`eos::MolecularEos`]), the combined opacity with H-minus and conduction
     /// ([`opacity::RefinedOpacity`]), S-factor rates with screening ([`nuclear::SFactorRates`]),
     /// mixing-length convection with alpha = 1.8 ([`convection::MixingLength`]) and the grey
     /// atmosphere.
     pub fn refined() -> Self {
         Self {
             preset: "refined".to_string(),
-            eos: Arc::new(eos::RefinedEos),
+            eos: Arc::new(eos::MolecularEos),
             opacity: Arc::new(opacity::RefinedOpacity::default()),
             rates: Arc::new(nuclear::SFactorRates::default()),
             convection: Arc::new(convection::MixingLength::default()),

@@ -3,7 +3,7 @@
 //!
 //! Names (the same for flags and model-file keys):
 //! - preset (`physics`): `analytic`, `refined` (default);
-//! - `eos`: `ideal`, `saha`, `degenerate`, `refined`;
+//! - `eos`: `ideal`, `saha`, `degenerate`, `refined`, `molecular`;
 //! - `opacity`: `electron-scattering`, `kramers[:guillotine=T]`, `h-minus`, `conductive`,
 //!   `analytic`, `refined[:guillotine=T0,exponent=Q]`, `table:PATH`, `table-clamped:PATH`;
 //! - `rates`: `analytic`, `sfactor`, `power-law:eps0=E,t0=T,nu=N`;
@@ -12,7 +12,7 @@
 //! - `atmosphere`: `photosphere`, `grey`.
 
 use super::convection::{Adiabatic, Convection, MixingLength};
-use super::eos::{DegenerateGas, EquationOfState, IdealGas, RefinedEos, SahaGas};
+use super::eos::{DegenerateGas, EquationOfState, IdealGas, MolecularEos, RefinedEos, SahaGas};
 use super::nuclear::{power_law, AnalyticRates, EnergyGeneration, PowerLawRates, SFactorRates};
 use super::opacity::{
     AnalyticOpacity, Conductive, ElectronScattering, HMinus, Kramers, Opacity, RefinedOpacity,
@@ -28,7 +28,7 @@ use std::sync::Arc;
 /// Allowed preset names.
 pub const PRESET_NAMES: &str = "allowed: analytic, refined";
 /// Allowed equation-of-state names.
-pub const EOS_NAMES: &str = "allowed: ideal, saha, degenerate, refined";
+pub const EOS_NAMES: &str = "allowed: ideal, saha, degenerate, refined, molecular";
 /// Allowed opacity names.
 pub const OPACITY_NAMES: &str = "allowed: electron-scattering, kramers[:guillotine=T], h-minus, conductive, analytic, refined[:guillotine=T0,exponent=Q], table:PATH, table-clamped:PATH";
 /// Allowed energy-generation names.
@@ -116,6 +116,7 @@ pub fn eos_by_name(spec: &str) -> Result<Arc<dyn EquationOfState>> {
         "saha" => Arc::new(SahaGas),
         "degenerate" => Arc::new(DegenerateGas),
         "refined" => Arc::new(RefinedEos),
+        "molecular" => Arc::new(MolecularEos),
         _ => return Err(Error::invalid("--eos", spec, EOS_NAMES)),
     })
 }

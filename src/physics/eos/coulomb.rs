@@ -1,0 +1,200 @@
+//! Coulomb (non-ideal) correction of the ions for the `molecular` equation of state.
+//!
+//! One-component plasma (OCP) of classical ions in a rigid (uniform) electron background, the
+//! liquid-phase fit of Potekhin & Chabrier (2000, PRE 62, 8554; docs/references.md §8.2):
+//! f = F / (N kT) = A1 [sqrt(G (A2 + G)) - A2 ln(sqrt(G/A2) + sqrt(1 + G/A2))]
+//!     + 2 A3 [sqrt(G) - arctan sqrt(G)] + B1 [G - B2 ln(1 + G/B2)] + (B3/2) ln(1 + G^2/B4),
+//! u = U / (N kT) = G df/dG, with A1 = -0.907347, A2 = 0.62849, A3 = -sqrt(3)/2 - A1/sqrt(A2),
+//! B1 = 0.0045, B2 = 170, B3 = -8.4e-5, B4 = 0.0037 (G = Gamma; the A3 term makes the
+//! Debye–Hückel limit f = -G^(3/2)/sqrt(3) exact). Mixtures by the linear mixing rule,
+//! F = kT sum_j N_j f(Gamma_j), Gamma_j = Z_j^(5/3) Gamma_e, Gamma_e = e^2 / (a_e kT),
+//! a_e = (3 / (4 pi n_e))^(1/3) (Chabrier & Potekhin 1998, PRE 58, 4941).
+//!
+//! How it enters the `molecular` law, and what is left out:
+//! - The ions are taken with their full charges (H+, He++, metals of charge 7) and n_e of the
+//!   fully ionised mixture, so F_C is an explicit function of (rho, T), and the coupling is
+//!   switched on with temperature: Gamma_e is replaced by S(T) Gamma_e, where S rises from 0 at
+//!   [`COULOMB_T_OFF_K`] to 1 at [`COULOMB_T_ON_K`] (twice differentiable,
+//!   [`crate::numerics::smooth`]). Since F is a function of (rho, T) alone, P, U and the entropy
+//!   derived from it are thermodynamically consistent with each other and with the ideal part, and
+//!   an adiabat maps the (ideal) photosphere onto the (fully coupled) interior correctly whatever
+//!   the switch does in between; inside the switch the coupling is reduced (as partial ionisation
+//!   reduces the ion charges) and its temperature dependence adds a term to c_V. Below the switch
+//!   (partially ionised layers, where the fully ionised OCP does not describe the plasma) the gas
+//!   is ideal apart from pressure ionisation. Scaling the coupling rather than the free energy
+//!   keeps c_V > 0 wherever S Gamma_e stays below about 1 in the switch, true of ZAMS stars
+//!   down to 0.07 M_sun (Gamma_e ~ 1.5 at 3e5 K in the envelope of a 0.08 M_sun star); elsewhere
+//!   (cold dense matter) the law reports an error rather than an unstable state.
+//! - No electron screening (electron–ion polarisation) and no exchange–correlation of the
+//!   electrons: exact for a rigid background (degenerate electrons); for non-degenerate
+//!   electrons the Debye–Hückel screening by electrons, left out, adds a comparable term.
+//! - Liquid at any Gamma (no crystallisation; the solid is stable above Gamma_j ~ 175, reached
+//!   only by metal ions at Gamma_e > 5.5, far above the Gamma_e < 1 of ZAMS stars).
+//!
+//! Pressure: P_C = n_ion kT u/3 >= -n_ion kT 0.3 Gamma: never negative in total wherever
+//! electrons or ions carry the pressure, since Gamma_e ~ 1 needs rho above 1 g/cm^3 at 1e5 K, where
+//! the electrons are degenerate (tested over the law's domain).
+
+use crate::constants::{E_ESU, K_B_ERG_K, M_U_G};
+use crate::numerics::smooth::switch_weight_curved;
+
+const A1: f64 = -0.907_347;
+const A2: f64 = 0.628_49;
+const B1: f64 = 0.0045;
+const B2: f64 = 170.0;
+const B3: f64 = -8.4e-5;
+const B4: f64 = 0.0037;
+
+/// A3 = -sqrt(3)/2 - A1/sqrt(A2), which makes the Debye–Hückel limit exact.
+fn a3() -> f64 {
+    -0.75f64.sqrt() - A1 / A2.sqrt()
+}
+
+/// Temperature below which the Coulomb term is off, K.
+pub const COULOMB_T_OFF_K: f64 = 2.0e5;
+/// Temperature above which the Coulomb term is fully on, K (H and He are ionised there at the
+/// densities of ZAMS stars; a wide switch keeps its temperature derivative small).
+pub const COULOMB_T_ON_K: f64 = 2.0e6;
+
+/// The OCP free energy per ion f(Gamma) = F / (N kT) (Potekhin & Chabrier 2000 liquid fit).
+pub fn ocp_free_energy(gamma: f64) -> f64 {
+    let g = gamma;
+    let s = g.sqrt();
+    A1 * ((g * (A2 + g)).sqrt() - A2 * ((g / A2).sqrt() + (1.0 + g / A2).sqrt()).ln())
+        + 2.0 * a3() * (s - s.atan())
+        + B1 * (g - B2 * (g / B2).ln_1p())
+        + 0.5 * B3 * (g * g / B4).ln_1p()
+}
+
+/// The OCP internal energy per ion u(Gamma) = U / (N kT) = Gamma df/dGamma, and du/dGamma.
+pub fn ocp_energy(gamma: f64) -> (f64, f64) {
+    let g = gamma;
+    let s = g.sqrt();
+    let a3 = a3();
+    let root = (A2 + g).sqrt();
+    let u =
+        g * s * (A1 / root + a3 / (1.0 + g)) + B1 * g * g / (B2 + g) + B3 * g * g / (B4 + g * g);
+    let du = A1 * (1.5 * s / root - 0.5 * g * s / (root * root * root))
+        + a3 * (1.5 * s / (1.0 + g) - g * s / ((1.0 + g) * (1.0 + g)))
+        + B1 * (2.0 * g / (B2 + g) - g * g / ((B2 + g) * (B2 + g)))
+        + B3 * 2.0 * g * B4 / ((B4 + g * g) * (B4 + g * g));
+    (u, du)
+}
+
+/// The Coulomb contribution at one (rho, T), per unit mass, with the derivatives the
+/// equation of state needs.
+#[derive(Debug, Clone, Copy, Default, PartialEq)]
+pub struct CoulombTerm {
+    /// Pressure P_C, dyn cm^-2.
+    pub pressure: f64,
+    /// (dP_C / dln rho)_T, dyn cm^-2.
+    pub dp_dln_rho: f64,
+    /// (dP_C / dln T)_rho, dyn cm^-2.
+    pub dp_dln_t: f64,
+    /// Specific internal energy U_C, erg g^-1.
+    pub energy: f64,
+    /// (dU_C / dln T)_rho, erg g^-1.
+    pub de_dln_t: f64,
+    /// Specific free energy F_C, erg g^-1.
+    pub free_energy: f64,
+    /// Electron coupling parameter Gamma_e of the fully ionised mixture.
+    pub gamma_e: f64,
+}
+
+/// Ion species for the mixture: (ions per m_u, charge Z).
+pub type IonSpecies = [(f64, f64); 3];
+
+/// The switched OCP term at density `rho` and temperature `t` for the fully ionised `ions`
+/// with `electrons_per_mu` electrons per m_u: F = kT sum_j N_j f(Z_j^(5/3) S(T) Gamma_e).
+///
+/// With g = d ln(S Gamma_e) / d ln T = dln S/dln T - 1 and Phi = sum nu_j f, Phi_1 = sum nu_j u,
+/// Phi_2 = sum nu_j Gamma du/dGamma (nu_j ions per m_u):
+/// P = (rho kT / m_u) Phi_1 / 3, U = -(kT / m_u) g Phi_1 per gram, and their derivatives follow.
+pub fn coulomb_term(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu: f64) -> CoulombTerm {
+    let (s, s1, s2) = switch_weight_curved(
+        t,
+        (COULOMB_T_OFF_K * COULOMB_T_ON_K).sqrt(),
+        (COULOMB_T_OFF_K / COULOMB_T_ON_K).sqrt(),
+    );
+    if s <= 1e-200 {
+        return CoulombTerm::default();
+    }
+    // sigma = dln S / dln T and its derivative.
+    let sigma = s1 / s;
+    let dsigma = s2 / s - sigma * sigma;
+    let g_t = sigma - 1.0;
+    let kt = K_B_ERG_K * t;
+    let n_e = rho / M_U_G * electrons_per_mu;
+    let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
+    let gamma_e = E_ESU * E_ESU / (a_e * kt);
+    let (mut phi, mut phi1, mut phi2) = (0.0, 0.0, 0.0);
+    for &(nu, z) in ions {
+        if nu <= 0.0 {
+            continue;
+        }
+        let g = z.powf(5.0 / 3.0) * s * gamma_e;
+        let (u, du) = ocp_energy(g);
+        phi += nu * ocp_free_energy(g);
+        phi1 += nu * u;
+        phi2 += nu * g * du;
+    }
+    let per_mass = kt / M_U_G;
+    CoulombTerm {
+        pressure: rho * per_mass * phi1 / 3.0,
+        dp_dln_rho: rho * per_mass * (phi1 / 3.0 + phi2 / 9.0),
+        dp_dln_t: rho * per_mass * (phi1 + g_t * phi2) / 3.0,
+        energy: -per_mass * g_t * phi1,
+        de_dln_t: per_mass * (-(g_t + dsigma) * phi1 - g_t * g_t * phi2),
+        free_energy: per_mass * phi,
+        gamma_e,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// u = Gamma df/dGamma and du/dGamma against central differences.
+    #[test]
+    fn energy_is_the_derivative_of_the_free_energy() {
+        for g in [1e-4, 0.01, 0.3, 1.0, 10.0, 100.0, 175.0] {
+            let e: f64 = 1e-5;
+            let fd = (ocp_free_energy(g * e.exp()) - ocp_free_energy(g * (-e).exp())) / (2.0 * e);
+            let (u, du) = ocp_energy(g);
+            // f is a difference of O(1) terms at small Gamma: 1e-10 absolute resolution.
+            assert!((fd - u).abs() < 1e-6 * u.abs() + 1e-10, "{g}: {fd} vs {u}");
+            let fd2 = (ocp_energy(g * (1.0 + e)).0 - ocp_energy(g * (1.0 - e)).0) / (2.0 * e * g);
+            assert!(
+                (fd2 - du).abs() < 1e-6 * du.abs().max(1e-6),
+                "{g}: {fd2} vs {du}"
+            );
+        }
+    }
+
+    /// The term's pressure and energy derivatives against central differences in (rho, T),
+    /// including the switch.
+    #[test]
+    fn term_derivatives_match_finite_differences() {
+        let ions: IonSpecies = [(0.7, 1.0), (0.07, 2.0), (0.00125, 7.0)];
+        let ne = 0.7 + 0.14 + 0.00875;
+        for (rho, t) in [(100.0, 1e7), (10.0, 8e5), (1.0, 4e5), (1e3, 3e6)] {
+            let c = coulomb_term(rho, t, &ions, ne);
+            let e: f64 = 1e-6;
+            let at = |r: f64, tt: f64| coulomb_term(r, tt, &ions, ne);
+            let dr = (at(rho * e.exp(), t).pressure - at(rho * (-e).exp(), t).pressure) / (2.0 * e);
+            let dt = (at(rho, t * e.exp()).pressure - at(rho, t * (-e).exp()).pressure) / (2.0 * e);
+            let de = (at(rho, t * e.exp()).energy - at(rho, t * (-e).exp()).energy) / (2.0 * e);
+            let scale = c.pressure.abs().max(1e-300);
+            assert!((dr - c.dp_dln_rho).abs() < 1e-5 * scale, "{rho} {t}");
+            assert!((dt - c.dp_dln_t).abs() < 1e-5 * scale, "{rho} {t}");
+            assert!((de - c.de_dln_t).abs() < 1e-5 * c.energy.abs().max(1e-300));
+            // P = rho^2 dF/drho and U = F - T dF/dT.
+            let df_r = (at(rho * e.exp(), t).free_energy - at(rho * (-e).exp(), t).free_energy)
+                / (2.0 * e);
+            let df_t = (at(rho, t * e.exp()).free_energy - at(rho, t * (-e).exp()).free_energy)
+                / (2.0 * e);
+            assert!((rho * df_r - c.pressure).abs() < 1e-5 * scale);
+            assert!((c.free_energy - df_t - c.energy).abs() < 1e-5 * c.energy.abs());
+        }
+    }
+}

@@ -58,7 +58,8 @@ pub struct PhysicsFlags {
     /// Factor multiplying the nuclear energy generation rate [default: 1].
     #[arg(long, value_name = "F")]
     pub rates_factor: Option<f64>,
-    /// Outer boundary: photosphere or grey [default: the preset's].
+    /// Outer boundary: photosphere, eddington (or grey), hopf, krishna-swamy [default: the
+    /// preset's].
     #[arg(long, value_name = "KIND")]
     pub atmosphere: Option<String>,
 }

@@ -2,6 +2,7 @@
 //! convection. One trait per kind of law, one type per law; a [`PhysicsSet`] bundles one law of
 //! each kind and is what the structure equations evaluate.
 
+pub mod atmosphere;
 pub mod composition;
 pub mod convection;
 pub mod eos;
@@ -22,23 +23,53 @@ pub use spec::PhysicsOptions;
 
 use serde::Serialize;
 
-/// How the outer boundary of a model is set.
+/// How the outer boundary of a model is set: the one-point closure, or a T(tau) relation
+/// ([`atmosphere`]) integrated in optical depth from tau ~ 0 to the photosphere (T = T_eff).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
 #[serde(rename_all = "kebab-case")]
 pub enum Atmosphere {
     /// T = T_eff and P = (2/3) G M / (R^2 kappa) at the photosphere (one-point Eddington closure).
     Photosphere,
-    /// Grey Eddington atmosphere T^4 = (3/4) T_eff^4 (tau + 2/3), integrated in optical depth from
-    /// tau ~ 0 to tau = 2/3 for the photospheric pressure.
+    /// Grey Eddington atmosphere T^4 = (3/4) T_eff^4 (tau + 2/3) ([`atmosphere::Eddington`]).
     Grey,
+    /// Exact grey atmosphere, Hopf's q(tau) ([`atmosphere::Hopf`]).
+    Hopf,
+    /// Empirical solar T(tau) of Krishna Swamy 1966 ([`atmosphere::KrishnaSwamy`]).
+    KrishnaSwamy,
 }
+
+/// Allowed atmosphere names (`grey` is accepted for `eddington`).
+pub const ATMOSPHERE_NAMES: &str = "allowed: photosphere, eddington (or grey), hopf, krishna-swamy";
 
 impl Atmosphere {
     /// Name as a user selects it.
     pub fn name(&self) -> &'static str {
         match self {
             Atmosphere::Photosphere => "photosphere",
-            Atmosphere::Grey => "grey",
+            Atmosphere::Grey => "eddington",
+            Atmosphere::Hopf => "hopf",
+            Atmosphere::KrishnaSwamy => "krishna-swamy",
+        }
+    }
+
+    /// The atmosphere called `name`, if any.
+    pub fn from_name(name: &str) -> Option<Self> {
+        Some(match name {
+            "photosphere" => Atmosphere::Photosphere,
+            "eddington" | "grey" => Atmosphere::Grey,
+            "hopf" => Atmosphere::Hopf,
+            "krishna-swamy" => Atmosphere::KrishnaSwamy,
+            _ => return None,
+        })
+    }
+
+    /// The T(tau) relation integrated for this boundary (none for the one-point closure).
+    pub fn relation(&self) -> Option<&'static dyn atmosphere::TauRelation> {
+        match self {
+            Atmosphere::Photosphere => None,
+            Atmosphere::Grey => Some(&atmosphere::Eddington),
+            Atmosphere::Hopf => Some(&atmosphere::Hopf),
+            Atmosphere::KrishnaSwamy => Some(&atmosphere::KrishnaSwamy),
         }
     }
 }

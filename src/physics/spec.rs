@@ -9,7 +9,7 @@
 //! - `rates`: `analytic`, `sfactor`, `power-law:eps0=E,t0=T,nu=N`;
 //! - `convection`: `adiabatic`, `mlt` (with `alpha`, default 1.8);
 //! - `opacity_factor`, `rates_factor`: positive multipliers (default 1);
-//! - `atmosphere`: `photosphere`, `grey`.
+//! - `atmosphere`: `photosphere`, `eddington` (or `grey`), `hopf`, `krishna-swamy`.
 
 use super::convection::{Adiabatic, Convection, MixingLength};
 use super::eos::{DegenerateGas, EquationOfState, IdealGas, MolecularEos, RefinedEos, SahaGas};
@@ -57,7 +57,7 @@ pub struct PhysicsOptions {
     pub opacity_factor: Option<f64>,
     /// Factor multiplying the energy generation rate (default 1).
     pub rates_factor: Option<f64>,
-    /// Outer boundary: `photosphere` or `grey`.
+    /// Outer boundary: `photosphere`, `eddington` (or `grey`), `hopf`, `krishna-swamy`.
     pub atmosphere: Option<String>,
 }
 
@@ -288,17 +288,8 @@ impl PhysicsOptions {
             }
         }
         if let Some(a) = &self.atmosphere {
-            set.atmosphere = match a.as_str() {
-                "photosphere" => Atmosphere::Photosphere,
-                "grey" => Atmosphere::Grey,
-                other => {
-                    return Err(Error::invalid(
-                        "--atmosphere",
-                        other,
-                        "allowed: photosphere, grey",
-                    ))
-                }
-            };
+            set.atmosphere = Atmosphere::from_name(a.trim())
+                .ok_or_else(|| Error::invalid("--atmosphere", a, super::ATMOSPHERE_NAMES))?;
         }
         Ok(set)
     }

@@ -1,13 +1,16 @@
 //! The outer boundary: photospheric pressure and temperature for a trial radius and luminosity.
 //!
-//! T_eff follows from L = 4 pi R^2 sigma T_eff^4. Two closures:
+//! T_eff follows from L = 4 pi R^2 sigma T_eff^4. Two kinds of closure:
 //! - [`Atmosphere::Photosphere`]: T = T_eff and P = (2/3) G M / (R^2 kappa) at the photosphere,
 //!   with rho from the equation of state (the one-point Eddington closure, e.g. Kippenhahn &
 //!   Weigert 1990, §11.2; literally as written, without a radiation-pressure term).
-//! - [`Atmosphere::Grey`]: the grey Eddington atmosphere T^4 = (3/4) T_eff^4 (tau + 2/3), with
-//!   hydrostatic equilibrium dP/dtau = g / kappa integrated from tau0 = 1e-6 to tau = 2/3. At
-//!   tau0 the total pressure is P_rad(tau0) + tau0 (g / kappa - F / c), since in this atmosphere
-//!   dP_rad/dtau = F/c with F = sigma T_eff^4, and P_gas vanishes at tau = 0.
+//! - A T(tau) relation T^4 = (3/4) T_eff^4 (tau + q(tau)) ([`crate::physics::atmosphere`]:
+//!   Eddington, Hopf, Krishna Swamy), with hydrostatic equilibrium dP/dtau = g / kappa integrated
+//!   (plane parallel, constant g) from tau0 = 1e-6 down to the fitting optical depth tau_ph where
+//!   T = T_eff (tau_ph + q(tau_ph) = 4/3). The interior begins there: the photosphere, where the
+//!   radius R is defined. At tau0 the total pressure is P_rad(tau0) + tau0 (g / kappa - F / c),
+//!   since dP_rad/dtau = F/c (1 + dq/dtau) with F = sigma T_eff^4 and P_gas vanishes at tau = 0
+//!   (the dq/dtau term, left out, changes P(tau0) by a fraction of order tau0 L/L_Edd).
 //!
 //! The mass above the photosphere, (P - P_rad(0)) 4 pi R^2 / g, starts the inward leg at
 //! D0 = 1 - m/M; it is about 1e-11 of M for the Sun.
@@ -17,6 +20,7 @@ use super::legs::LegContext;
 use crate::constants::{A_RAD_CGS, C_CM_S, G_CGS, SIGMA_SB_CGS};
 use crate::error::{Error, PhysicsError, Result};
 use crate::numerics::scalar::newton_1d;
+use crate::physics::atmosphere::TauRelation;
 use crate::physics::{Atmosphere, EosState};
 use ode_solvers::dop853::Dop853;
 use ode_solvers::dop_shared::OutputType;
@@ -24,9 +28,9 @@ use ode_solvers::{System, Vector2};
 use std::cell::{Cell, RefCell};
 use std::f64::consts::PI;
 
-/// Optical depth of the photosphere.
+/// Optical depth of the photosphere of the one-point closure.
 pub const PHOTOSPHERE_TAU: f64 = 2.0 / 3.0;
-/// Optical depth where the grey atmosphere integration starts.
+/// Optical depth where the T(tau) integration starts.
 pub const ATMOSPHERE_TOP_TAU: f64 = 1e-6;
 
 /// The start of the inward leg.
@@ -97,8 +101,9 @@ fn column_pressure(
         })
 }
 
-struct GreyAtmosphere<'a> {
+struct TauAtmosphere<'a> {
     ctx: LegContext<'a>,
+    relation: &'a dyn TauRelation,
     teff_k: f64,
     gravity: f64,
     error: RefCell<Option<PhysicsError>>,
@@ -106,13 +111,13 @@ struct GreyAtmosphere<'a> {
     last_eos: Cell<Option<EosState>>,
 }
 
-impl GreyAtmosphere<'_> {
+impl TauAtmosphere<'_> {
     fn temperature(&self, tau: f64) -> f64 {
-        (0.75 * self.teff_k.powi(4) * (tau + 2.0 / 3.0)).powf(0.25)
+        self.relation.temperature_k(self.teff_k, tau)
     }
 }
 
-impl System<f64, Vector2<f64>> for GreyAtmosphere<'_> {
+impl System<f64, Vector2<f64>> for TauAtmosphere<'_> {
     /// x = ln tau, y = (ln P, ln tau): dln P / dln tau = tau g / (kappa P). ln tau is carried as
     /// a state component because `Dop853` of ode_solvers 0.6.2 hands its twelfth stage the wrong
     /// abscissa (see [`super::equations::X_COPY`]).
@@ -151,10 +156,16 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
             let p = column_pressure(ctx, PHOTOSPHERE_TAU, teff, gravity, 0.0, 0.0)?;
             (p, p / gravity)
         }
-        Atmosphere::Grey => {
+        atmosphere => {
+            let relation = atmosphere.relation().ok_or_else(|| Error::Integration {
+                leg: "atmosphere",
+                mass_g: ctx.total_mass_g,
+                reason: "no T(tau) relation for this boundary".to_string(),
+            })?;
             let flux_over_c = SIGMA_SB_CGS * teff.powi(4) / C_CM_S;
-            let atmosphere = GreyAtmosphere {
+            let atmosphere = TauAtmosphere {
                 ctx: *ctx,
+                relation,
                 teff_k: teff,
                 gravity,
                 error: RefCell::new(None),
@@ -172,7 +183,7 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
             )?;
             let p_rad_zero = p_rad(0.0);
             let x0 = ATMOSPHERE_TOP_TAU.ln();
-            let x1 = PHOTOSPHERE_TAU.ln();
+            let x1 = relation.photosphere_tau().ln();
             let mut stepper = Dop853::new(
                 atmosphere,
                 x0,
@@ -194,7 +205,10 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
                     return Err(Error::Integration {
                         leg: "atmosphere",
                         mass_g: ctx.total_mass_g,
-                        reason: format!("grey atmosphere failed at T_eff = {teff:.1} K ({r:?})"),
+                        reason: format!(
+                            "{} atmosphere failed at T_eff = {teff:.1} K ({r:?})",
+                            relation.name()
+                        ),
                     })
                 }
             }

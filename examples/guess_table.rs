@@ -9,8 +9,8 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     let physics = PhysicsOptions::default().build()?;
     let comp = Composition::new(0.70, 0.02)?;
     let masses = [
-        0.08, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.5, 0.7, 1.0, 1.2, 1.35, 1.5, 1.7, 2.0, 3.0,
-        5.0, 7.0, 10.0, 15.0, 20.0, 30.0, 50.0, 70.0, 100.0, 150.0,
+        0.075, 0.08, 0.085, 0.09, 0.1, 0.12, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.5, 0.7, 1.0, 1.2,
+        1.35, 1.5, 1.7, 2.0, 3.0, 5.0, 7.0, 10.0, 15.0, 20.0, 30.0, 50.0, 70.0, 100.0, 150.0,
     ];
     // Continue downward and upward from 1 M_sun, each model starting from its neighbour.
     let start = masses

@@ -24,11 +24,11 @@ fn presets() {
     let d = opts().build().unwrap().describe();
     assert_eq!(d, PhysicsSet::refined().describe());
     assert_eq!(d.preset, "refined");
-    assert_eq!(d.eos, "refined");
+    assert_eq!(d.eos, "molecular");
     assert_eq!(d.opacity, "refined");
     assert_eq!(d.rates, "sfactor");
-    assert_eq!(d.convection, "mlt:alpha=1.8");
-    assert_eq!(d.atmosphere, "grey");
+    assert_eq!(d.convection, "mlt:alpha=2.4");
+    assert_eq!(d.atmosphere, "krishna-swamy");
     let a = PhysicsOptions {
         physics: Some("analytic".into()),
         ..opts()

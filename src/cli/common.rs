@@ -49,7 +49,7 @@ pub struct PhysicsFlags {
     /// Convection law: adiabatic or mlt.
     #[arg(long, value_name = "LAW")]
     pub convection: Option<String>,
-    /// Mixing-length parameter alpha for mlt [default: 1.8].
+    /// Mixing-length parameter alpha for mlt [default: 2.4].
     #[arg(long, value_name = "A")]
     pub alpha: Option<f64>,
     /// Factor multiplying the opacity [default: 1].

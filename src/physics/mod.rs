@@ -126,8 +126,8 @@ impl PhysicsSet {
     /// The `refined` set (the default): H2 dissociation, Saha ionisation, degenerate electrons
     /// and the ions' Coulomb term ([`eos::MolecularEos`]), the combined opacity with H-minus and conduction
     /// ([`opacity::RefinedOpacity`]), S-factor rates with screening ([`nuclear::SFactorRates`]),
-    /// mixing-length convection with alpha = 1.8 ([`convection::MixingLength`]) and the grey
-    /// atmosphere.
+    /// mixing-length convection with alpha = 2.4 ([`convection::MixingLength`]) and the
+    /// empirical T(tau) atmosphere of Krishna Swamy 1966 ([`atmosphere::KrishnaSwamy`]).
     pub fn refined() -> Self {
         Self {
             preset: "refined".to_string(),
@@ -135,7 +135,7 @@ impl PhysicsSet {
             opacity: Arc::new(opacity::RefinedOpacity::default()),
             rates: Arc::new(nuclear::SFactorRates::default()),
             convection: Arc::new(convection::MixingLength::default()),
-            atmosphere: Atmosphere::Grey,
+            atmosphere: Atmosphere::KrishnaSwamy,
         }
     }
 

@@ -7,7 +7,7 @@
 //! - `opacity`: `electron-scattering`, `kramers[:guillotine=T]`, `h-minus`, `conductive`,
 //!   `analytic`, `refined[:guillotine=T0,exponent=Q]`, `table:PATH`, `table-clamped:PATH`;
 //! - `rates`: `analytic`, `sfactor`, `power-law:eps0=E,t0=T,nu=N`;
-//! - `convection`: `adiabatic`, `mlt` (with `alpha`, default 1.8);
+//! - `convection`: `adiabatic`, `mlt` (with `alpha`, default 2.4);
 //! - `opacity_factor`, `rates_factor`: positive multipliers (default 1);
 //! - `atmosphere`: `photosphere`, `eddington` (or `grey`), `hopf`, `krishna-swamy`.
 

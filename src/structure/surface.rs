@@ -8,9 +8,12 @@
 //!   Eddington, Hopf, Krishna Swamy), with hydrostatic equilibrium dP/dtau = g / kappa integrated
 //!   (plane parallel, constant g) from tau0 = 1e-6 down to the fitting optical depth tau_ph where
 //!   T = T_eff (tau_ph + q(tau_ph) = 4/3). The interior begins there: the photosphere, where the
-//!   radius R is defined. At tau0 the total pressure is P_rad(tau0) + tau0 (g / kappa - F / c),
-//!   since dP_rad/dtau = F/c (1 + dq/dtau) with F = sigma T_eff^4 and P_gas vanishes at tau = 0
-//!   (the dq/dtau term, left out, changes P(tau0) by a fraction of order tau0 L/L_Edd).
+//!   radius R is defined. The gas pressure is integrated with the radiative force of the grey
+//!   flux, dP_gas/dtau = g/kappa - F/c (F = sigma T_eff^4), from P_gas(tau0) = tau0 (g/kappa -
+//!   F/c) (P_gas vanishes at tau = 0), and the equation of state is taken at
+//!   P = P_gas + a T(tau)^4 / 3; for the Eddington relation this is the same as integrating the
+//!   total pressure, since there d(a T^4/3)/dtau = F/c. (Integrating the total pressure with
+//!   q' > 0 would push the gas with a force (1 + q') F/c and fail near the Eddington limit.)
 //!
 //! The mass above the photosphere, (P - P_rad(0)) 4 pi R^2 / g, starts the inward leg at
 //! D0 = 1 - m/M; it is about 1e-11 of M for the Sun.
@@ -106,6 +109,8 @@ struct TauAtmosphere<'a> {
     relation: &'a dyn TauRelation,
     teff_k: f64,
     gravity: f64,
+    /// The radiative force per unit optical depth, F/c = sigma T_eff^4 / c.
+    flux_over_c: f64,
     error: RefCell<Option<PhysicsError>>,
     /// The previous equation-of-state result, to warm-start the next inversion.
     last_eos: Cell<Option<EosState>>,
@@ -118,14 +123,16 @@ impl TauAtmosphere<'_> {
 }
 
 impl System<f64, Vector2<f64>> for TauAtmosphere<'_> {
-    /// x = ln tau, y = (ln P, ln tau): dln P / dln tau = tau g / (kappa P). ln tau is carried as
-    /// a state component because `Dop853` of ode_solvers 0.6.2 hands its twelfth stage the wrong
-    /// abscissa (see [`super::equations::X_COPY`]).
+    /// x = ln tau, y = (ln P_gas, ln tau): dln P_gas / dln tau = tau (g / kappa - F/c) / P_gas,
+    /// the equation of state taken at P = P_gas + a T(tau)^4 / 3. ln tau is carried as a state
+    /// component because `Dop853` of ode_solvers 0.6.2 hands its twelfth stage the wrong abscissa
+    /// (see [`super::equations::X_COPY`]).
     fn system(&self, _x: f64, y: &Vector2<f64>, dy: &mut Vector2<f64>) {
         dy[1] = 1.0;
         let tau = y[1].exp();
-        let p = y[0].exp();
+        let p_gas = y[0].exp();
         let t = self.temperature(tau);
+        let p = p_gas + A_RAD_CGS * t.powi(4) / 3.0;
         let (physics, comp) = (self.ctx.physics, self.ctx.composition);
         let eos = match self.last_eos.get() {
             Some(near) => physics.eos.state_at_pressure_near(p, t, comp, &near),
@@ -136,7 +143,7 @@ impl System<f64, Vector2<f64>> for TauAtmosphere<'_> {
             physics.opacity.kappa(s.density_g_cm3, t, comp)
         });
         match kappa {
-            Ok(k) => dy[0] = tau * self.gravity / (k * p),
+            Ok(k) => dy[0] = tau * (self.gravity / k - self.flux_over_c) / p_gas,
             Err(e) => {
                 *self.error.borrow_mut() = Some(e);
                 dy[0] = 1e30;
@@ -168,6 +175,7 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
                 relation,
                 teff_k: teff,
                 gravity,
+                flux_over_c,
                 error: RefCell::new(None),
                 last_eos: Cell::new(None),
             };
@@ -181,15 +189,17 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
                 p_rad(ATMOSPHERE_TOP_TAU),
                 flux_over_c,
             )?;
-            let p_rad_zero = p_rad(0.0);
+            let p_gas_top = p_top - p_rad(ATMOSPHERE_TOP_TAU);
+            let tau_ph = relation.photosphere_tau();
+            let p_rad_ph = p_rad(tau_ph);
             let x0 = ATMOSPHERE_TOP_TAU.ln();
-            let x1 = relation.photosphere_tau().ln();
+            let x1 = tau_ph.ln();
             let mut stepper = Dop853::new(
                 atmosphere,
                 x0,
                 x1,
                 x1 - x0,
-                Vector2::new(p_top.ln(), x0),
+                Vector2::new(p_gas_top.ln(), x0),
                 ctx.tolerance,
                 ctx.tolerance,
             );
@@ -197,9 +207,10 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> Result<SurfaceStart> {
             let result = stepper.integrate();
             let end = stepper.y_out().last().map(|v| v[0]);
             match (result, end) {
-                (Ok(_), Some(ln_p)) if ln_p.is_finite() => {
-                    let p = ln_p.exp();
-                    (p, (p - p_rad_zero).max(0.0) / gravity)
+                (Ok(_), Some(ln_p_gas)) if ln_p_gas.is_finite() => {
+                    // Column mass: d P_gas = (g - kappa F/c) dm, so m g = P_gas + tau F/c.
+                    let p_gas = ln_p_gas.exp();
+                    (p_gas + p_rad_ph, (p_gas + tau_ph * flux_over_c) / gravity)
                 }
                 (r, _) => {
                     return Err(Error::Integration {

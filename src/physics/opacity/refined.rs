@@ -1,5 +1,6 @@
 //! `refined`: the default opacity, a smooth combination of the analytic laws and conduction.
 
+use super::bell_lin::{molecular_kappa, BELL_LIN_Z};
 use super::conductive::{combine, Conductive};
 use super::electron_scattering::ElectronScattering;
 use super::h_minus::HMinus;
@@ -7,6 +8,7 @@ use super::kramers::Kramers;
 use super::{check_point, Opacity};
 use crate::constants::{EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
 use crate::error::{Error, PhysicsError, Result};
+use crate::numerics::smooth::switch_weight;
 use crate::physics::composition::Composition;
 
 /// Default guillotine factor of the `refined` opacity at rho = 1 g/cm^3, t_0 in
@@ -30,6 +32,15 @@ pub const MOLECULAR_COEFFICIENT: f64 = 0.1;
 
 /// Metallicity floor of the H- term in the refined combination (hydrogen's own electrons).
 pub const H_MINUS_Z_FLOOR: f64 = 1e-4;
+
+/// The H- term is switched off below its fitted range (3000–6000 K, Hansen & Kawaler 1994):
+/// fully on above the second temperature, off below the first, K (molecules take over there).
+pub const H_MINUS_T_OFF_K: (f64, f64) = (2500.0, 3000.0);
+
+/// The molecular term of Bell & Lin (1994) is on below the first temperature and off above
+/// the second, K: it is the molecular regime of a fit whose next regime up is H-, which this
+/// opacity takes from Hansen & Kawaler instead.
+pub const MOLECULES_T_OFF_K: (f64, f64) = (4500.0, 5500.0);
 
 /// Smallest and largest temperature accepted, K.
 pub const REFINED_T_RANGE_K: (f64, f64) = (1.0e3, 1.0e10);
@@ -112,8 +123,21 @@ impl RefinedOpacity {
         let bf = 4.34e25 * comp.z() / self.guillotine_at(rho) * common;
         let kramers = ff + bf;
         // Floor Z in the H- term: hydrogen's own electrons keep some H- in metal-free gas.
-        let h_minus = HMinus::formula_with_z(rho, t, comp.z().max(H_MINUS_Z_FLOOR));
-        let absorption = combine(h_minus, kramers);
+        let h_minus = HMinus::formula_with_z(rho, t, comp.z().max(H_MINUS_Z_FLOOR))
+            * switch_weight(t, H_MINUS_T_OFF_K.0.sqrt() * H_MINUS_T_OFF_K.1.sqrt(), {
+                (H_MINUS_T_OFF_K.0 / H_MINUS_T_OFF_K.1).sqrt()
+            })
+            .0;
+        let molecules = molecular_kappa(rho, t)
+            * (comp.z() / BELL_LIN_Z)
+            * (1.0
+                - switch_weight(
+                    t,
+                    MOLECULES_T_OFF_K.0.sqrt() * MOLECULES_T_OFF_K.1.sqrt(),
+                    { (MOLECULES_T_OFF_K.0 / MOLECULES_T_OFF_K.1).sqrt() },
+                )
+                .0);
+        let absorption = combine(h_minus + molecules, kramers);
         hydrogen_ionised_fraction(rho, t, comp) * ElectronScattering::kappa_cm2_g(comp)
             + absorption
             + MOLECULAR_COEFFICIENT * comp.z()

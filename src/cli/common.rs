@@ -38,7 +38,7 @@ pub struct PhysicsFlags {
     /// Equation of state: ideal, saha, degenerate, refined, molecular.
     #[arg(long, value_name = "LAW")]
     pub eos: Option<String>,
-    /// Opacity: electron-scattering, kramers[:guillotine=T], h-minus, conductive, analytic,
+    /// Opacity: electron-scattering, kramers[:guillotine=T], h-minus, bell-lin, conductive, analytic,
     /// refined[:guillotine=T0,exponent=Q], table:PATH, table-clamped:PATH.
     #[arg(long, value_name = "LAW")]
     pub opacity: Option<String>,

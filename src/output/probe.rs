@@ -16,7 +16,8 @@
 use crate::constants::A_RAD_CGS;
 use crate::error::Result;
 use crate::physics::opacity::{
-    AnalyticOpacity, Conductive, ElectronScattering, HMinus, Kramers, Opacity, RefinedOpacity,
+    AnalyticOpacity, BellLin, Conductive, ElectronScattering, HMinus, Kramers, Opacity,
+    RefinedOpacity,
 };
 use crate::physics::{Composition, PhysicsDescription, PhysicsSet};
 use serde::Serialize;
@@ -108,10 +109,11 @@ impl ProbeReport {
         let s = set.eos.state(rho_g_cm3, temperature_k, comp)?;
         let kappa = set.opacity.kappa(rho_g_cm3, temperature_k, comp)?;
         let rate = set.rates.rate(rho_g_cm3, temperature_k, comp)?;
-        let laws: [&dyn Opacity; 6] = [
+        let laws: [&dyn Opacity; 7] = [
             &ElectronScattering,
             &Kramers::default(),
             &HMinus,
+            &BellLin,
             &Conductive,
             &AnalyticOpacity::default(),
             &RefinedOpacity::default(),

@@ -4,7 +4,7 @@
 //! Names (the same for flags and model-file keys):
 //! - preset (`physics`): `analytic`, `refined` (default);
 //! - `eos`: `ideal`, `saha`, `degenerate`, `refined`, `molecular`;
-//! - `opacity`: `electron-scattering`, `kramers[:guillotine=T]`, `h-minus`, `conductive`,
+//! - `opacity`: `electron-scattering`, `kramers[:guillotine=T]`, `h-minus`, `bell-lin`, `conductive`,
 //!   `analytic`, `refined[:guillotine=T0,exponent=Q]`, `table:PATH`, `table-clamped:PATH`;
 //! - `rates`: `analytic`, `sfactor`, `power-law:eps0=E,t0=T,nu=N`;
 //! - `convection`: `adiabatic`, `mlt` (with `alpha`, default 2.4);
@@ -15,8 +15,8 @@ use super::convection::{Adiabatic, Convection, MixingLength};
 use super::eos::{DegenerateGas, EquationOfState, IdealGas, MolecularEos, RefinedEos, SahaGas};
 use super::nuclear::{power_law, AnalyticRates, EnergyGeneration, PowerLawRates, SFactorRates};
 use super::opacity::{
-    AnalyticOpacity, Conductive, ElectronScattering, HMinus, Kramers, Opacity, RefinedOpacity,
-    TableOpacity,
+    AnalyticOpacity, BellLin, Conductive, ElectronScattering, HMinus, Kramers, Opacity,
+    RefinedOpacity, TableOpacity,
 };
 use super::scaled::Scaled;
 use super::{Atmosphere, PhysicsSet};
@@ -30,7 +30,7 @@ pub const PRESET_NAMES: &str = "allowed: analytic, refined";
 /// Allowed equation-of-state names.
 pub const EOS_NAMES: &str = "allowed: ideal, saha, degenerate, refined, molecular";
 /// Allowed opacity names.
-pub const OPACITY_NAMES: &str = "allowed: electron-scattering, kramers[:guillotine=T], h-minus, conductive, analytic, refined[:guillotine=T0,exponent=Q], table:PATH, table-clamped:PATH";
+pub const OPACITY_NAMES: &str = "allowed: electron-scattering, kramers[:guillotine=T], h-minus, bell-lin, conductive, analytic, refined[:guillotine=T0,exponent=Q], table:PATH, table-clamped:PATH";
 /// Allowed energy-generation names.
 pub const RATES_NAMES: &str = "allowed: analytic, sfactor, power-law:eps0=E,t0=T,nu=N";
 /// Allowed convection names.
@@ -133,6 +133,10 @@ pub fn opacity_by_name(spec: &str) -> Result<Arc<dyn Opacity>> {
         "h-minus" => {
             no_params(flag, spec, params, OPACITY_NAMES)?;
             Arc::new(HMinus)
+        }
+        "bell-lin" => {
+            no_params(flag, spec, params, OPACITY_NAMES)?;
+            Arc::new(BellLin)
         }
         "conductive" => {
             no_params(flag, spec, params, OPACITY_NAMES)?;

@@ -12,19 +12,19 @@
 //!
 //! How it enters the `molecular` law, and what is left out:
 //! - The ions are taken with their full charges (H+, He++, metals of charge 7) and n_e of the
-//!   fully ionised mixture, so F_C is an explicit function of (rho, T), and the coupling is
-//!   switched on with temperature: Gamma_e is replaced by S(T) Gamma_e, where S rises from 0 at
-//!   [`COULOMB_T_OFF_K`] to 1 at [`COULOMB_T_ON_K`] (twice differentiable,
-//!   [`crate::numerics::smooth`]). Since F is a function of (rho, T) alone, P, U and the entropy
-//!   derived from it are thermodynamically consistent with each other and with the ideal part, and
-//!   an adiabat maps the (ideal) photosphere onto the (fully coupled) interior correctly whatever
-//!   the switch does in between; inside the switch the coupling is reduced (as partial ionisation
-//!   reduces the ion charges) and its temperature dependence adds a term to c_V. Below the switch
+//!   fully ionised mixture, so F_C is an explicit function of (rho, T), multiplied by a switch
+//!   S(T) that rises from 0 at [`COULOMB_T_OFF_K`] to 1 at [`COULOMB_T_ON_K`] (twice
+//!   differentiable, [`crate::numerics::smooth`]): F = S(T) F_OCP(rho, T). Since F is a function
+//!   of (rho, T) alone, P, U and the entropy derived from it are thermodynamically consistent
+//!   with each other and with the ideal part, and an adiabat maps the (ideal) photosphere onto
+//!   the (fully coupled, S = 1) interior correctly whatever happens in between. Inside the switch
+//!   the term's temperature dependence adds -F_OCP dS/dln T to U and its derivative to c_V: an
+//!   artefact of switching, which raises nabla_ad above 0.4 where Gamma_e ~ 1–2 (up to 0.45 at
+//!   0.1 M_sun and 0.6 at 0.075 M_sun, between 2e5 and 2e6 K). The switch is wide so that this
+//!   stays small elsewhere, and ends below the centre of the lowest-mass stars (3e6 K). Below it
 //!   (partially ionised layers, where the fully ionised OCP does not describe the plasma) the gas
-//!   is ideal apart from pressure ionisation. Scaling the coupling rather than the free energy
-//!   keeps c_V > 0 wherever S Gamma_e stays below about 1 in the switch, true of ZAMS stars
-//!   down to 0.07 M_sun (Gamma_e ~ 1.5 at 3e5 K in the envelope of a 0.08 M_sun star); elsewhere
-//!   (cold dense matter) the law reports an error rather than an unstable state.
+//!   is ideal apart from pressure ionisation. A self-consistent treatment (the Coulomb term in the
+//!   ionisation balance) would remove the artefact.
 //! - No electron screening (electron–ion polarisation) and no exchange–correlation of the
 //!   electrons: exact for a rigid background (degenerate electrons); for non-degenerate
 //!   electrons the Debye–Hückel screening by electrons, left out, adds a comparable term.
@@ -50,11 +50,13 @@ fn a3() -> f64 {
     -0.75f64.sqrt() - A1 / A2.sqrt()
 }
 
-/// Temperature below which the Coulomb term is off, K.
-pub const COULOMB_T_OFF_K: f64 = 2.0e5;
-/// Temperature above which the Coulomb term is fully on, K (H and He are ionised there at the
-/// densities of ZAMS stars; a wide switch keeps its temperature derivative small).
-pub const COULOMB_T_ON_K: f64 = 2.0e6;
+/// Temperature below which the Coulomb term is off, K (hydrogen is ionised above it at the
+/// densities of ZAMS envelopes).
+pub const COULOMB_T_OFF_K: f64 = 1.0e5;
+/// Temperature above which the Coulomb term is fully on, K: below the central temperature of
+/// the lowest-mass stars (3e6 K at 0.075 M_sun), and far enough from [`COULOMB_T_OFF_K`] that the
+/// switch's own terms stay small.
+pub const COULOMB_T_ON_K: f64 = 2.5e6;
 
 /// The OCP free energy per ion f(Gamma) = F / (N kT) (Potekhin & Chabrier 2000 liquid fit).
 pub fn ocp_free_energy(gamma: f64) -> f64 {
@@ -105,24 +107,20 @@ pub struct CoulombTerm {
 pub type IonSpecies = [(f64, f64); 3];
 
 /// The switched OCP term at density `rho` and temperature `t` for the fully ionised `ions`
-/// with `electrons_per_mu` electrons per m_u: F = kT sum_j N_j f(Z_j^(5/3) S(T) Gamma_e).
+/// with `electrons_per_mu` electrons per m_u: F = S(T) kT sum_j N_j f(Z_j^(5/3) Gamma_e).
 ///
-/// With g = d ln(S Gamma_e) / d ln T = dln S/dln T - 1 and Phi = sum nu_j f, Phi_1 = sum nu_j u,
-/// Phi_2 = sum nu_j Gamma du/dGamma (nu_j ions per m_u):
-/// P = (rho kT / m_u) Phi_1 / 3, U = -(kT / m_u) g Phi_1 per gram, and their derivatives follow.
+/// With Phi = sum nu_j f, Phi_1 = sum nu_j u, Phi_2 = sum nu_j Gamma du/dGamma (nu_j ions per
+/// m_u) and S' = dS/dln T: P = S (rho kT / m_u) Phi_1 / 3, U = (kT / m_u)(S Phi_1 - S' Phi) per
+/// gram, and their derivatives follow (dGamma/dln rho = Gamma/3, dGamma/dln T = -Gamma).
 pub fn coulomb_term(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu: f64) -> CoulombTerm {
     let (s, s1, s2) = switch_weight_curved(
         t,
         (COULOMB_T_OFF_K * COULOMB_T_ON_K).sqrt(),
         (COULOMB_T_OFF_K / COULOMB_T_ON_K).sqrt(),
     );
-    if s <= 1e-200 {
+    if s <= 0.0 {
         return CoulombTerm::default();
     }
-    // sigma = dln S / dln T and its derivative.
-    let sigma = s1 / s;
-    let dsigma = s2 / s - sigma * sigma;
-    let g_t = sigma - 1.0;
     let kt = K_B_ERG_K * t;
     let n_e = rho / M_U_G * electrons_per_mu;
     let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
@@ -132,7 +130,7 @@ pub fn coulomb_term(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu: f64) 
         if nu <= 0.0 {
             continue;
         }
-        let g = z.powf(5.0 / 3.0) * s * gamma_e;
+        let g = z.powf(5.0 / 3.0) * gamma_e;
         let (u, du) = ocp_energy(g);
         phi += nu * ocp_free_energy(g);
         phi1 += nu * u;
@@ -140,12 +138,12 @@ pub fn coulomb_term(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu: f64) 
     }
     let per_mass = kt / M_U_G;
     CoulombTerm {
-        pressure: rho * per_mass * phi1 / 3.0,
-        dp_dln_rho: rho * per_mass * (phi1 / 3.0 + phi2 / 9.0),
-        dp_dln_t: rho * per_mass * (phi1 + g_t * phi2) / 3.0,
-        energy: -per_mass * g_t * phi1,
-        de_dln_t: per_mass * (-(g_t + dsigma) * phi1 - g_t * g_t * phi2),
-        free_energy: per_mass * phi,
+        pressure: rho * per_mass * s * phi1 / 3.0,
+        dp_dln_rho: rho * per_mass * s * (phi1 / 3.0 + phi2 / 9.0),
+        dp_dln_t: rho * per_mass * ((s + s1) * phi1 - s * phi2) / 3.0,
+        energy: per_mass * (s * phi1 - s1 * phi),
+        de_dln_t: per_mass * (s * phi1 - s1 * phi + 2.0 * s1 * phi1 - s * phi2 - s2 * phi),
+        free_energy: per_mass * s * phi,
         gamma_e,
     }
 }

@@ -41,7 +41,7 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 ///   the metals keep their electrons at 2000–6000 K, where the other laws ionise them fully
 ///   (about 1 per cent in mu).
 /// - **Coulomb**: the ions' one-component-plasma free energy of Potekhin & Chabrier (2000) by
-///   linear mixing, for the fully ionised plasma, switched on between 5e4 and 2e5 K
+///   linear mixing, for the fully ionised plasma, switched on between 1e5 and 2.5e6 K
 ///   ([`super::coulomb`]); it lowers P by about 1 per cent at the solar centre and 3–5 per cent in
 ///   the cores of 0.1–0.3 M_sun stars.
 ///
@@ -57,8 +57,9 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 ///
 /// Domain: 1e-15 <= rho <= 1e5 g/cm^3, 1e3 <= T <= 1e9 K (non-relativistic electrons; liquid
 /// ions, no electron screening or exchange; no H2+, H- or H3+ in the balance), except dense warm
-/// matter (rho above ~500 g/cm^3 between 2e5 and 2e6 K, far from any ZAMS star), where the
-/// Coulomb switch meets strong coupling and the law returns an error (c_V or chi_rho not
+/// matter between 1e5 and 2.5e6 K with Gamma_e above 1.2 (rho above ~250 g/cm^3 for pure helium,
+/// ~700 for X = 0.7, near 8e5 K; a 0.075 M_sun star reaches Gamma_e = 1.7 there), where the
+/// Coulomb switch meets strong coupling: there the law may return an error (c_V or chi_rho not
 /// positive) instead of an unstable state.
 #[derive(Debug, Clone, Copy, Default)]
 pub struct MolecularEos;

@@ -93,10 +93,9 @@ impl BellLin {
             H_SCATTERING.kappa(rho, t),
             CORNER,
         );
-        smooth_max(
-            smooth_min(cool, BOUND_FREE.kappa(rho, t)),
-            ELECTRON_SCATTERING,
-            CORNER,
+        smooth_min(
+            cool,
+            smooth_max(BOUND_FREE.kappa(rho, t), ELECTRON_SCATTERING, CORNER),
         )
     }
 }

@@ -124,24 +124,21 @@ impl RefinedOpacity {
         let kramers = ff + bf;
         // Floor Z in the H- term: hydrogen's own electrons keep some H- in metal-free gas.
         let h_minus = HMinus::formula_with_z(rho, t, comp.z().max(H_MINUS_Z_FLOOR))
-            * switch_weight(t, H_MINUS_T_OFF_K.0.sqrt() * H_MINUS_T_OFF_K.1.sqrt(), {
-                (H_MINUS_T_OFF_K.0 / H_MINUS_T_OFF_K.1).sqrt()
-            })
-            .0;
+            * temperature_switch(t, H_MINUS_T_OFF_K);
         let molecules = molecular_kappa(rho, t)
             * (comp.z() / BELL_LIN_Z)
-            * (1.0
-                - switch_weight(
-                    t,
-                    MOLECULES_T_OFF_K.0.sqrt() * MOLECULES_T_OFF_K.1.sqrt(),
-                    { (MOLECULES_T_OFF_K.0 / MOLECULES_T_OFF_K.1).sqrt() },
-                )
-                .0);
+            * (1.0 - temperature_switch(t, MOLECULES_T_OFF_K));
         let absorption = combine(h_minus + molecules, kramers);
         hydrogen_ionised_fraction(rho, t, comp) * ElectronScattering::kappa_cm2_g(comp)
             + absorption
             + MOLECULAR_COEFFICIENT * comp.z()
     }
+}
+
+/// Weight rising smoothly from 0 at `range.0` to 1 at `range.1` (K), twice differentiable
+/// ([`switch_weight`]).
+fn temperature_switch(t: f64, range: (f64, f64)) -> f64 {
+    switch_weight(t, (range.0 * range.1).sqrt(), (range.0 / range.1).sqrt()).0
 }
 
 /// Ionised fraction of hydrogen from the one-species Saha equation (Saha 1920), with

@@ -13,17 +13,17 @@
 //! How it enters the `molecular` law, and what is left out:
 //! - The ions are taken with their full charges (H+, He++, metals of charge 7) and n_e of the
 //!   fully ionised mixture, so F_C is an explicit function of (rho, T), multiplied by a switch
-//!   S(T) that rises from 0 at [`COULOMB_T_OFF_K`] to 1 at [`COULOMB_T_ON_K`] (twice
-//!   differentiable, [`crate::numerics::smooth`]): F = S(T) F_OCP(rho, T). Since F is a function
-//!   of (rho, T) alone, P, U and the entropy derived from it are thermodynamically consistent
-//!   with each other and with the ideal part, and an adiabat maps the (ideal) photosphere onto
-//!   the (fully coupled, S = 1) interior correctly whatever happens in between. Inside the switch
-//!   the term's temperature dependence adds -F_OCP dS/dln T to U and its derivative to c_V: an
-//!   artefact of switching, which raises nabla_ad above 0.4 where Gamma_e ~ 1–2 (up to 0.45 at
-//!   0.1 M_sun and 0.6 at 0.075 M_sun, between 2e5 and 2e6 K). The switch is wide so that this
-//!   stays small elsewhere, and ends below the centre of the lowest-mass stars (3e6 K). Below it
-//!   (partially ionised layers, where the fully ionised OCP does not describe the plasma) the gas
-//!   is ideal apart from pressure ionisation. A self-consistent treatment (the Coulomb term in the
+//!   S(T) that rises from 0 at [`COULOMB_T_OFF_K`] to 1 at [`COULOMB_T_ON_K`]:
+//!   F = S(T) F_OCP(rho, T). Since F is a function of (rho, T) alone, P, U and the entropy derived
+//!   from it are thermodynamically consistent with each other and with the ideal part, and an
+//!   adiabat maps the (ideal) photosphere onto the (fully coupled) interior correctly whatever
+//!   happens in between. The switch is off where hydrogen recombines, where the fully ionised
+//!   OCP does not describe the plasma, and fully on in the cores of all hydrogen-burning stars.
+//!   Its temperature dependence adds -F_OCP dS/dln T to U and its derivative to c_V: an artefact
+//!   of switching, which raises nabla_ad where Gamma_e ~ 1 in the switch (to about 0.45 in a
+//!   0.1 M_sun star and 0.6 at 0.075 M_sun, near 1e6 K; below 0.42 from 0.2 M_sun up). S is
+//!   infinitely differentiable (a switch whose higher derivatives jump leaves a kink in nabla_ad,
+//!   which costs the integrator accuracy). A self-consistent treatment (the Coulomb term in the
 //!   ionisation balance) would remove the artefact.
 //! - No electron screening (electron–ion polarisation) and no exchange–correlation of the
 //!   electrons: exact for a rigid background (degenerate electrons); for non-degenerate
@@ -50,8 +50,8 @@ fn a3() -> f64 {
     -0.75f64.sqrt() - A1 / A2.sqrt()
 }
 
-/// Temperature below which the Coulomb term is off, K (hydrogen is ionised above it at the
-/// densities of ZAMS envelopes).
+/// Temperature below which the Coulomb term is off, K (hydrogen recombines below it in ZAMS
+/// envelopes).
 pub const COULOMB_T_OFF_K: f64 = 1.0e5;
 /// Temperature above which the Coulomb term is fully on, K: below the central temperature of
 /// the lowest-mass stars (3e6 K at 0.075 M_sun), and far enough from [`COULOMB_T_OFF_K`] that the
@@ -97,14 +97,49 @@ pub struct CoulombTerm {
     pub energy: f64,
     /// (dU_C / dln T)_rho, erg g^-1.
     pub de_dln_t: f64,
-    /// Specific free energy F_C, erg g^-1.
-    pub free_energy: f64,
     /// Electron coupling parameter Gamma_e of the fully ionised mixture.
     pub gamma_e: f64,
 }
 
-/// Ion species for the mixture: (ions per m_u, charge Z).
+/// Ion species for the mixture: (ions per m_u, Z^(5/3) of the charge Z).
 pub type IonSpecies = [(f64, f64); 3];
+
+/// 2^(5/3), for He++.
+pub const Z53_HELIUM: f64 = 3.174_802_103_936_399;
+/// 7^(5/3), for the metal ions of charge 7.
+pub const Z53_METALS: f64 = 25.615_139_970_160_804;
+
+/// The switch S(T) with dS/dln T and d^2S/dln T^2: 0 below [`COULOMB_T_OFF_K`], 1 above
+/// [`COULOMB_T_ON_K`], infinitely differentiable in between
+/// ([`crate::numerics::smooth::switch_weight_curved`]), so that c_V and nabla_ad, which contain
+/// the second derivative of S, stay smooth (a switch whose higher derivatives jump leaves a kink
+/// in nabla_ad, which costs the integrator accuracy).
+fn switch(t: f64) -> (f64, f64, f64) {
+    switch_weight_curved(
+        t,
+        (COULOMB_T_OFF_K * COULOMB_T_ON_K).sqrt(),
+        (COULOMB_T_OFF_K / COULOMB_T_ON_K).sqrt(),
+    )
+}
+
+/// Gamma_e = e^2 / (a_e kT) for `electrons_per_mu` electrons per m_u at (rho, T).
+fn electron_coupling(rho: f64, t: f64, electrons_per_mu: f64) -> f64 {
+    let n_e = rho / M_U_G * electrons_per_mu;
+    let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
+    E_ESU * E_ESU / (a_e * K_B_ERG_K * t)
+}
+
+/// The switched specific free energy F_C = S(T) (kT / m_u) sum_j nu_j f(Z_j^(5/3) Gamma_e),
+/// erg g^-1 (what [`coulomb_term`] differentiates).
+pub fn coulomb_free_energy(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu: f64) -> f64 {
+    let gamma_e = electron_coupling(rho, t, electrons_per_mu);
+    let phi: f64 = ions
+        .iter()
+        .filter(|(nu, _)| *nu > 0.0)
+        .map(|&(nu, z53)| nu * ocp_free_energy(z53 * gamma_e))
+        .sum();
+    switch(t).0 * K_B_ERG_K * t / M_U_G * phi
+}
 
 /// The switched OCP term at density `rho` and temperature `t` for the fully ionised `ions`
 /// with `electrons_per_mu` electrons per m_u: F = S(T) kT sum_j N_j f(Z_j^(5/3) Gamma_e).
@@ -112,27 +147,34 @@ pub type IonSpecies = [(f64, f64); 3];
 /// With Phi = sum nu_j f, Phi_1 = sum nu_j u, Phi_2 = sum nu_j Gamma du/dGamma (nu_j ions per
 /// m_u) and S' = dS/dln T: P = S (rho kT / m_u) Phi_1 / 3, U = (kT / m_u)(S Phi_1 - S' Phi) per
 /// gram, and their derivatives follow (dGamma/dln rho = Gamma/3, dGamma/dln T = -Gamma).
-pub fn coulomb_term(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu: f64) -> CoulombTerm {
-    let (s, s1, s2) = switch_weight_curved(
-        t,
-        (COULOMB_T_OFF_K * COULOMB_T_ON_K).sqrt(),
-        (COULOMB_T_OFF_K / COULOMB_T_ON_K).sqrt(),
-    );
+///
+/// With `energy` false only the pressure and its derivatives are complete (U and dU/dln T are
+/// left at 0), which skips the logarithms of f: enough for the inversion rho(P, T).
+pub fn coulomb_term(
+    rho: f64,
+    t: f64,
+    ions: &IonSpecies,
+    electrons_per_mu: f64,
+    energy: bool,
+) -> CoulombTerm {
+    let (s, s1, s2) = switch(t);
     if s <= 0.0 {
         return CoulombTerm::default();
     }
     let kt = K_B_ERG_K * t;
-    let n_e = rho / M_U_G * electrons_per_mu;
-    let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
-    let gamma_e = E_ESU * E_ESU / (a_e * kt);
+    let gamma_e = electron_coupling(rho, t, electrons_per_mu);
+    // f itself (logarithms, arctangent) enters only through the switch's derivatives.
+    let inside = energy && s1 > 1e-300;
     let (mut phi, mut phi1, mut phi2) = (0.0, 0.0, 0.0);
-    for &(nu, z) in ions {
+    for &(nu, z53) in ions {
         if nu <= 0.0 {
             continue;
         }
-        let g = z.powf(5.0 / 3.0) * gamma_e;
+        let g = z53 * gamma_e;
         let (u, du) = ocp_energy(g);
-        phi += nu * ocp_free_energy(g);
+        if inside {
+            phi += nu * ocp_free_energy(g);
+        }
         phi1 += nu * u;
         phi2 += nu * g * du;
     }
@@ -141,9 +183,16 @@ pub fn coulomb_term(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu: f64) 
         pressure: rho * per_mass * s * phi1 / 3.0,
         dp_dln_rho: rho * per_mass * s * (phi1 / 3.0 + phi2 / 9.0),
         dp_dln_t: rho * per_mass * ((s + s1) * phi1 - s * phi2) / 3.0,
-        energy: per_mass * (s * phi1 - s1 * phi),
-        de_dln_t: per_mass * (s * phi1 - s1 * phi + 2.0 * s1 * phi1 - s * phi2 - s2 * phi),
-        free_energy: per_mass * s * phi,
+        energy: if energy {
+            per_mass * (s * phi1 - s1 * phi)
+        } else {
+            0.0
+        },
+        de_dln_t: if energy {
+            per_mass * (s * phi1 - s1 * phi + 2.0 * s1 * phi1 - s * phi2 - s2 * phi)
+        } else {
+            0.0
+        },
         gamma_e,
     }
 }
@@ -173,12 +222,12 @@ mod tests {
     /// including the switch.
     #[test]
     fn term_derivatives_match_finite_differences() {
-        let ions: IonSpecies = [(0.7, 1.0), (0.07, 2.0), (0.00125, 7.0)];
+        let ions: IonSpecies = [(0.7, 1.0), (0.07, Z53_HELIUM), (0.00125, Z53_METALS)];
         let ne = 0.7 + 0.14 + 0.00875;
         for (rho, t) in [(100.0, 1e7), (10.0, 8e5), (1.0, 4e5), (1e3, 3e6)] {
-            let c = coulomb_term(rho, t, &ions, ne);
+            let c = coulomb_term(rho, t, &ions, ne, true);
             let e: f64 = 1e-6;
-            let at = |r: f64, tt: f64| coulomb_term(r, tt, &ions, ne);
+            let at = |r: f64, tt: f64| coulomb_term(r, tt, &ions, ne, true);
             let dr = (at(rho * e.exp(), t).pressure - at(rho * (-e).exp(), t).pressure) / (2.0 * e);
             let dt = (at(rho, t * e.exp()).pressure - at(rho, t * (-e).exp()).pressure) / (2.0 * e);
             let de = (at(rho, t * e.exp()).energy - at(rho, t * (-e).exp()).energy) / (2.0 * e);
@@ -187,12 +236,11 @@ mod tests {
             assert!((dt - c.dp_dln_t).abs() < 1e-5 * scale, "{rho} {t}");
             assert!((de - c.de_dln_t).abs() < 1e-5 * c.energy.abs().max(1e-300));
             // P = rho^2 dF/drho and U = F - T dF/dT.
-            let df_r = (at(rho * e.exp(), t).free_energy - at(rho * (-e).exp(), t).free_energy)
-                / (2.0 * e);
-            let df_t = (at(rho, t * e.exp()).free_energy - at(rho, t * (-e).exp()).free_energy)
-                / (2.0 * e);
+            let f = |r: f64, tt: f64| coulomb_free_energy(r, tt, &ions, ne);
+            let df_r = (f(rho * e.exp(), t) - f(rho * (-e).exp(), t)) / (2.0 * e);
+            let df_t = (f(rho, t * e.exp()) - f(rho, t * (-e).exp())) / (2.0 * e);
             assert!((rho * df_r - c.pressure).abs() < 1e-5 * scale);
-            assert!((c.free_energy - df_t - c.energy).abs() < 1e-5 * c.energy.abs());
+            assert!((f(rho, t) - df_t - c.energy).abs() < 1e-5 * c.energy.abs());
         }
     }
 }

@@ -2,8 +2,7 @@
 //! hydrogen-burning limit up: the `refined` plasma plus H2 molecules, partly ionised metals and
 //! the Coulomb correction of the ions.
 
-use super::coulomb::COULOMB_T_ON_K;
-use super::h2::dissociation;
+use super::h2::Dissociation;
 use super::plasma::CHI_H_EV;
 use super::plasma::{plasma_law, Electrons, Grad, Ionisation, Plasma, StageInputs, Stages};
 use crate::constants::{EV_ERG, K_B_ERG_K, M_U_G};
@@ -57,10 +56,10 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 ///
 /// Domain: 1e-15 <= rho <= 1e5 g/cm^3, 1e3 <= T <= 1e9 K (non-relativistic electrons; liquid
 /// ions, no electron screening or exchange; no H2+, H- or H3+ in the balance), except dense warm
-/// matter between 1e5 and 2.5e6 K with Gamma_e above 1.2 (rho above ~250 g/cm^3 for pure helium,
-/// ~700 for X = 0.7, near 8e5 K; a 0.075 M_sun star reaches Gamma_e = 1.7 there), where the
-/// Coulomb switch meets strong coupling: there the law may return an error (c_V or chi_rho not
-/// positive) instead of an unstable state.
+/// matter between 1e5 and 2.5e6 K with Gamma_e above 1.1 for pure helium or 2.0 for X = 0.7 (rho
+/// above ~300 and ~1000 g/cm^3 near 1e6 K; a 0.075 M_sun star reaches Gamma_e = 1.7 there),
+/// where the Coulomb switch meets strong coupling: there the law may return an error (c_V or
+/// chi_rho not positive) instead of an unstable state.
 #[derive(Debug, Clone, Copy, Default)]
 pub struct MolecularEos;
 
@@ -88,9 +87,6 @@ impl MolecularEos {
     ) -> Result<f64, PhysicsError> {
         ENGINE.specific_energy(rho_g_cm3, temperature_k, comp)
     }
-
-    /// Temperature above which the ions' Coulomb term is fully on, K.
-    pub const COULOMB_FULL_K: f64 = COULOMB_T_ON_K;
 }
 
 /// The parts of [`StageInputs`] that only the molecular balance uses.
@@ -102,9 +98,11 @@ pub(super) struct MolecularInputs {
     dln_kappa: (f64, f64),
     /// Rotation–vibration energy minus D0 per molecule, erg, and its d/dln T.
     molecule_energy: (f64, f64),
-    /// Donor nuclei per m_u, and the donor's chi / kT.
+    /// Donor nuclei per m_u, the donor's chi / kT, and exp(-shift) for the shift
+    /// l_donor - l_H = ln 2 + ln(g ratio) + (chi_H - chi_d) / kT of the ln ratios.
     donors: f64,
     a_d: f64,
+    donor_factor: f64,
     /// Metal electrons per m_u bound like hydrogen's.
     hydrogenic_sites: f64,
     /// Metal nuclei per m_u.
@@ -112,17 +110,17 @@ pub(super) struct MolecularInputs {
 }
 
 impl MolecularInputs {
-    /// Inputs at (rho, T) for `z_ion` metal nuclei and `z_e` metal electrons per m_u, with the
-    /// occupation probabilities (ln w, d ln w / d ln rho) of H I and H2.
+    /// Inputs at (rho, T) with the H2 balance `d` at T, for (metal nuclei, metal electrons)
+    /// per m_u `metals`, and the occupation probabilities of H I and H2.
     pub(super) fn new(
         rho: f64,
         t: f64,
-        z_ion: f64,
-        z_e: f64,
+        d: &Dissociation,
+        metals: (f64, f64),
         w_h: (f64, f64),
         w_h2: (f64, f64),
     ) -> Self {
-        let d = dissociation(t);
+        let (z_ion, z_e) = metals;
         let kt = K_B_ERG_K * t;
         let d0 = super::h2::H2_DISSOCIATION_K * K_B_ERG_K;
         let donors = DONOR_FRACTION * z_ion;
@@ -135,15 +133,14 @@ impl MolecularInputs {
             ),
             donors,
             a_d: DONOR_CHI_EV * EV_ERG / kt,
+            donor_factor: (-(LN_DONOR_WEIGHT_RATIO
+                + std::f64::consts::LN_2
+                + (CHI_H_EV - DONOR_CHI_EV) * EV_ERG / kt))
+                .exp(),
             hydrogenic_sites: (z_e - donors).max(0.0),
             z_ion,
         }
     }
-}
-
-/// The logistic function 1 / (1 + e^-l), stable for any l.
-fn logistic(l: f64) -> f64 {
-    1.0 / (1.0 + (-l).exp())
 }
 
 impl StageInputs {
@@ -157,12 +154,26 @@ impl StageInputs {
         let m = &self.mol;
         let x = self.x;
         let (l_h, dl_h) = self.hydrogen_ratio(psi);
-        let sigma = logistic(l_h);
-        // ln(1 - sigma) = -ln(1 + e^l), stable.
-        let ln_neutral = -(l_h.max(0.0) + (-l_h.abs()).exp().ln_1p());
-        let beta = (2.0 * ln_neutral - m.ln_kappa).exp();
-        let x_at = 2.0 * x / (1.0 + (1.0 + 8.0 * beta * x).sqrt());
-        let slope = 2.0 * beta * x_at * x_at / (1.0 + 4.0 * beta * x_at);
+        // One exponential for hydrogen and the donors: e = exp(-l) (inf or 0 at the extremes,
+        // where the forms below take their limits), sigma = 1/(1 + e),
+        // ln(1 - sigma) = -ln(1 + 1/e).
+        let e = (-l_h).exp();
+        let sigma = 1.0 / (1.0 + e);
+        // Below beta = 1e-18, sqrt(1 + 8 beta X) rounds to 1: no molecules to this precision.
+        // ln(1 - sigma) <= -max(l, 0) bounds ln beta without a logarithm.
+        let negligible = |ln_beta: f64| ln_beta < -41.5;
+        let (x_at, slope) = if negligible(-2.0 * l_h.max(0.0) - m.ln_kappa) {
+            (x, 0.0)
+        } else {
+            let ln_beta = -2.0 * (1.0 / e).ln_1p() - m.ln_kappa;
+            if negligible(ln_beta) {
+                (x, 0.0)
+            } else {
+                let beta = ln_beta.exp();
+                let x_at = 2.0 * x / (1.0 + (1.0 + 8.0 * beta * x).sqrt());
+                (x_at, 2.0 * beta * x_at * x_at / (1.0 + 4.0 * beta * x_at))
+            }
+        };
         // d ln beta = -2 sigma dl - d ln kappa; dx_at = -slope d ln beta.
         let dxat = |dl: f64, dlnk: f64| -slope * (-2.0 * sigma * dl - dlnk);
         let d_x_at = Grad {
@@ -174,9 +185,8 @@ impl StageInputs {
         let x_p = x_at * sigma;
         let d_x_p = |dxa: f64, dl: f64| sigma * dxa + x_at * ds * dl;
         let x_2 = 0.5 * (x - x_at);
-        // Donors: ln(n+ / n0) = ln 2 - psi - chi_d / kT - ln w_H.
-        let l_d = LN_DONOR_WEIGHT_RATIO - psi - m.a_d - self.w_h.0;
-        let s_d = logistic(l_d);
+        // Donors: ln(n+ / n0) = ln 2 - psi - chi_d / kT - ln w_H = l_h + shift.
+        let s_d = 1.0 / (1.0 + e * m.donor_factor);
         let ds_d = s_d * (1.0 - s_d);
         let he = self.helium(psi);
         let chi_h = CHI_H_EV * EV_ERG;

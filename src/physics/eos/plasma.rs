@@ -46,8 +46,9 @@
 //! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho c_P / c_V
 //! (Kippenhahn & Weigert 1990, §13–14), evaluated in forms free of cancellation.
 
-use super::coulomb::{coulomb_term, CoulombTerm};
+use super::coulomb::{coulomb_term, CoulombTerm, Z53_HELIUM, Z53_METALS};
 use super::fermi_dirac::{inverse_guess, inverse_upper_bound, ln_fermi_dirac};
+use super::h2::{dissociation, Dissociation};
 use super::molecular::MolecularInputs;
 use super::EosState;
 use crate::constants::{A_RAD_CGS, EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
@@ -240,6 +241,44 @@ impl Plasma {
 
     /// Everything at (rho, T) that does not depend on psi.
     fn setup(&self, rho: f64, t: f64, comp: &Composition) -> Result<Setup, PhysicsError> {
+        self.setup_with(rho, t, comp, self.dissociation(t).as_ref())
+    }
+
+    /// The Coulomb term at (rho, T) if this law has one (zero otherwise); `energy` as in
+    /// [`coulomb_term`].
+    fn coulomb_at(&self, rho: f64, t: f64, comp: &Composition, energy: bool) -> CoulombTerm {
+        if !self.coulomb {
+            return CoulombTerm::default();
+        }
+        let z = comp.z();
+        let electrons = comp.x() + 0.5 * comp.y() + z * (0.5 - 1.0 / METAL_MEAN_MASS_NUMBER);
+        coulomb_term(
+            rho,
+            t,
+            &[
+                (comp.x(), 1.0),
+                (0.25 * comp.y(), Z53_HELIUM),
+                (z / METAL_MEAN_MASS_NUMBER, Z53_METALS),
+            ],
+            electrons,
+            energy,
+        )
+    }
+
+    /// The H2 balance at `t` if this law has molecules (it depends on T alone: an inversion at
+    /// fixed T computes it once).
+    fn dissociation(&self, t: f64) -> Option<Dissociation> {
+        (self.ionisation == Ionisation::Molecular).then(|| dissociation(t))
+    }
+
+    /// As [`Plasma::setup`], with the H2 balance at `t` given.
+    fn setup_with(
+        &self,
+        rho: f64,
+        t: f64,
+        comp: &Composition,
+        h2: Option<&Dissociation>,
+    ) -> Result<Setup, PhysicsError> {
         let kt = K_B_ERG_K * t;
         let x = comp.x();
         let y4 = 0.25 * comp.y();
@@ -270,28 +309,19 @@ impl Plasma {
             w_h,
             w_he1: occupation(pressure_volume(27.0 / 16.0) * n_nuc),
             w_he2: occupation(pressure_volume(2.0) * n_nuc),
-            mol: match self.ionisation {
-                Ionisation::Molecular => MolecularInputs::new(
+            mol: match h2 {
+                Some(d) => MolecularInputs::new(
                     rho,
                     t,
-                    z_ion,
-                    z_e,
+                    d,
+                    (z_ion, z_e),
                     w_h,
                     occupation(2.0 * pressure_volume(1.0) * n_nuc),
                 ),
-                _ => MolecularInputs::default(),
+                None => MolecularInputs::default(),
             },
         };
-        let coulomb = if self.coulomb {
-            coulomb_term(
-                rho,
-                t,
-                &[(x, 1.0), (y4, 2.0), (z_ion, z_e / z_ion.max(1e-300))],
-                n_e_max,
-            )
-        } else {
-            CoulombTerm::default()
-        };
+        let coulomb = self.coulomb_at(rho, t, comp, false);
         Ok(Setup {
             rho,
             t,
@@ -327,7 +357,7 @@ impl Plasma {
             .filter(|g| g.is_finite())
             .unwrap_or(setup.psi_full);
         let (psi, stages, el) = self.solve_neutrality(&setup, guess)?;
-        self.finish(&setup, psi, &stages, &el)
+        self.finish(&setup, comp, psi, &stages, &el)
     }
 
     /// Specific internal energy at (rho, T), erg g^-1, counted from neutral atoms at rest:
@@ -346,19 +376,21 @@ impl Plasma {
         Ok(1.5 * (p_ion + p_e) / rho
             + A_RAD_CGS * t.powi(4) / rho
             + stages.e_ion / M_U_G
-            + setup.coulomb.energy)
+            + self.coulomb_at(rho, t, comp, true).energy)
     }
 
     /// The full state at a solved psi, with the analytic derivatives.
     fn finish(
         &self,
         setup: &Setup,
+        comp: &Composition,
         psi: f64,
         stages: &Stages,
         el: &ElectronIntegrals,
     ) -> Result<Solved, PhysicsError> {
         let Setup { rho, t, kt, q, .. } = *setup;
-        let coul = &setup.coulomb;
+        // The inversion carried the Coulomb pressure only; the energy terms are added here.
+        let coul = &self.coulomb_at(rho, t, comp, true);
         // Implicit derivatives of psi from G = ln F_1/2 + ln q(T) - ln(rho/m_u) - ln N_e = 0.
         let dln_ne = Grad {
             psi: stages.d_n_e.psi / stages.n_e,
@@ -617,8 +649,11 @@ impl Plasma {
         let mut ln_rho = ln_rho_start;
         let mut psi: Option<f64> = psi_start;
         let mut at_edge = 0;
+        let h2 = self.dissociation(t);
         for _ in 0..40 {
-            let setup = self.setup(ln_rho.exp().clamp(rlo, rhi), t, comp).ok()?;
+            let setup = self
+                .setup_with(ln_rho.exp().clamp(rlo, rhi), t, comp, h2.as_ref())
+                .ok()?;
             let ps = psi.unwrap_or(setup.psi_full).min(setup.psi_max);
             let stages = self.stages(&setup.inputs, ps);
             let el = self.integrals(ps);
@@ -628,7 +663,10 @@ impl Plasma {
             let p_tot = p_e + p_ion + p_rad + setup.coulomb.pressure;
             let r1 = p_tot.ln() - ln_p;
             if r1.abs() < 1e-12 && r2.abs() < 1e-12 {
-                return self.finish(&setup, ps, &stages, &el).ok().map(|s| s.state);
+                return self
+                    .finish(&setup, comp, ps, &stages, &el)
+                    .ok()
+                    .map(|s| s.state);
             }
             let a11 = (p_ion * (1.0 + stages.d_n_p.ln_rho / stages.n_p) + setup.coulomb.dp_dln_rho)
                 / p_tot;

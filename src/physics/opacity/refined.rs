@@ -125,9 +125,12 @@ impl RefinedOpacity {
         // Floor Z in the H- term: hydrogen's own electrons keep some H- in metal-free gas.
         let h_minus = HMinus::formula_with_z(rho, t, comp.z().max(H_MINUS_Z_FLOOR))
             * temperature_switch(t, H_MINUS_T_OFF_K);
-        let molecules = molecular_kappa(rho, t)
-            * (comp.z() / BELL_LIN_Z)
-            * (1.0 - temperature_switch(t, MOLECULES_T_OFF_K));
+        let molecular_weight = 1.0 - temperature_switch(t, MOLECULES_T_OFF_K);
+        let molecules = if molecular_weight > 0.0 {
+            molecular_kappa(rho, t) * (comp.z() / BELL_LIN_Z) * molecular_weight
+        } else {
+            0.0
+        };
         let absorption = combine(h_minus + molecules, kramers);
         hydrogen_ionised_fraction(rho, t, comp) * ElectronScattering::kappa_cm2_g(comp)
             + absorption
@@ -138,7 +141,13 @@ impl RefinedOpacity {
 /// Weight rising smoothly from 0 at `range.0` to 1 at `range.1` (K), twice differentiable
 /// ([`switch_weight`]).
 fn temperature_switch(t: f64, range: (f64, f64)) -> f64 {
-    switch_weight(t, (range.0 * range.1).sqrt(), (range.0 / range.1).sqrt()).0
+    if t >= range.1 {
+        1.0
+    } else if t <= range.0 {
+        0.0
+    } else {
+        switch_weight(t, (range.0 * range.1).sqrt(), (range.0 / range.1).sqrt()).0
+    }
 }
 
 /// Ionised fraction of hydrogen from the one-species Saha equation (Saha 1920), with

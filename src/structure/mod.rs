@@ -250,6 +250,9 @@ pub enum ZamsOutcome {
     },
 }
 
+/// Luminosity factors of the restarts from the built-in guess when the first iteration fails.
+const RESTART_LUMINOSITY_FACTORS: [f64; 3] = [0.1, 0.3, 3.0];
+
 /// Solve for the ZAMS model; a model that did not converge is reported as such, with its history.
 pub fn solve_detailed(settings: &ZamsSettings) -> Result<ZamsOutcome> {
     let ctx = settings.context();
@@ -259,7 +262,22 @@ pub fn solve_detailed(settings: &ZamsSettings) -> Result<ZamsOutcome> {
     let mut problem =
         shooting::ShootingProblem::new(ctx, settings.fit_mass_fraction, settings.tolerance);
     let u0 = repaired_guess(&mut problem, u0);
-    let report = newton::solve(&mut problem, u0, &settings.newton);
+    let mut report = newton::solve(&mut problem, u0, &settings.newton);
+    // The built-in guess is a table of `refined` models: for other physics (the `analytic` set's
+    // stars are up to ten times fainter) the iteration can wander off from it. Then restart from
+    // the same guess with the luminosity scaled, once per factor, before reporting a failure.
+    if !report.converged && settings.guess.is_none() {
+        for l_factor in RESTART_LUMINOSITY_FACTORS {
+            let mut u = u0;
+            u[3] += l_factor.ln();
+            problem.ctx.tolerance = ctx.tolerance;
+            let retry = newton::solve(&mut problem, u, &settings.newton);
+            if retry.converged {
+                report = retry;
+                break;
+            }
+        }
+    }
     let evaluations = problem.monitor.evaluations.get();
     if !report.converged {
         return Ok(ZamsOutcome::NotConverged {

@@ -28,7 +28,7 @@ const ZAMS_SUN_L: &str = "ZAMS Sun L about 0.70 of today's (review of solar evol
 const ZAMS_SUN_INTERIOR: &str =
     "ZAMS Sun R about 0.87-0.89, T_c about 13.5 MK, rho_c about 75-90 (memory)";
 const TOUT: &str =
-    "Tout, Pols, Eggleton & Han 1996, MNRAS 281, 257, Z = 0.02 fit (coefficients: memory; the refined opacity was calibrated on it)";
+    "Tout, Pols, Eggleton & Han 1996, MNRAS 281, 257, Z = 0.02 fit (coefficients: memory; the refined opacity and the mixing length were calibrated on it)";
 
 /// The checks of this group.
 pub fn checks() -> Vec<Check> {

@@ -141,15 +141,79 @@ pub fn coulomb_free_energy(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu
     switch(t).0 * K_B_ERG_K * t / M_U_G * phi
 }
 
+/// The parts of the switched OCP term that depend on T alone: an inversion rho(P, T) computes
+/// them once.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct CoulombAtTemperature {
+    /// S, dS/dln T, d^2S/dln T^2.
+    switch: (f64, f64, f64),
+    /// kT / m_u, erg g^-1.
+    per_mass: f64,
+    /// Gamma_e / rho^(1/3).
+    gamma_coefficient: f64,
+}
+
+impl CoulombAtTemperature {
+    /// At temperature `t` for `electrons_per_mu` electrons per m_u; `None` where the switch is
+    /// off.
+    pub fn new(t: f64, electrons_per_mu: f64) -> Option<Self> {
+        let switch = switch(t);
+        (switch.0 > 0.0).then(|| Self {
+            switch,
+            per_mass: K_B_ERG_K * t / M_U_G,
+            gamma_coefficient: electron_coupling(1.0, t, electrons_per_mu),
+        })
+    }
+
+    /// The term at density `rho` for the fully ionised `ions`. With `energy` false only the
+    /// pressure and its derivatives are complete (U and dU/dln T are left at 0), which skips the
+    /// logarithms of f: enough for the inversion rho(P, T).
+    ///
+    /// With Phi = sum nu_j f, Phi_1 = sum nu_j u, Phi_2 = sum nu_j Gamma du/dGamma (nu_j ions
+    /// per m_u) and S' = dS/dln T: P = S (rho kT / m_u) Phi_1 / 3, U = (kT / m_u)(S Phi_1 -
+    /// S' Phi) per gram, and their derivatives follow (dGamma/dln rho = Gamma/3,
+    /// dGamma/dln T = -Gamma).
+    pub fn term(&self, rho: f64, ions: &IonSpecies, energy: bool) -> CoulombTerm {
+        let (s, s1, s2) = self.switch;
+        let gamma_e = self.gamma_coefficient * rho.cbrt();
+        // f itself (logarithms, arctangent) enters only through the switch's derivatives.
+        let inside = energy && s1 > 1e-300;
+        let (mut phi, mut phi1, mut phi2) = (0.0, 0.0, 0.0);
+        for &(nu, z53) in ions {
+            if nu <= 0.0 {
+                continue;
+            }
+            let g = z53 * gamma_e;
+            let (u, du) = ocp_energy(g);
+            if inside {
+                phi += nu * ocp_free_energy(g);
+            }
+            phi1 += nu * u;
+            phi2 += nu * g * du;
+        }
+        let per_mass = self.per_mass;
+        let (energy_term, de_term) = if energy {
+            (
+                per_mass * (s * phi1 - s1 * phi),
+                per_mass * (s * phi1 - s1 * phi + 2.0 * s1 * phi1 - s * phi2 - s2 * phi),
+            )
+        } else {
+            (0.0, 0.0)
+        };
+        CoulombTerm {
+            pressure: rho * per_mass * s * phi1 / 3.0,
+            dp_dln_rho: rho * per_mass * s * (phi1 / 3.0 + phi2 / 9.0),
+            dp_dln_t: rho * per_mass * ((s + s1) * phi1 - s * phi2) / 3.0,
+            energy: energy_term,
+            de_dln_t: de_term,
+            gamma_e,
+        }
+    }
+}
+
 /// The switched OCP term at density `rho` and temperature `t` for the fully ionised `ions`
-/// with `electrons_per_mu` electrons per m_u: F = S(T) kT sum_j N_j f(Z_j^(5/3) Gamma_e).
-///
-/// With Phi = sum nu_j f, Phi_1 = sum nu_j u, Phi_2 = sum nu_j Gamma du/dGamma (nu_j ions per
-/// m_u) and S' = dS/dln T: P = S (rho kT / m_u) Phi_1 / 3, U = (kT / m_u)(S Phi_1 - S' Phi) per
-/// gram, and their derivatives follow (dGamma/dln rho = Gamma/3, dGamma/dln T = -Gamma).
-///
-/// With `energy` false only the pressure and its derivatives are complete (U and dU/dln T are
-/// left at 0), which skips the logarithms of f: enough for the inversion rho(P, T).
+/// with `electrons_per_mu` electrons per m_u: F = S(T) kT sum_j N_j f(Z_j^(5/3) Gamma_e)
+/// ([`CoulombAtTemperature::term`]; zero where the switch is off).
 pub fn coulomb_term(
     rho: f64,
     t: f64,
@@ -157,44 +221,8 @@ pub fn coulomb_term(
     electrons_per_mu: f64,
     energy: bool,
 ) -> CoulombTerm {
-    let (s, s1, s2) = switch(t);
-    if s <= 0.0 {
-        return CoulombTerm::default();
-    }
-    let kt = K_B_ERG_K * t;
-    let gamma_e = electron_coupling(rho, t, electrons_per_mu);
-    // f itself (logarithms, arctangent) enters only through the switch's derivatives.
-    let inside = energy && s1 > 1e-300;
-    let (mut phi, mut phi1, mut phi2) = (0.0, 0.0, 0.0);
-    for &(nu, z53) in ions {
-        if nu <= 0.0 {
-            continue;
-        }
-        let g = z53 * gamma_e;
-        let (u, du) = ocp_energy(g);
-        if inside {
-            phi += nu * ocp_free_energy(g);
-        }
-        phi1 += nu * u;
-        phi2 += nu * g * du;
-    }
-    let per_mass = kt / M_U_G;
-    CoulombTerm {
-        pressure: rho * per_mass * s * phi1 / 3.0,
-        dp_dln_rho: rho * per_mass * s * (phi1 / 3.0 + phi2 / 9.0),
-        dp_dln_t: rho * per_mass * ((s + s1) * phi1 - s * phi2) / 3.0,
-        energy: if energy {
-            per_mass * (s * phi1 - s1 * phi)
-        } else {
-            0.0
-        },
-        de_dln_t: if energy {
-            per_mass * (s * phi1 - s1 * phi + 2.0 * s1 * phi1 - s * phi2 - s2 * phi)
-        } else {
-            0.0
-        },
-        gamma_e,
-    }
+    CoulombAtTemperature::new(t, electrons_per_mu)
+        .map_or_else(CoulombTerm::default, |c| c.term(rho, ions, energy))
 }
 
 #[cfg(test)]

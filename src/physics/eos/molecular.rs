@@ -2,10 +2,10 @@
 //! hydrogen-burning limit up: the `refined` plasma plus H2 molecules, partly ionised metals and
 //! the Coulomb correction of the ions.
 
-use super::h2::Dissociation;
+use super::h2::{dissociation, Dissociation};
 use super::plasma::CHI_H_EV;
 use super::plasma::{plasma_law, Electrons, Grad, Ionisation, Plasma, StageInputs, Stages};
-use crate::constants::{EV_ERG, K_B_ERG_K, M_U_G};
+use crate::constants::{EV_ERG, K_B_ERG_K};
 use crate::error::PhysicsError;
 use crate::physics::composition::Composition;
 
@@ -110,35 +110,58 @@ pub(super) struct MolecularInputs {
 }
 
 impl MolecularInputs {
-    /// Inputs at (rho, T) with the H2 balance `d` at T, for (metal nuclei, metal electrons)
-    /// per m_u `metals`, and the occupation probabilities of H I and H2.
+    /// Inputs at (rho, T) from the parts at T alone `at_t`, for (metal nuclei, metal electrons)
+    /// per m_u `metals`, ln(rho / m_u) `ln_n`, and the occupation probabilities (ln w,
+    /// d ln w / d ln rho) of H I and H2.
     pub(super) fn new(
-        rho: f64,
-        t: f64,
-        d: &Dissociation,
+        at_t: &MolecularAtTemperature,
         metals: (f64, f64),
+        ln_n: f64,
         w_h: (f64, f64),
         w_h2: (f64, f64),
     ) -> Self {
         let (z_ion, z_e) = metals;
-        let kt = K_B_ERG_K * t;
-        let d0 = super::h2::H2_DISSOCIATION_K * K_B_ERG_K;
+        let d = &at_t.dissociation;
         let donors = DONOR_FRACTION * z_ion;
         Self {
-            ln_kappa: d.ln_k_cm3 - (rho / M_U_G).ln() + 2.0 * w_h.0 - w_h2.0,
+            ln_kappa: d.ln_k_cm3 - ln_n + 2.0 * w_h.0 - w_h2.0,
             dln_kappa: (d.dln_k_dln_t, -1.0 + 2.0 * w_h.1 - w_h2.1),
+            molecule_energy: at_t.molecule_energy,
+            donors,
+            a_d: at_t.a_d,
+            donor_factor: at_t.donor_factor,
+            hydrogenic_sites: (z_e - donors).max(0.0),
+            z_ion,
+        }
+    }
+}
+
+/// The parts of [`MolecularInputs`] that depend on T alone (an inversion at fixed T computes
+/// them once).
+#[derive(Debug, Clone, Copy)]
+pub(super) struct MolecularAtTemperature {
+    dissociation: Dissociation,
+    molecule_energy: (f64, f64),
+    a_d: f64,
+    donor_factor: f64,
+}
+
+impl MolecularAtTemperature {
+    pub(super) fn new(t: f64) -> Self {
+        let d = dissociation(t);
+        let kt = K_B_ERG_K * t;
+        let d0 = super::h2::H2_DISSOCIATION_K * K_B_ERG_K;
+        Self {
+            dissociation: d,
             molecule_energy: (
                 kt * d.internal_energy_kt - d0,
                 kt * d.internal_heat_capacity_k,
             ),
-            donors,
             a_d: DONOR_CHI_EV * EV_ERG / kt,
             donor_factor: (-(LN_DONOR_WEIGHT_RATIO
                 + std::f64::consts::LN_2
                 + (CHI_H_EV - DONOR_CHI_EV) * EV_ERG / kt))
                 .exp(),
-            hydrogenic_sites: (z_e - donors).max(0.0),
-            z_ion,
         }
     }
 }

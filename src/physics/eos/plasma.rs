@@ -46,10 +46,9 @@
 //! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho c_P / c_V
 //! (Kippenhahn & Weigert 1990, §13–14), evaluated in forms free of cancellation.
 
-use super::coulomb::{coulomb_term, CoulombTerm, Z53_HELIUM, Z53_METALS};
+use super::coulomb::{CoulombAtTemperature, CoulombTerm, Z53_HELIUM, Z53_METALS};
 use super::fermi_dirac::{inverse_guess, inverse_upper_bound, ln_fermi_dirac};
-use super::h2::{dissociation, Dissociation};
-use super::molecular::MolecularInputs;
+use super::molecular::{MolecularAtTemperature, MolecularInputs};
 use super::EosState;
 use crate::constants::{A_RAD_CGS, EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
 use crate::error::PhysicsError;
@@ -127,8 +126,19 @@ struct Setup {
     psi_full: f64,
     psi_max: f64,
     inputs: StageInputs,
-    /// The Coulomb term (zero unless the law has it).
+    /// The Coulomb term (zero unless the law has it; pressure terms only).
     coulomb: CoulombTerm,
+    /// The parts that depend on T alone.
+    per_t: PerTemperature,
+}
+
+/// The parts of a [`Setup`] that depend on T alone.
+#[derive(Debug, Clone, Copy)]
+struct PerTemperature {
+    molecular: Option<MolecularAtTemperature>,
+    coulomb: Option<CoulombAtTemperature>,
+    /// ln q, n_e = q F_1/2(psi).
+    ln_q: f64,
 }
 
 /// Derivatives of one quantity with respect to (psi, ln T, ln rho).
@@ -241,43 +251,57 @@ impl Plasma {
 
     /// Everything at (rho, T) that does not depend on psi.
     fn setup(&self, rho: f64, t: f64, comp: &Composition) -> Result<Setup, PhysicsError> {
-        self.setup_with(rho, t, comp, self.dissociation(t).as_ref())
+        self.setup_with(rho, t, comp, &self.per_temperature(t, comp))
     }
 
-    /// The Coulomb term at (rho, T) if this law has one (zero otherwise); `energy` as in
-    /// [`coulomb_term`].
-    fn coulomb_at(&self, rho: f64, t: f64, comp: &Composition, energy: bool) -> CoulombTerm {
-        if !self.coulomb {
-            return CoulombTerm::default();
+    /// What this law computes from T alone (an inversion at fixed T does it once).
+    fn per_temperature(&self, t: f64, comp: &Composition) -> PerTemperature {
+        PerTemperature {
+            molecular: (self.ionisation == Ionisation::Molecular)
+                .then(|| MolecularAtTemperature::new(t)),
+            ln_q: (Self::electron_density_coefficient() * t * t.sqrt()).ln(),
+            coulomb: if self.coulomb {
+                CoulombAtTemperature::new(t, Self::electrons_fully_ionised(comp))
+            } else {
+                None
+            },
         }
-        let z = comp.z();
-        let electrons = comp.x() + 0.5 * comp.y() + z * (0.5 - 1.0 / METAL_MEAN_MASS_NUMBER);
-        coulomb_term(
-            rho,
-            t,
-            &[
-                (comp.x(), 1.0),
-                (0.25 * comp.y(), Z53_HELIUM),
-                (z / METAL_MEAN_MASS_NUMBER, Z53_METALS),
-            ],
-            electrons,
-            energy,
-        )
     }
 
-    /// The H2 balance at `t` if this law has molecules (it depends on T alone: an inversion at
-    /// fixed T computes it once).
-    fn dissociation(&self, t: f64) -> Option<Dissociation> {
-        (self.ionisation == Ionisation::Molecular).then(|| dissociation(t))
+    /// c_n in n_e = c_n T^(3/2) F_1/2(psi): (4 / sqrt(pi)) (2 pi m_e k / h^2)^(3/2), cgs.
+    fn electron_density_coefficient() -> f64 {
+        let thermal = 2.0 * std::f64::consts::PI * M_E_G * K_B_ERG_K / (H_ERG_S * H_ERG_S);
+        4.0 / SQRT_PI * thermal * thermal.sqrt()
     }
 
-    /// As [`Plasma::setup`], with the H2 balance at `t` given.
+    /// Electrons per m_u of the fully ionised mixture, X + Y/2 + Z (1/2 - 1/16).
+    fn electrons_fully_ionised(comp: &Composition) -> f64 {
+        comp.x() + 0.5 * comp.y() + comp.z() * (0.5 - 1.0 / METAL_MEAN_MASS_NUMBER)
+    }
+
+    /// The Coulomb term at `rho` from its temperature parts `at_t` (zero if the law has none or
+    /// the switch is off); `energy` as in [`CoulombAtTemperature::term`].
+    fn coulomb_at(
+        rho: f64,
+        comp: &Composition,
+        at_t: Option<&CoulombAtTemperature>,
+        energy: bool,
+    ) -> CoulombTerm {
+        let ions = [
+            (comp.x(), 1.0),
+            (0.25 * comp.y(), Z53_HELIUM),
+            (comp.z() / METAL_MEAN_MASS_NUMBER, Z53_METALS),
+        ];
+        at_t.map_or_else(CoulombTerm::default, |c| c.term(rho, &ions, energy))
+    }
+
+    /// As [`Plasma::setup`], with the parts that depend on T alone given.
     fn setup_with(
         &self,
         rho: f64,
         t: f64,
         comp: &Composition,
-        h2: Option<&Dissociation>,
+        per_t: &PerTemperature,
     ) -> Result<Setup, PhysicsError> {
         let kt = K_B_ERG_K * t;
         let x = comp.x();
@@ -287,17 +311,15 @@ impl Plasma {
         let n_ion = x + y4 + z_ion;
         let n_e_max = x + 2.0 * y4 + z_e;
         let n_nuc = rho / M_U_G * n_ion;
-        // n_e = c_n T^(3/2) F_1/2(psi), c_n = (4 / sqrt(pi)) (2 pi m_e k / h^2)^(3/2).
-        let thermal = 2.0 * std::f64::consts::PI * M_E_G * K_B_ERG_K / (H_ERG_S * H_ERG_S);
-        let c_n = 4.0 / SQRT_PI * thermal * thermal.sqrt();
-        let q = c_n * t * t.sqrt();
-        // ln q - ln(rho / m_u), one logarithm.
-        let ln_q_over_n = (q * M_U_G / rho).ln();
+        let q = Self::electron_density_coefficient() * t * t.sqrt();
+        let ln_n = (rho / M_U_G).ln();
+        let ln_q_over_n = per_t.ln_q - ln_n;
         // Fully ionised electron density: bounds the psi bracket from above.
         let (psi_full, psi_max) = self
             .psi_start((rho / M_U_G * n_e_max / q).max(f64::MIN_POSITIVE))
             .ok_or_else(|| self.error("electron density not representable", rho, t))?;
-        let w_h = occupation(pressure_volume(1.0) * n_nuc);
+        let s_h = pressure_volume(1.0) * n_nuc;
+        let w_h = occupation(s_h);
         let inputs = StageInputs {
             x,
             y4,
@@ -309,19 +331,14 @@ impl Plasma {
             w_h,
             w_he1: occupation(pressure_volume(27.0 / 16.0) * n_nuc),
             w_he2: occupation(pressure_volume(2.0) * n_nuc),
-            mol: match h2 {
-                Some(d) => MolecularInputs::new(
-                    rho,
-                    t,
-                    d,
-                    (z_ion, z_e),
-                    w_h,
-                    occupation(2.0 * pressure_volume(1.0) * n_nuc),
-                ),
+            mol: match &per_t.molecular {
+                Some(at_t) => {
+                    MolecularInputs::new(at_t, (z_ion, z_e), ln_n, w_h, occupation(2.0 * s_h))
+                }
                 None => MolecularInputs::default(),
             },
         };
-        let coulomb = self.coulomb_at(rho, t, comp, false);
+        let coulomb = Self::coulomb_at(rho, comp, per_t.coulomb.as_ref(), false);
         Ok(Setup {
             rho,
             t,
@@ -332,6 +349,7 @@ impl Plasma {
             psi_max,
             inputs,
             coulomb,
+            per_t: *per_t,
         })
     }
 
@@ -376,7 +394,7 @@ impl Plasma {
         Ok(1.5 * (p_ion + p_e) / rho
             + A_RAD_CGS * t.powi(4) / rho
             + stages.e_ion / M_U_G
-            + self.coulomb_at(rho, t, comp, true).energy)
+            + Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true).energy)
     }
 
     /// The full state at a solved psi, with the analytic derivatives.
@@ -390,7 +408,7 @@ impl Plasma {
     ) -> Result<Solved, PhysicsError> {
         let Setup { rho, t, kt, q, .. } = *setup;
         // The inversion carried the Coulomb pressure only; the energy terms are added here.
-        let coul = &self.coulomb_at(rho, t, comp, true);
+        let coul = &Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true);
         // Implicit derivatives of psi from G = ln F_1/2 + ln q(T) - ln(rho/m_u) - ln N_e = 0.
         let dln_ne = Grad {
             psi: stages.d_n_e.psi / stages.n_e,
@@ -649,10 +667,10 @@ impl Plasma {
         let mut ln_rho = ln_rho_start;
         let mut psi: Option<f64> = psi_start;
         let mut at_edge = 0;
-        let h2 = self.dissociation(t);
+        let per_t = self.per_temperature(t, comp);
         for _ in 0..40 {
             let setup = self
-                .setup_with(ln_rho.exp().clamp(rlo, rhi), t, comp, h2.as_ref())
+                .setup_with(ln_rho.exp().clamp(rlo, rhi), t, comp, &per_t)
                 .ok()?;
             let ps = psi.unwrap_or(setup.psi_full).min(setup.psi_max);
             let stages = self.stages(&setup.inputs, ps);

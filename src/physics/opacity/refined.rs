@@ -18,9 +18,12 @@ pub const DEFAULT_GUILLOTINE: f64 = 3.0;
 /// Default density exponent q of the guillotine factor t = max(1, t_0 rho^q).
 ///
 /// A calibration: (t_0, q) = (3, 0.5) was chosen from a scan of t_0 in 2–10 and q in 0.3–0.5 so
-/// that `refined` ZAMS models at X = 0.70, Z = 0.02 (mlt, alpha = 1.8) follow the ZAMS fits of
-/// Tout, Pols, Eggleton & Han (1996, MNRAS 281, 257) over 0.5–50 M_sun: luminosity within 0.12
-/// dex and radius within 0.083 dex (`cargo run --release --example tout_comparison`). Kramers
+/// that `refined` ZAMS models at X = 0.70, Z = 0.02 (then: `refined` equation of state, grey
+/// atmosphere, mlt with alpha = 1.8) follow the ZAMS fits of Tout, Pols, Eggleton & Han (1996,
+/// MNRAS 281, 257) over 0.5–50 M_sun: luminosity within 0.12 dex and radius within 0.083 dex
+/// (`cargo run --release --example tout_comparison`). Kept with the present `refined` set
+/// (`molecular` equation of state, Krishna Swamy atmosphere, alpha = 2.4, itself calibrated on
+/// the 1 M_sun radius of the same fits): within 0.082 and 0.083 dex over 0.5–50 M_sun. Kramers
 /// bound–free absorption with a guillotine factor that grows with density mimics the lower
 /// tabulated Rosseland means of the deep interior (t = 1 below rho = 0.11 g/cm^3, t ~ 37 at the
 /// solar centre).

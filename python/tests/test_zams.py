@@ -28,9 +28,9 @@ CASES = [
          "--max-iterations", "80"],
     ),
     (
-        dict(mass=2.0, physics="analytic", opacity=f"table:{TABLE}", atmosphere="grey"),
+        dict(mass=2.0, physics="analytic", opacity=f"table:{TABLE}", atmosphere="eddington"),
         ["--mass", "2", "--physics", "analytic", "--opacity", f"table:{TABLE}",
-         "--atmosphere", "grey"],
+         "--atmosphere", "eddington"],
     ),
     (
         dict(mass=1.02, x=0.68, z=0.03, guess=(1.6e17, 1.35e7, 0.95, 0.8)),

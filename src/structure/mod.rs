@@ -79,6 +79,23 @@ impl ZamsSettings {
                 "a zero-age main-sequence star burns hydrogen: X must be above 0, e.g. 0.70",
             ));
         }
+        if *physics.spec() == crate::physics::Preset::Refined.spec() {
+            if let Some(limit) =
+                limits::tabulated_refined_limit_msun(composition.x(), composition.z())
+            {
+                if mass_msun < limit * (1.0 - limits::TABLE_MARGIN) {
+                    return Err(Error::invalid(
+                        "mass_msun",
+                        mass_msun,
+                        &format!(
+                            "no hydrogen-burning star of this mass exists for X = {}, Z = {}: the hydrogen-burning minimum mass of the refined physics is {limit:.4} M_sun there (built-in table; `starpoise limits` computes it, also for other laws)",
+                            composition.x(),
+                            composition.z()
+                        ),
+                    ));
+                }
+            }
+        }
         let preset = physics.spec().preset;
         if let Some(min) = preset.minimum_mass_msun() {
             if mass_msun < min {

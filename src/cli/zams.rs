@@ -158,6 +158,9 @@ pub fn run(args: ZamsArgs) -> Result<()> {
             starpoise::output::plot::profile_plot(path, &rows, &title, abscissa)?;
         }
     }
+    for w in &model.warnings {
+        eprintln!("starpoise: warning: {w}");
+    }
     match args.format {
         Format::Json => println!("{}", to_json_text(&summary_json(&model))?),
         Format::Text => print!("{}", text_summary(&model)),

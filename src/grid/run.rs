@@ -77,6 +77,20 @@ pub fn solve_points(
     run: &RunSettings,
     tick: &(dyn Fn() + Sync),
 ) -> Result<Vec<PointResult>> {
+    Ok(solve_points_until(grid, points, run, tick, &|| false)?.unwrap_or_default())
+}
+
+/// [`solve_points`] that can be stopped: `stop` is asked before each model (from the worker
+/// threads); once it answers true, no further model is started and the run returns `Ok(None)`
+/// after the models under way finish. A caller that handles interrupts (the Python module's
+/// Ctrl-C) sets a flag that `stop` reads.
+pub fn solve_points_until(
+    grid: &Grid,
+    points: &[GridPoint],
+    run: &RunSettings,
+    tick: &(dyn Fn() + Sync),
+    stop: &(dyn Fn() -> bool + Sync),
+) -> Result<Option<Vec<PointResult>>> {
     let settings: Vec<ZamsSettings> = points
         .iter()
         .map(|p| settings_for(grid, p, run))
@@ -92,24 +106,33 @@ pub fn solve_points(
             )
         })?;
     pool.install(|| {
-        let mut results: Vec<PointResult> = points
+        let first: Option<Vec<PointResult>> = points
             .par_iter()
             .zip(settings.par_iter())
             .map(|(p, s)| {
+                if stop() {
+                    return None;
+                }
                 let r = solve_one(s.clone(), p, false);
                 tick();
-                r
+                Some(r)
             })
             .collect();
+        let Some(mut results) = first else {
+            return Ok(None);
+        };
         loop {
             let snapshot = results.clone();
-            let retries: Vec<(usize, PointResult)> = snapshot
+            let retries: Option<Vec<(usize, PointResult)>> = snapshot
                 .par_iter()
                 .enumerate()
                 .filter(|(_, r)| r.outcome.is_err())
                 .filter_map(|(i, r)| {
                     let n = neighbour(&snapshot, &r.point)?;
                     let nu = n.unknowns()?;
+                    if stop() {
+                        return Some(None);
+                    }
                     let p = &r.point;
                     let start = guess::shifted(
                         &guess::as_row(&nu),
@@ -119,9 +142,12 @@ pub fn solve_points(
                     );
                     let s = settings[i].clone().with_unknowns_guess(start);
                     let retry = solve_one(s, p, true);
-                    retry.outcome.is_ok().then_some((i, retry))
+                    retry.outcome.is_ok().then_some(Some((i, retry)))
                 })
                 .collect();
+            let Some(retries) = retries else {
+                return Ok(None);
+            };
             if retries.is_empty() {
                 break;
             }
@@ -129,6 +155,66 @@ pub fn solve_points(
                 results[i] = r;
             }
         }
-        Ok(results)
+        Ok(Some(results))
     })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::grid::Variant;
+    use crate::physics::{PhysicsOverrides, Preset};
+    use std::sync::atomic::{AtomicUsize, Ordering};
+
+    fn analytic_grid(masses: &[f64]) -> Grid {
+        let base = PhysicsOverrides {
+            preset: Some(Preset::Analytic),
+            ..PhysicsOverrides::default()
+        };
+        Grid::product(&base, vec![Variant::base()], masses, &[0.7], &[0.02], 0.4)
+            .expect("valid grid")
+    }
+
+    #[test]
+    fn a_stopped_run_starts_no_further_model() {
+        let grid = analytic_grid(&[2.0, 3.0, 5.0]);
+        let points = grid.select(None);
+        let solved = AtomicUsize::new(0);
+        let tick = || {
+            solved.fetch_add(1, Ordering::SeqCst);
+        };
+        let run = RunSettings {
+            threads: 1,
+            tolerance: None,
+        };
+        // Stop before the first model: nothing is solved.
+        let out = solve_points_until(&grid, &points, &run, &tick, &|| true).expect("runs");
+        assert!(out.is_none());
+        assert_eq!(solved.load(Ordering::SeqCst), 0);
+        // Stop after the first model (one worker thread: models run one after another).
+        let stop = || solved.load(Ordering::SeqCst) >= 1;
+        let out = solve_points_until(&grid, &points, &run, &tick, &stop).expect("runs");
+        assert!(out.is_none());
+        assert_eq!(solved.load(Ordering::SeqCst), 1);
+        // Never stopped: the same results as the plain runner.
+        let all = solve_points_until(&grid, &points, &run, &|| {}, &|| false)
+            .expect("runs")
+            .expect("not stopped");
+        let plain = solve_points(&grid, &points, &run, &|| {}).expect("runs");
+        assert_eq!(all.len(), 3);
+        for (a, b) in all.iter().zip(&plain) {
+            let (a, b) = (a.outcome.as_ref().ok(), b.outcome.as_ref().ok());
+            let bits = |m: Option<&Box<ZamsModel>>| {
+                m.map(|m| {
+                    m.summary
+                        .values()
+                        .iter()
+                        .map(|v| v.to_bits())
+                        .collect::<Vec<_>>()
+                })
+            };
+            assert!(a.is_some());
+            assert_eq!(bits(a), bits(b));
+        }
+    }
 }

@@ -8,15 +8,19 @@ use super::composition::Composition;
 use crate::constants::{A_RAD_CGS, K_B_ERG_K, M_U_G};
 use crate::error::PhysicsError;
 
+pub mod coulomb;
 pub mod degenerate;
 pub mod fermi_dirac;
+pub mod h2;
 pub mod ideal;
+pub mod molecular;
 pub mod plasma;
 pub mod refined;
 pub mod saha;
 
 pub use degenerate::DegenerateGas;
 pub use ideal::IdealGas;
+pub use molecular::MolecularEos;
 pub use refined::RefinedEos;
 pub use saha::SahaGas;
 
@@ -62,6 +66,18 @@ pub struct EosState {
 pub trait EquationOfState: Send + Sync + std::fmt::Debug {
     /// The law's name as a user selects it (e.g. `ideal`).
     fn name(&self) -> &str;
+
+    /// A caution when (rho, T) lies where the law still returns a value but is used beyond what
+    /// it describes well (an assumption that fails, a fit used outside its range); `None`
+    /// inside. A model that visits such points carries the caution as a warning.
+    fn caution(
+        &self,
+        _rho_g_cm3: f64,
+        _temperature_k: f64,
+        _comp: &Composition,
+    ) -> Option<&'static str> {
+        None
+    }
 
     /// The state at density `rho_g_cm3` and temperature `temperature_k`.
     ///

@@ -4,6 +4,7 @@ use super::composition::Composition;
 use crate::error::PhysicsError;
 
 pub mod analytic;
+pub mod bell_lin;
 pub mod conductive;
 pub mod electron_scattering;
 pub mod h_minus;
@@ -12,6 +13,7 @@ pub mod refined;
 pub mod table;
 
 pub use analytic::AnalyticOpacity;
+pub use bell_lin::BellLin;
 pub use conductive::Conductive;
 pub use electron_scattering::ElectronScattering;
 pub use h_minus::HMinus;
@@ -23,6 +25,18 @@ pub use table::TableOpacity;
 pub trait Opacity: Send + Sync + std::fmt::Debug {
     /// The law's name as a user selects it, with its parameters (e.g. `kramers:guillotine=1`).
     fn name(&self) -> String;
+
+    /// A caution when (rho, T) lies where the law still returns a value but is used beyond what
+    /// it describes well (a fit outside its range, a table's edge value); `None` inside. A
+    /// model that visits such points carries the caution as a warning.
+    fn caution(
+        &self,
+        _rho_g_cm3: f64,
+        _temperature_k: f64,
+        _comp: &Composition,
+    ) -> Option<&'static str> {
+        None
+    }
 
     /// Rosseland-mean opacity kappa, cm^2 g^-1, at density `rho_g_cm3` and temperature
     /// `temperature_k`. Errors (never NaN) outside the law's domain.

@@ -1,8 +1,10 @@
-//! `starpoise limits`: the hydrogen-burning minimum mass for a composition and set of laws.
+//! `starpoise limits`: the hydrogen-burning minimum mass and the pulsational instability mass
+//! for a composition and set of laws.
 
 use super::common::ModelArgs;
 use super::Format;
 use clap::Args;
+use starpoise::oscillation::pulsational_instability_mass;
 use starpoise::output::limits::{limits_json, limits_text};
 use starpoise::output::meta::Provenance;
 use starpoise::output::zams::to_json_text;
@@ -11,7 +13,9 @@ use starpoise::structure::limits::hydrogen_burning_limit;
 use starpoise::Result;
 
 /// Find the lowest mass of a hydrogen-burning (zero-age main-sequence) star for a composition and
-/// set of laws: the turning point of the ZAMS branch in mass, and the model there.
+/// set of laws (the turning point of the ZAMS branch in mass, and the model there), and the mass
+/// above which ZAMS stars are pulsationally unstable (the radial fundamental mode driven by
+/// nuclear burning against radiative damping, quasi-adiabatic).
 #[derive(Debug, Clone, Args)]
 pub struct LimitsArgs {
     /// Composition and physics.
@@ -27,11 +31,16 @@ pub fn run(args: LimitsArgs) -> Result<()> {
     let (comp, overrides) = args.model.resolve()?;
     let physics = PhysicsSet::from_spec(&overrides.resolve()?)?;
     let limit = hydrogen_burning_limit(&comp, &physics)?;
+    let pulsation = pulsational_instability_mass(&comp, &physics)?;
     match args.format {
-        Format::Text => print!("{}", limits_text(&limit)),
+        Format::Text => print!("{}", limits_text(&limit, &pulsation)),
         Format::Json => println!(
             "{}",
-            to_json_text(&limits_json(&limit, &Provenance::of_this_process()))?
+            to_json_text(&limits_json(
+                &limit,
+                &pulsation,
+                &Provenance::of_this_process()
+            ))?
         ),
     }
     Ok(())

@@ -48,7 +48,8 @@ enum Command {
     Modes(modes::ModesArgs),
     /// Evaluate every physics law at one density and temperature.
     Probe(probe::ProbeArgs),
-    /// Find the hydrogen-burning minimum mass for a composition and set of laws.
+    /// Find the hydrogen-burning minimum mass and the pulsational instability mass for a
+    /// composition and set of laws.
     Limits(limits::LimitsArgs),
     /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
     Verify(verify::VerifyArgs),

@@ -66,6 +66,9 @@ pub use spectrum::{
     dynamical_frequency_hz, large_separation_near, small_separation_near, Mode, ModeKind,
     SeismicSummary,
 };
+pub use stability::{
+    fundamental_stability, pulsational_instability_mass, radial_stability, PulsationalLimit,
+    RadialStability,
+};
 pub use tabulated::{DimensionlessArrays, PhysicalArrays, TabulatedModel};
-pub use stability::{radial_stability, RadialStability};
 pub use zams::tabulated_from_profile;

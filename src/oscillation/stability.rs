@@ -51,6 +51,14 @@
 //! and any non-linear saturation: the result is the onset of weak linear driving of the
 //! fundamental, not a statement that such stars cannot exist (docs/references.md §8.7).
 //!
+//! # The pulsational instability mass
+//!
+//! [`pulsational_instability_mass`] follows the growth per radian eta/omega of the radial
+//! fundamental of ZAMS models up the mass range: evaluated at [`PULSATION_SEARCH_MSUN`] until it
+//! turns positive, then the sign change is located by the Illinois method in ln M (to
+//! [`PULSATION_MASS_TOLERANCE`]). eta/omega is a smooth function of the mass here (nuclear
+//! driving grows and radiative damping falls as radiation pressure softens the star).
+//!
 //! # The eigenfunction on the profile rows
 //!
 //! The mode's xi_r/r and dP/P are known at the solver's step boundaries. Between them they are
@@ -62,12 +70,15 @@
 //! from the same equation with the row's own V and c1.
 
 use super::equilibrium::{point_at, Equilibrium};
+use super::search::{find_modes, OscillationSettings};
 use super::spectrum::Mode;
 use super::tabulated::TabulatedModel;
+use super::zams::tabulated_from_profile;
 use crate::constants::G_CGS;
 use crate::error::{Error, Result};
+use crate::numerics::scalar::illinois;
 use crate::physics::{Composition, PhysicsSet};
-use crate::structure::ProfileRow;
+use crate::structure::{solve, ProfileRow, ZamsSettings, MASS_RANGE_MSUN};
 use std::f64::consts::PI;
 
 /// Step in ln rho and ln T of the central differences of the laws: the laws are smooth (see
@@ -88,6 +99,112 @@ pub struct RadialStability {
     /// Mass fraction m/M of the transition point, where the thermal time of the layers above
     /// equals the period (the work integral stops there).
     pub transition_mass_fraction: f64,
+}
+
+/// Masses at which [`pulsational_instability_mass`] first evaluates the growth rate, M_sun:
+/// increasing, up to the largest mass of [`MASS_RANGE_MSUN`].
+pub const PULSATION_SEARCH_MSUN: [f64; 6] = [10.0, 20.0, 40.0, 70.0, 110.0, 150.0];
+/// Profile rows of each model of the search: the mass found for X = 0.70, Z = 0.02 moves by 0.08
+/// per cent from 1000 to 2000 rows and by 0.05 per cent from 2000 to 4000.
+pub const PULSATION_PROFILE_ROWS: usize = 2000;
+/// Relative accuracy of the mass found (in ln M): far below the 10 per cent the mass moves when
+/// the transition criterion changes by a factor of 6 either way (module documentation).
+pub const PULSATION_MASS_TOLERANCE: f64 = 1e-4;
+
+/// Where the radial fundamental of the ZAMS models turns vibrationally unstable.
+#[derive(Debug, Clone, PartialEq)]
+pub struct PulsationalLimit {
+    /// The mass above which it grows, M_sun; `None` if it is stable at every mass searched.
+    pub mass_msun: Option<f64>,
+    /// (mass in M_sun, eta/omega) of every model evaluated, in the order evaluated.
+    pub evaluations: Vec<(f64, f64)>,
+}
+
+/// The quasi-adiabatic stability of the radial fundamental of the ZAMS model of `mass_msun`
+/// for `composition` and `physics`, on a profile of `rows` rows.
+///
+/// Errors: those of the ZAMS solve ([`crate::structure::solve`]), of the mode search and of
+/// [`radial_stability`].
+pub fn fundamental_stability(
+    mass_msun: f64,
+    composition: &Composition,
+    physics: &PhysicsSet,
+    rows: usize,
+) -> Result<RadialStability> {
+    let model = solve(&ZamsSettings::new(
+        mass_msun,
+        *composition,
+        physics.clone(),
+    )?)?;
+    let profile = model.profile(rows)?;
+    let oscillation_model = tabulated_from_profile(&profile)?;
+    let settings = OscillationSettings::default().with_eigenfunctions(true);
+    let modes = find_modes(&oscillation_model, 0, 1, &settings)?;
+    let fundamental = modes.first().ok_or_else(|| Error::ModeSearch {
+        degree: 0,
+        reason: format!("no radial fundamental found at {mass_msun} M_sun"),
+    })?;
+    radial_stability(
+        &profile,
+        &oscillation_model,
+        fundamental,
+        physics,
+        composition,
+    )
+}
+
+/// The pulsational instability mass for `composition` and `physics` (module documentation).
+///
+/// Errors: those of [`fundamental_stability`] at any mass visited, and
+/// [`Error::Integration`] (what: "pulsational instability mass") if the fundamental is already
+/// unstable at the lowest mass searched.
+pub fn pulsational_instability_mass(
+    composition: &Composition,
+    physics: &PhysicsSet,
+) -> Result<PulsationalLimit> {
+    let mut evaluations = Vec::new();
+    let mut growth = |mass_msun: f64| -> Result<f64> {
+        let g = fundamental_stability(mass_msun, composition, physics, PULSATION_PROFILE_ROWS)?
+            .growth_per_radian;
+        evaluations.push((mass_msun, g));
+        Ok(g)
+    };
+    let mut below: Option<(f64, f64)> = None;
+    for mass in PULSATION_SEARCH_MSUN {
+        let g = growth(mass)?;
+        if g > 0.0 {
+            let Some((m0, g0)) = below else {
+                return Err(Error::Integration {
+                    what: "pulsational instability mass",
+                    variable: "M/M_sun",
+                    at: mass,
+                    reason: format!(
+                        "the radial fundamental is already unstable at the lowest mass searched \
+                         (eta/omega = {g:e}); this search looks for the onset of the epsilon \
+                         mechanism above {mass} M_sun"
+                    ),
+                });
+            };
+            let root = illinois(
+                |ln_m: f64| growth(ln_m.exp()),
+                m0.ln(),
+                g0,
+                mass.ln(),
+                g,
+                PULSATION_MASS_TOLERANCE,
+            )?;
+            return Ok(PulsationalLimit {
+                mass_msun: Some(root.exp()),
+                evaluations,
+            });
+        }
+        below = Some((mass, g));
+    }
+    debug_assert_eq!(PULSATION_SEARCH_MSUN[5], MASS_RANGE_MSUN.1);
+    Ok(PulsationalLimit {
+        mass_msun: None,
+        evaluations,
+    })
 }
 
 /// The eigenfunction of a radial mode as (x, xi_r/r, dP/P) at the solver's step boundaries.
@@ -229,9 +346,8 @@ pub fn radial_stability(
         let eps = |rho: f64, t: f64| -> Result<f64> {
             Ok(physics.rates().rate(rho, t, composition)?.total_erg_g_s())
         };
-        let kappa = |rho: f64, t: f64| -> Result<f64> {
-            Ok(physics.opacity().kappa(rho, t, composition)?)
-        };
+        let kappa =
+            |rho: f64, t: f64| -> Result<f64> { Ok(physics.opacity().kappa(rho, t, composition)?) };
         let log_slope = |f: &dyn Fn(f64, f64) -> Result<f64>, along_t: bool| -> Result<f64> {
             let (hi, lo) = if along_t {
                 (f(rho, t * up)?, f(rho, t * down)?)

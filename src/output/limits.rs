@@ -5,16 +5,26 @@
 //! `hydrogen_burning_minimum_mass_msun`, `extrapolated_by_msun` (`null` when the turning point
 //! was reached; else how far below the last model reached it was extrapolated), and
 //! `limiting_model`: every summary quantity of the model at the limit, or of the last model
-//! reached (the keys of the `zams` JSON summary, with `mass_msun`).
+//! reached (the keys of the `zams` JSON summary, with `mass_msun`);
+//! `pulsational_instability_mass_msun`: the mass above which the radial fundamental mode of the
+//! ZAMS models is vibrationally unstable in the quasi-adiabatic approximation (the epsilon
+//! mechanism against radiative damping; `oscillation::stability`), `null` if it is stable up to
+//! 150 M_sun; `pulsational_search`: the models evaluated, each `{"mass_msun",
+//! "fundamental_growth_per_radian"}` (eta/omega of the fundamental, dimensionless).
 
 use super::format::{laws_text, num};
 use super::meta::Provenance;
+use crate::oscillation::PulsationalLimit;
 use crate::structure::limits::HydrogenBurningLimit;
 use crate::structure::ModelSummary;
 use serde_json::{json, Map, Value};
 
 /// The limits as one JSON object.
-pub fn limits_json(limit: &HydrogenBurningLimit, meta: &Provenance) -> Value {
+pub fn limits_json(
+    limit: &HydrogenBurningLimit,
+    pulsation: &PulsationalLimit,
+    meta: &Provenance,
+) -> Value {
     let model = &limit.model;
     let c = model.composition();
     let mut m = Map::new();
@@ -34,11 +44,17 @@ pub fn limits_json(limit: &HydrogenBurningLimit, meta: &Provenance) -> Value {
         "hydrogen_burning_minimum_mass_msun": limit.mass_msun,
         "extrapolated_by_msun": limit.extrapolated_by_msun,
         "limiting_model": Value::Object(m),
+        "pulsational_instability_mass_msun": pulsation.mass_msun,
+        "pulsational_search": pulsation
+            .evaluations
+            .iter()
+            .map(|&(m, g)| json!({"mass_msun": m, "fundamental_growth_per_radian": g}))
+            .collect::<Vec<_>>(),
     })
 }
 
 /// The limits as aligned text with units.
-pub fn limits_text(limit: &HydrogenBurningLimit) -> String {
+pub fn limits_text(limit: &HydrogenBurningLimit, pulsation: &PulsationalLimit) -> String {
     let model = &limit.model;
     let s = &model.summary;
     let c = model.composition();
@@ -79,5 +95,17 @@ pub fn limits_text(limit: &HydrogenBurningLimit) -> String {
         num(s.central_degeneracy),
         "(electron chemical potential / kT)",
     );
+    match pulsation.mass_msun {
+        Some(m) => line(
+            "pulsational instability mass",
+            num(m),
+            "M_sun (radial fundamental unstable above; epsilon mechanism, quasi-adiabatic)",
+        ),
+        None => line(
+            "pulsational instability mass",
+            "none".to_string(),
+            "(radial fundamental stable up to 150 M_sun; quasi-adiabatic)",
+        ),
+    }
     out
 }

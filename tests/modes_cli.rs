@@ -134,12 +134,16 @@ fn bad_input_exits_2_and_touches_no_file() {
     let dir = scratch_dir("modes-bad");
     let path = dir.join("keep.csv");
     std::fs::write(&path, "untouched").unwrap();
-    let cases: [(&[&str], &str); 5] = [
+    let cases: [(&[&str], &str); 9] = [
         (&["--polytrope", "5"], "--polytrope = 5"),
         (&["--polytrope", "-1"], "--polytrope = -1"),
         (&["--polytrope", "3", "--gamma1", "1.2"], "--gamma1 = 1.2"),
         (&["--polytrope", "3", "--max-order", "0"], "--max-order = 0"),
         (&["--polytrope", "3", "--points", "10"], "--points = 10"),
+        (&["--polytrope", "3", "--z", "0.01"], "--polytrope = 3"),
+        (&["--mass", "1", "--gamma1", "1.6"], "--gamma1 = 1.6"),
+        (&["--mass", "400"], "--mass = 400"),
+        (&["--mass", "1", "--points", "5"], "--points = 5"),
     ];
     for (args, message) in cases {
         let mut all = args.to_vec();
@@ -161,4 +165,60 @@ fn bad_input_exits_2_and_touches_no_file() {
         "{}",
         stderr(&out)
     );
+}
+
+/// A ZAMS model (`--mass`): frequencies also in uHz, the growth rates of the radial modes, and
+/// the separations in uHz with the solar-scaled relations of Kjeldsen & Bedding (1995, A&A 293,
+/// 87; docs/references.md §8.6) beside them. The large separation from the radial modes near
+/// nu_max is within 3 per cent of the scaling relation at the model's own M and R (the bound
+/// of tests/oscillation_zams.rs, which explains it).
+#[test]
+fn zams_json_report_in_microhertz() {
+    let out = modes(&[
+        "--mass",
+        "1",
+        "--degrees",
+        "0,2",
+        "--max-order",
+        "25",
+        "--format",
+        "json",
+    ]);
+    assert!(out.status.success(), "{}", stderr(&out));
+    let v = json(&out);
+    assert_eq!(v["meta"]["model"], "zams");
+    for key in ["mass_msun", "x", "z", "physics", "radius_rsun", "teff_k"] {
+        assert!(
+            !v["meta"][key].is_null(),
+            "meta.{key} missing: {}",
+            v["meta"]
+        );
+    }
+    let radius = v["meta"]["radius_rsun"].as_f64().unwrap();
+    // sqrt(G M_sun/R_sun^3)/(2 pi) = 99.92 uHz for the nominal Sun (docs/references.md §8.6).
+    let unit = 99.92 * 2.0 * std::f64::consts::PI / radius.powf(1.5);
+    let list = v["modes"].as_array().unwrap();
+    assert_eq!(list.len(), 25 + 51);
+    for m in list {
+        let nu = m["frequency_uhz"].as_f64().unwrap();
+        let expected = m["cyclic_frequency"].as_f64().unwrap() * unit;
+        assert!((nu / expected - 1.0).abs() < 1e-4, "{m}");
+        assert_eq!(m["degree"] == 0, m["growth_rate_per_s"].is_f64(), "{m}");
+    }
+    let dnu = v["large_separation_uhz"].as_f64().unwrap();
+    let scaling = v["large_separation_scaling_uhz"].as_f64().unwrap();
+    assert!((dnu / scaling - 1.0).abs() < 0.03, "{dnu} vs {scaling}");
+    for key in [
+        "large_separation_asymptotic_uhz",
+        "small_separation_d02_uhz",
+        "separations_around_uhz",
+        "nu_max_scaling_uhz",
+        "period_spacing_asymptotic_s",
+    ] {
+        assert!(v[key].is_f64(), "{key} missing");
+    }
+    // The separations are measured at the radial mode nearest nu_max.
+    let around = v["separations_around_uhz"].as_f64().unwrap();
+    let nu_max = v["nu_max_scaling_uhz"].as_f64().unwrap();
+    assert!((around - nu_max).abs() < 0.5 * dnu, "{around} vs {nu_max}");
 }

@@ -8,6 +8,7 @@
 //! same model. Unknown keys and keys given twice are refused, and every value is checked when the
 //! file is read, so an error names the file.
 
+use super::common::{CompositionFlags, PhysicsFlags};
 use serde::de::{self, MapAccess, Visitor};
 use serde::{Deserialize, Deserializer};
 use starpoise::physics::{Composition, PhysicsOverrides, PhysicsSet};
@@ -121,6 +122,37 @@ impl ModelFile {
             .map_err(|e| bad(format!("not a valid model file: {e}")))?;
         file.check().map_err(|e| bad(e.to_string()))?;
         Ok(file)
+    }
+
+    /// The ZAMS settings of this file with flags over it: the mass (`mass`, else the file's),
+    /// the composition and laws (flags over the file's), and the fitting mass and tolerance
+    /// (`fit_mass` and `tolerance`, else the file's, else the defaults). Errors name the key
+    /// (`mass_msun` when no mass is given at all).
+    pub fn zams_settings(
+        &self,
+        mass: Option<f64>,
+        composition: &CompositionFlags,
+        physics: &PhysicsFlags,
+        fit_mass: Option<f64>,
+        tolerance: Option<f64>,
+    ) -> Result<ZamsSettings> {
+        let mass = mass.or(self.mass_msun).ok_or_else(|| {
+            Error::invalid(
+                "mass_msun",
+                "(missing)",
+                "give the stellar mass in solar masses, e.g. --mass 1",
+            )
+        })?;
+        let comp = composition.composition(self.x, self.z)?;
+        let spec = self.physics.overridden_by(&physics.overrides()).resolve()?;
+        let mut settings = ZamsSettings::new(mass, comp, PhysicsSet::from_spec(&spec)?)?;
+        if let Some(q) = fit_mass.or(self.fit_mass_fraction) {
+            settings = settings.with_fit_mass_fraction(q)?;
+        }
+        if let Some(t) = tolerance.or(self.tolerance) {
+            settings = settings.with_tolerance(t)?;
+        }
+        Ok(settings)
     }
 
     /// Check every value the file gives on its own (defaults for what it leaves out), so that a

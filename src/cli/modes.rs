@@ -1,34 +1,67 @@
-//! `starpoise modes`: oscillation modes of a polytrope (dimensionless).
+//! `starpoise modes`: oscillation modes of a polytrope (dimensionless) or of a ZAMS model (also
+//! in uHz, with the quasi-adiabatic growth rates of its radial modes).
 
+use super::common::{CompositionFlags, PhysicsFlags};
+use super::model_file::ModelFile;
 use super::Format;
-use clap::Args;
+use clap::{ArgGroup, Args};
 use starpoise::error::{Error, Result};
 use starpoise::oscillation::polytropic::GAMMA1_ALLOWED;
 use starpoise::oscillation::search::{MAX_DEGREE, MAX_ORDER};
 use starpoise::oscillation::{
-    find_modes_of_degrees, Mode, OscillationSettings, PolytropicModel, SeismicSummary,
+    find_modes, find_modes_of_degrees, radial_stability, tabulated_from_profile, Mode,
+    OscillationSettings, PolytropicModel, SeismicSummary,
 };
 use starpoise::output::meta::Provenance;
-use starpoise::output::modes::{write_eigenfunctions_csv, ModesMeta, ModesReport};
+use starpoise::output::modes::{
+    write_eigenfunctions_csv, ModesMeta, ModesReport, StarMeta, StarScales,
+};
+use starpoise::physics::Composition;
 use starpoise::polytrope::{solve_lane_emden, LaneEmdenSettings};
+use starpoise::reference::kjeldsen_bedding_nu_max_uhz;
+use starpoise::structure::{profile::check_profile_points, solve, ZamsModel, ZamsSettings};
 use std::path::PathBuf;
 
 /// Fewest Lane–Emden points accepted for an oscillation model.
 const MIN_POINTS: usize = 50;
 /// Most Lane–Emden points accepted.
 const MAX_POINTS: usize = 100_000;
-/// Orders of the radial window below the highest computed where the separations are measured.
+/// Default Lane–Emden points of a polytrope.
+const POLYTROPE_POINTS: usize = 500;
+/// Default profile rows of a ZAMS model: with them the modes l = 0-3 up to order 25 of the
+/// 1 M_sun model agree with those on 16000 rows at half the phase per step to 8e-9
+/// (tests/oscillation_zams.rs).
+pub const ZAMS_ROWS: usize = 2000;
+/// Default Gamma_1 of a polytrope.
+const POLYTROPE_GAMMA1: f64 = 5.0 / 3.0;
+/// Orders of the radial window below the highest computed where the separations are measured
+/// (when nu_max is not within the radial modes computed).
 const SEPARATION_OFFSET: i32 = 3;
 
 /// Arguments of `starpoise modes`, as parsed.
 #[derive(Debug, Args)]
+#[command(group(ArgGroup::new("equilibrium").required(true).args(["polytrope", "mass", "model"])))]
 pub struct ModesArgs {
-    /// Polytropic index n of the model, a number in [0, 5).
+    /// Polytropic index n of a polytrope to oscillate, a number in [0, 5) (dimensionless
+    /// frequencies).
+    #[arg(long, allow_negative_numbers = true, conflicts_with_all = ["mass", "model"])]
+    polytrope: Option<f64>,
+    /// Adiabatic exponent Gamma_1 of the polytrope, constant through it (above 4/3)
+    /// [default: 5/3].
     #[arg(long, allow_negative_numbers = true)]
-    polytrope: f64,
-    /// Adiabatic exponent Gamma_1, constant through the model (above 4/3).
-    #[arg(long, default_value_t = 5.0 / 3.0, allow_negative_numbers = true)]
-    gamma1: f64,
+    gamma1: Option<f64>,
+    /// Mass in solar masses of a ZAMS model to oscillate, built with the composition and physics
+    /// flags (frequencies also in uHz, growth rates of the radial modes).
+    #[arg(long, value_name = "MSUN")]
+    mass: Option<f64>,
+    #[command(flatten)]
+    composition: CompositionFlags,
+    #[command(flatten)]
+    physics: PhysicsFlags,
+    /// Read the ZAMS model's settings from this JSON model file (as `zams --model`); flags
+    /// override it.
+    #[arg(long, value_name = "FILE")]
+    model: Option<PathBuf>,
     /// Spherical degrees, comma-separated.
     #[arg(long, value_delimiter = ',', default_value = "0,1,2,3")]
     degrees: Vec<u32>,
@@ -44,39 +77,92 @@ pub struct ModesArgs {
     /// Also write every mode's eigenfunctions to this CSV file (written atomically).
     #[arg(long, value_name = "FILE.csv")]
     eigenfunctions: Option<PathBuf>,
-    /// Lane–Emden profile points of the model (50 to 100000).
-    #[arg(long, default_value_t = 500)]
-    points: usize,
+    /// Profile points of the model: Lane–Emden points of a polytrope (50 to 100000, default
+    /// 500) or profile rows of a ZAMS model (10 to 100000, default 2000).
+    #[arg(long)]
+    points: Option<usize>,
+}
+
+/// The equilibrium model asked for.
+#[derive(Debug)]
+enum ModelKind {
+    Polytrope { index: f64, gamma1: f64 },
+    Zams(Box<ZamsSettings>),
 }
 
 /// A checked `modes` request.
 #[derive(Debug)]
 struct ModesRequest {
-    index: f64,
-    gamma1: f64,
+    equilibrium: ModelKind,
     degrees: Vec<u32>,
     max_order: u32,
     settings: OscillationSettings,
     points: usize,
     format: Format,
     eigenfunctions: Option<PathBuf>,
+    provenance: Provenance,
 }
 
 impl TryFrom<ModesArgs> for ModesRequest {
     type Error = Error;
 
     fn try_from(args: ModesArgs) -> Result<Self> {
-        if !(0.0..5.0).contains(&args.polytrope) {
-            return Err(Error::invalid(
-                "--polytrope",
-                args.polytrope,
-                "the polytropic index must be a number in [0, 5) (n = 5 has no surface), e.g. \
-                 --polytrope 3",
-            ));
-        }
-        if !(args.gamma1.is_finite() && args.gamma1 > 4.0 / 3.0) {
-            return Err(Error::invalid("gamma1", args.gamma1, GAMMA1_ALLOWED));
-        }
+        let mut provenance = Provenance::of_this_process();
+        let (equilibrium, points) = match args.polytrope {
+            Some(index) => {
+                if !(0.0..5.0).contains(&index) {
+                    return Err(Error::invalid(
+                        "--polytrope",
+                        index,
+                        "the polytropic index must be a number in [0, 5) (n = 5 has no \
+                         surface), e.g. --polytrope 3",
+                    ));
+                }
+                let gamma1 = args.gamma1.unwrap_or(POLYTROPE_GAMMA1);
+                if !(gamma1.is_finite() && gamma1 > 4.0 / 3.0) {
+                    return Err(Error::invalid("gamma1", gamma1, GAMMA1_ALLOWED));
+                }
+                if args.composition.x.is_some()
+                    || args.composition.z.is_some()
+                    || args.physics.overrides() != Default::default()
+                {
+                    return Err(Error::invalid(
+                        "--polytrope",
+                        index,
+                        "composition and physics flags describe a ZAMS model (--mass); a \
+                         polytrope takes --gamma1 only",
+                    ));
+                }
+                let points = args.points.unwrap_or(POLYTROPE_POINTS);
+                if !(MIN_POINTS..=MAX_POINTS).contains(&points) {
+                    return Err(Error::invalid(
+                        "--points",
+                        points,
+                        "the model needs from 50 to 100000 Lane–Emden points, e.g. --points 500",
+                    ));
+                }
+                (ModelKind::Polytrope { index, gamma1 }, points)
+            }
+            None => {
+                if let Some(g) = args.gamma1 {
+                    return Err(Error::invalid(
+                        "gamma1",
+                        g,
+                        "Gamma_1 is set for a polytrope (--polytrope N --gamma1 G); a ZAMS \
+                         model's Gamma_1 comes from its equation of state",
+                    ));
+                }
+                let file = match &args.model {
+                    Some(p) => ModelFile::read(p)?,
+                    None => ModelFile::default(),
+                };
+                provenance = provenance.with_model(file.name.clone(), file.note.clone());
+                let settings =
+                    file.zams_settings(args.mass, &args.composition, &args.physics, None, None)?;
+                let points = check_profile_points(args.points.unwrap_or(ZAMS_ROWS))?;
+                (ModelKind::Zams(Box::new(settings)), points)
+            }
+        };
         let mut degrees = args.degrees;
         degrees.sort_unstable();
         degrees.dedup();
@@ -94,65 +180,32 @@ impl TryFrom<ModesArgs> for ModesRequest {
                 "the highest order must be an integer from 1 to 1000, e.g. --max-order 25",
             ));
         }
-        if !(MIN_POINTS..=MAX_POINTS).contains(&args.points) {
-            return Err(Error::invalid(
-                "--points",
-                args.points,
-                "the model needs from 50 to 100000 Lane–Emden points, e.g. --points 500",
-            ));
-        }
         Ok(Self {
-            index: args.polytrope,
-            gamma1: args.gamma1,
+            equilibrium,
             degrees,
             max_order: args.max_order,
             settings: OscillationSettings::default()
                 .with_cowling(args.cowling)
                 .with_eigenfunctions(args.eigenfunctions.is_some()),
-            points: args.points,
+            points,
             format: args.format,
             eigenfunctions: args.eigenfunctions,
+            provenance,
         })
     }
 }
 
-/// Run `starpoise modes`: validate, build the model, find the modes, write the eigenfunctions
-/// if asked, print the report.
+/// Run `starpoise modes`: validate, build the model, find the modes (and, for a ZAMS model, the
+/// growth rates of its radial modes), write the eigenfunctions if asked, print the report.
 pub fn run(args: ModesArgs) -> Result<()> {
     let request = ModesRequest::try_from(args)?;
     if let Some(path) = &request.eigenfunctions {
         starpoise::output::check_output_path("--eigenfunctions", path)?;
     }
-    let solution = solve_lane_emden(
-        request.index,
-        &LaneEmdenSettings::default().with_points(request.points)?,
-    )?;
-    let model = PolytropicModel::new(&solution, request.gamma1)?;
-    let modes = find_modes_of_degrees(
-        &model,
-        &request.degrees,
-        request.max_order,
-        &request.settings,
-    )?;
-    let provenance = Provenance::of_this_process();
-    if let Some(path) = &request.eigenfunctions {
-        write_eigenfunctions_csv(path, &modes, &provenance)?;
-    }
-    let around = separation_frequency(&modes, request.max_order);
-    let seismic = SeismicSummary::new(&model, &modes, around);
-    let meta = ModesMeta {
-        provenance,
-        model: "polytrope",
-        polytropic_index: request.index,
-        gamma1: request.gamma1,
-        degrees: request.degrees.clone(),
-        max_order: request.max_order,
-        cowling: request.settings.cowling(),
-        profile_points: request.points,
-        phase_per_step: request.settings.phase_per_step(),
-        frequency_unit: "sigma = omega sqrt(R^3/(G M)); cyclic nu sqrt(R^3/(G M)) = sigma/(2 pi)",
+    let report = match &request.equilibrium {
+        ModelKind::Polytrope { index, gamma1 } => polytrope_report(&request, *index, *gamma1)?,
+        ModelKind::Zams(settings) => zams_report(&request, settings)?,
     };
-    let report = ModesReport::new(meta, &modes, &seismic);
     match request.format {
         Format::Text => print!("{}", report.to_text()),
         Format::Json => {
@@ -166,14 +219,148 @@ pub fn run(args: ModesArgs) -> Result<()> {
     Ok(())
 }
 
-/// The cyclic frequency of the radial mode of order max_order - 3 (the highest radial mode if
-/// fewer): where the separations are measured. `None` without radial modes.
-fn separation_frequency(modes: &[Mode], max_order: u32) -> Option<f64> {
+/// The meta object shared by both kinds of model.
+fn meta(request: &ModesRequest, model: &'static str, frequency_unit: &'static str) -> ModesMeta {
+    ModesMeta {
+        provenance: request.provenance.clone(),
+        model,
+        polytropic_index: None,
+        gamma1: None,
+        star: None,
+        degrees: request.degrees.clone(),
+        max_order: request.max_order,
+        cowling: request.settings.cowling(),
+        profile_points: request.points,
+        phase_per_step: request.settings.phase_per_step(),
+        frequency_unit,
+    }
+}
+
+fn polytrope_report(request: &ModesRequest, index: f64, gamma1: f64) -> Result<ModesReport> {
+    let solution = solve_lane_emden(
+        index,
+        &LaneEmdenSettings::default().with_points(request.points)?,
+    )?;
+    let model = PolytropicModel::new(&solution, gamma1)?;
+    let modes = find_modes_of_degrees(
+        &model,
+        &request.degrees,
+        request.max_order,
+        &request.settings,
+    )?;
+    if let Some(path) = &request.eigenfunctions {
+        write_eigenfunctions_csv(path, &modes, &request.provenance)?;
+    }
+    let around = separation_frequency(&modes, request.max_order, None);
+    let seismic = SeismicSummary::new(&model, &modes, around);
+    let mut meta = meta(
+        request,
+        "polytrope",
+        "sigma = omega sqrt(R^3/(G M)); cyclic nu sqrt(R^3/(G M)) = sigma/(2 pi)",
+    );
+    meta.polytropic_index = Some(index);
+    meta.gamma1 = Some(gamma1);
+    Ok(ModesReport::new(meta, &modes, &seismic, None))
+}
+
+fn zams_report(request: &ModesRequest, settings: &ZamsSettings) -> Result<ModesReport> {
+    let model: ZamsModel = solve(settings)?;
+    for w in &model.warnings {
+        eprintln!("starpoise: warning: {w}");
+    }
+    let rows = model.profile(request.points)?;
+    let oscillation_model = tabulated_from_profile(&rows)?;
+    let s = &model.summary;
+    let (mass_msun, radius_rsun) = (model.mass_msun(), s.radius_rsun);
+    // Radial modes carry their eigenfunctions for the work integral.
+    let radial_settings = request.settings.with_eigenfunctions(true);
+    let others: Vec<u32> = request.degrees.iter().copied().filter(|&l| l > 0).collect();
+    let (radial, rest) = rayon::join(
+        || -> Result<Vec<Mode>> {
+            if request.degrees.contains(&0) {
+                find_modes(&oscillation_model, 0, request.max_order, &radial_settings)
+            } else {
+                Ok(Vec::new())
+            }
+        },
+        || {
+            find_modes_of_degrees(
+                &oscillation_model,
+                &others,
+                request.max_order,
+                &request.settings,
+            )
+        },
+    );
+    let mut modes = radial?;
+    let composition: &Composition = model.composition();
+    let physics = settings.physics();
+    let mut stability: Vec<_> = modes
+        .iter()
+        .map(|m| radial_stability(&rows, &oscillation_model, m, physics, composition).map(Some))
+        .collect::<Result<_>>()?;
+    if !request.settings.eigenfunctions() {
+        for m in &mut modes {
+            m.eigenfunction = None;
+        }
+    }
+    let rest = rest?;
+    stability.extend(rest.iter().map(|_| None));
+    modes.extend(rest);
+    if let Some(path) = &request.eigenfunctions {
+        write_eigenfunctions_csv(path, &modes, &request.provenance)?;
+    }
+    let star = StarScales {
+        mass_msun,
+        radius_rsun,
+        teff_k: s.teff_k,
+        stability,
+    };
+    let nu_max = kjeldsen_bedding_nu_max_uhz(mass_msun, radius_rsun, s.teff_k);
+    let uhz = starpoise::oscillation::dynamical_frequency_hz(mass_msun, radius_rsun) * 1e6;
+    let around = separation_frequency(&modes, request.max_order, Some(nu_max / uhz));
+    let seismic = SeismicSummary::new(&oscillation_model, &modes, around);
+    let c = model.composition();
+    let mut meta = meta(
+        request,
+        "zams",
+        "sigma = omega sqrt(R^3/(G M)); cyclic nu sqrt(R^3/(G M)) = sigma/(2 pi); nu in uHz \
+         with the photospheric R",
+    );
+    meta.star = Some(StarMeta {
+        mass_msun,
+        x: c.x(),
+        z: c.z(),
+        physics: model.physics().clone(),
+        radius_rsun,
+        luminosity_lsun: s.luminosity_lsun,
+        teff_k: s.teff_k,
+    });
+    Ok(ModesReport::new(meta, &modes, &seismic, Some(&star)))
+}
+
+/// The cyclic frequency (dimensionless) around which the separations are measured: that of the
+/// radial mode nearest `nu_max` (dimensionless) if it lies within the radial modes found, else
+/// that of order max_order - 3 (the highest radial mode if fewer). `None` without radial modes.
+fn separation_frequency(modes: &[Mode], max_order: u32, nu_max: Option<f64>) -> Option<f64> {
+    let radial: Vec<&Mode> = modes.iter().filter(|m| m.degree == 0).collect();
+    let (lowest, highest) = (radial.first()?, radial.last()?);
+    if let Some(nu) = nu_max {
+        if nu >= lowest.cyclic_frequency() && nu <= highest.cyclic_frequency() {
+            return radial
+                .iter()
+                .min_by(|a, b| {
+                    (a.cyclic_frequency() - nu)
+                        .abs()
+                        .total_cmp(&(b.cyclic_frequency() - nu).abs())
+                })
+                .map(|m| m.cyclic_frequency());
+        }
+    }
     let target = (max_order as i32 - SEPARATION_OFFSET).max(1);
-    let radial = modes.iter().filter(|m| m.degree == 0);
     radial
-        .clone()
+        .iter()
         .find(|m| m.order == target)
-        .or_else(|| radial.max_by_key(|m| m.order))
-        .map(Mode::cyclic_frequency)
+        .or_else(|| radial.iter().max_by_key(|m| m.order))
+        .map(|m| m.cyclic_frequency())
 }

@@ -8,7 +8,6 @@ use starpoise::output::check_output_path;
 use starpoise::output::zams::{
     failure_json, summary_json, text_summary, to_json_text, write_profile, ProfileFormat,
 };
-use starpoise::physics::PhysicsSet;
 use starpoise::structure::DEFAULT_PROFILE_POINTS;
 use starpoise::structure::{profile::check_profile_points, solve, ZamsSettings};
 use starpoise::{Error, Result};
@@ -91,26 +90,13 @@ impl From<ProfileFileFormat> for ProfileFormat {
 impl ZamsArgs {
     /// Validated settings: model file first, flags over it; and the number of profile rows.
     fn settings(&self, file: &ModelFile) -> Result<(ZamsSettings, usize)> {
-        let mass = self.mass.or(file.mass_msun).ok_or_else(|| {
-            Error::invalid(
-                "mass_msun",
-                "(missing)",
-                "give the stellar mass in solar masses, e.g. --mass 1",
-            )
-        })?;
-        let comp = self.composition.composition(file.x, file.z)?;
-        let spec = file
-            .physics
-            .overridden_by(&self.physics.overrides())
-            .resolve()?;
-        let physics = PhysicsSet::from_spec(&spec)?;
-        let mut settings = ZamsSettings::new(mass, comp, physics)?;
-        if let Some(q) = self.fit_mass.or(file.fit_mass_fraction) {
-            settings = settings.with_fit_mass_fraction(q)?;
-        }
-        if let Some(t) = self.tolerance.or(file.tolerance) {
-            settings = settings.with_tolerance(t)?;
-        }
+        let mut settings = file.zams_settings(
+            self.mass,
+            &self.composition,
+            &self.physics,
+            self.fit_mass,
+            self.tolerance,
+        )?;
         if let Some(n) = self.max_iterations {
             settings = settings.with_max_iterations(n)?;
         }

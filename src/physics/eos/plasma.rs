@@ -46,7 +46,9 @@
 //! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho c_P / c_V
 //! (Kippenhahn & Weigert 1990, §13–14), evaluated in forms free of cancellation.
 
-use super::coulomb::{CoulombAtTemperature, CoulombTerm, Z53_HELIUM, Z53_METALS};
+use super::coulomb::{
+    coulomb_free_energy, CoulombAtTemperature, CoulombTerm, IonSpecies, Z53_HELIUM, Z53_METALS,
+};
 use super::fermi_dirac::{inverse_guess, inverse_upper_bound, ln_fermi_dirac};
 use super::molecular::{MolecularAtTemperature, MolecularInputs};
 use super::EosState;
@@ -178,7 +180,14 @@ pub(super) struct Grad {
 /// Ionisation stages at one (psi, T, rho) with the derivatives of N_e, N_p and E_ion.
 #[derive(Debug, Clone, Copy)]
 pub(super) struct Stages {
+    /// Fraction of all hydrogen nuclei that is H II.
     pub(super) x_h: f64,
+    /// Hydrogen nuclei per m_u in atoms and ions (X less those in H2).
+    pub(super) h_atoms: f64,
+    /// H II / (H I + H II).
+    pub(super) h_sigma: f64,
+    /// Fraction of the donor metals ionised ([`Ionisation::Molecular`] only; else 0).
+    pub(super) donor_ionised: f64,
     pub(super) he1: f64,
     pub(super) he2: f64,
     /// Free electrons per m_u.
@@ -313,12 +322,18 @@ impl Plasma {
         at_t: Option<&CoulombAtTemperature>,
         energy: bool,
     ) -> CoulombTerm {
-        let ions = [
+        at_t.map_or_else(CoulombTerm::default, |c| {
+            c.term(rho, &Self::coulomb_ions(comp), energy)
+        })
+    }
+
+    /// The ions of the Coulomb term: H+, He++ and metals of charge 7, per m_u, with Z^(5/3).
+    fn coulomb_ions(comp: &Composition) -> IonSpecies {
+        [
             (comp.x(), 1.0),
             (0.25 * comp.y(), Z53_HELIUM),
             (comp.z() / METAL_MEAN_MASS_NUMBER, Z53_METALS),
-        ];
-        at_t.map_or_else(CoulombTerm::default, |c| c.term(rho, &ions, energy))
+        ]
     }
 
     /// As [`Plasma::setup`], with the parts that depend on T alone given.
@@ -404,23 +419,82 @@ impl Plasma {
         self.finish(&setup, comp, psi, &stages, &el)
     }
 
-    /// Specific internal energy at (rho, T), erg g^-1, counted from neutral atoms at rest:
-    /// u = (3/2)(P_ion + P_e)/rho + a T^4/rho + E_ion/m_u + U_C.
+    /// Specific internal energy at (rho, T), erg g^-1, counted from the fully ionised plasma at
+    /// rest (see [`EosState::specific_energy_erg_g`]):
+    /// u = (3/2)(P_ion + P_e)/rho + a T^4/rho + (E_ion - E_ionised)/m_u + U_C.
     pub fn specific_energy(
         &self,
         rho: f64,
         t: f64,
         comp: &Composition,
     ) -> Result<f64, PhysicsError> {
+        Ok(self.solve(rho, t, comp, None)?.state.specific_energy_erg_g)
+    }
+
+    /// Specific entropy, erg g^-1 K^-1, of `state` (its rho, T and psi), with the zero of
+    /// [`super::EquationOfState::specific_entropy_erg_g_k`]: every species of this model as an
+    /// ideal gas ([`super::entropy`]), hydrogen atoms and ions (H I weight 2 w_H, H II 1), H2
+    /// (weight Q_H2 w_H2, plus its rotation–vibration term d ln Q / d ln T), helium (He I w_He I,
+    /// He II 2 w_He II, He III 1), the metal nuclei (with, in `molecular`, their donor and
+    /// hydrogen-like electrons as two-stage sites), the electrons, radiation, and the Coulomb
+    /// term (U_C - F_C)/T. These are the weights of the Saha and dissociation balances, so the
+    /// balances minimise the free energy this entropy belongs to and (ds/dT)_rho = c_V / T.
+    pub fn specific_entropy(
+        &self,
+        state: &EosState,
+        comp: &Composition,
+    ) -> Result<f64, PhysicsError> {
+        use super::entropy::{radiation, stage_mixing, translational, K_PER_MU};
+        use super::h2::H_ATOM_MASS_U;
+        use std::f64::consts::LN_2;
+        let (rho, t, psi) = (
+            state.density_g_cm3,
+            state.temperature_k,
+            state.degeneracy_psi,
+        );
         self.check(rho, t)?;
         let setup = self.setup(rho, t, comp)?;
-        let (_, stages, el) = self.solve_neutrality(&setup, setup.psi_full)?;
-        let p_e = setup.q * setup.kt * (2.0 / 3.0) * el.f_three_halves;
-        let p_ion = rho / M_U_G * stages.n_p * setup.kt;
-        Ok(1.5 * (p_ion + p_e) / rho
-            + A_RAD_CGS * t.powi(4) / rho
-            + stages.e_ion / M_U_G
-            + Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true).energy)
+        let inputs = &setup.inputs;
+        let stages = self.stages(inputs, psi);
+        let el = self.integrals(psi);
+        let ln_n_mu = (rho / M_U_G).ln();
+        let z_ion = comp.z() / METAL_MEAN_MASS_NUMBER;
+        let (sigma, he_0) = (stages.h_sigma, (1.0 - stages.he1 - stages.he2).max(0.0));
+        let hydrogen = translational(stages.h_atoms, H_ATOM_MASS_U, ln_n_mu, t)
+            + stages.h_atoms * stage_mixing(&[(1.0 - sigma, LN_2 + inputs.w_h.0), (sigma, 0.0)]);
+        let helium = translational(inputs.y4, 4.0, ln_n_mu, t)
+            + inputs.y4
+                * stage_mixing(&[
+                    (he_0, inputs.w_he1.0),
+                    (stages.he1, LN_2 + inputs.w_he2.0),
+                    (stages.he2, 0.0),
+                ]);
+        let metals = translational(z_ion, METAL_MEAN_MASS_NUMBER, ln_n_mu, t);
+        let molecules = inputs.molecular_entropy_k(&stages, ln_n_mu, t);
+        // T S_e = (5/2) P_e V - N_e k T psi, per m_u: P_e m_u / (rho k T) = (2/3) q F_3/2 m_u / rho.
+        let electrons =
+            2.5 * (2.0 / 3.0) * setup.q * el.f_three_halves * M_U_G / rho - stages.n_e * psi;
+        let coulomb = match setup.per_t.coulomb.as_ref() {
+            Some(at_t) => {
+                let u_c = Self::coulomb_at(rho, comp, Some(at_t), true).energy;
+                let f_c = coulomb_free_energy(
+                    rho,
+                    t,
+                    &Self::coulomb_ions(comp),
+                    Self::electrons_fully_ionised(comp),
+                );
+                (u_c - f_c) / t
+            }
+            None => 0.0,
+        };
+        let s = K_PER_MU * (hydrogen + helium + metals + molecules + electrons)
+            + radiation(rho, t)
+            + coulomb;
+        if s.is_finite() {
+            Ok(s)
+        } else {
+            Err(self.error("entropy not finite", rho, t))
+        }
     }
 
     /// The full state at a solved psi, with the analytic derivatives.
@@ -470,6 +544,11 @@ impl Plasma {
         let cp = cv + pt2 / (rho * t * chi_rho);
         let nabla_ad = p * chi_t / (rho * t * cv * chi_rho + pt2);
         let gamma1 = chi_rho + pt2 / (rho * t * cv);
+        // u counted from the fully ionised plasma at rest (see EosState).
+        let u = 1.5 * (p_ion + p_e) / rho
+            + A_RAD_CGS * t.powi(4) / rho
+            + (stages.e_ion - setup.inputs.ionised_energy()) / M_U_G
+            + coul.energy;
         let state = EosState {
             density_g_cm3: rho,
             temperature_k: t,
@@ -487,6 +566,7 @@ impl Plasma {
             hydrogen_ionised: stages.x_h,
             helium_single: stages.he1,
             helium_double: stages.he2,
+            specific_energy_erg_g: u,
         };
         let finite = [p, chi_rho, chi_t, cp, nabla_ad, gamma1]
             .iter()
@@ -793,16 +873,26 @@ pub(super) struct HeliumStages {
 }
 
 impl StageInputs {
+    /// Ionisation energy per m_u, erg, of the fully ionised mixture (every electron this law
+    /// can bind, freed), counted like [`Stages::e_ion`] from neutral atoms: the zero of u.
+    pub(super) fn ionised_energy(&self) -> f64 {
+        (self.x * CHI_H_EV + self.y4 * (CHI_HE1_EV + CHI_HE2_EV)) * EV_ERG
+            + self.mol.ionised_energy()
+    }
+
     fn full(&self) -> Stages {
         Stages {
             x_h: 1.0,
+            h_atoms: self.x,
+            h_sigma: 1.0,
+            donor_ionised: 0.0,
             he1: 0.0,
             he2: 1.0,
             n_e: self.x + 2.0 * self.y4 + self.z_e,
             d_n_e: Grad::default(),
             n_p: self.n_ion,
             d_n_p: Grad::default(),
-            e_ion: (self.x * CHI_H_EV + self.y4 * (CHI_HE1_EV + CHI_HE2_EV)) * EV_ERG,
+            e_ion: self.ionised_energy(),
             d_e_ion: Grad::default(),
         }
     }
@@ -884,6 +974,9 @@ impl StageInputs {
         let dxh = |d: f64| x_h * (1.0 - x_h) * d;
         Stages {
             x_h,
+            h_atoms: self.x,
+            h_sigma: x_h,
+            donor_ionised: 0.0,
             he1: he.he1,
             he2: he.he2,
             n_e: self.x * x_h + he.n_e + self.z_e,
@@ -930,6 +1023,14 @@ macro_rules! plasma_law {
                 comp: &$crate::physics::composition::Composition,
             ) -> Result<$crate::physics::eos::EosState, $crate::error::PhysicsError> {
                 Ok($engine.solve(rho, t, comp, None)?.state)
+            }
+
+            fn specific_entropy_erg_g_k(
+                &self,
+                state: &$crate::physics::eos::EosState,
+                comp: &$crate::physics::composition::Composition,
+            ) -> Option<f64> {
+                $engine.specific_entropy(state, comp).ok()
             }
 
             fn state_at_pressure(

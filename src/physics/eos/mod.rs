@@ -130,6 +130,26 @@ pub trait EquationOfState: Send + Sync + std::fmt::Debug {
         invert_by_newton(self, pressure_dyn_cm2, temperature_k, comp, None)
     }
 
+    /// The state at total pressure `pressure_dyn_cm2` and temperature `temperature_k`
+    /// ([`EquationOfState::state_at_pressure_near`] with `near`, else
+    /// [`EquationOfState::state_at_pressure`]) together with its specific entropy
+    /// ([`EquationOfState::specific_entropy_erg_g_k`]), which a law may compute on the
+    /// inversion's last evaluation (the plasma laws do: a profile row costs one evaluation less).
+    fn state_and_entropy_at_pressure(
+        &self,
+        pressure_dyn_cm2: f64,
+        temperature_k: f64,
+        comp: &Composition,
+        near: Option<&EosState>,
+    ) -> Result<(EosState, Option<f64>), PhysicsError> {
+        let state = match near {
+            Some(n) => self.state_at_pressure_near(pressure_dyn_cm2, temperature_k, comp, n)?,
+            None => self.state_at_pressure(pressure_dyn_cm2, temperature_k, comp)?,
+        };
+        let entropy = self.specific_entropy_erg_g_k(&state, comp);
+        Ok((state, entropy))
+    }
+
     /// As [`EquationOfState::state_at_pressure`], knowing the state `near` of a nearby point
     /// (the previous evaluation along an integration), which a law may use to start its
     /// inversion. The result must agree with `state_at_pressure` to the inversion's tolerance.

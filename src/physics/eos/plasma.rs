@@ -133,13 +133,16 @@ impl Plasma {
     }
 }
 
-/// A state together with d psi / d ln rho (used to warm-start the inversion).
+/// A state together with d psi / d ln rho (used to warm-start the inversion) and, when asked
+/// for, its specific entropy.
 #[derive(Debug, Clone, Copy)]
 pub struct Solved {
     /// The state.
     pub state: EosState,
     /// d psi / d ln rho at fixed T.
     pub dpsi_dlnrho: f64,
+    /// Specific entropy, erg g^-1 K^-1 ([`Plasma::specific_entropy`]), if asked for.
+    pub entropy_erg_g_k: Option<f64>,
 }
 
 /// Everything at one (rho, T) that does not depend on psi.
@@ -416,7 +419,7 @@ impl Plasma {
             .filter(|g| g.is_finite())
             .unwrap_or(setup.psi_full);
         let (psi, stages, el) = self.solve_neutrality(&setup, guess)?;
-        self.finish(&setup, comp, psi, &stages, &el)
+        self.finish(&setup, comp, psi, &stages, &el, false)
     }
 
     /// Specific internal energy at (rho, T), erg g^-1, counted from the fully ionised plasma at
@@ -444,9 +447,6 @@ impl Plasma {
         state: &EosState,
         comp: &Composition,
     ) -> Result<f64, PhysicsError> {
-        use super::entropy::{radiation, stage_mixing, translational, K_PER_MU};
-        use super::h2::H_ATOM_MASS_U;
-        use std::f64::consts::LN_2;
         let (rho, t, psi) = (
             state.density_g_cm3,
             state.temperature_k,
@@ -454,9 +454,27 @@ impl Plasma {
         );
         self.check(rho, t)?;
         let setup = self.setup(rho, t, comp)?;
-        let inputs = &setup.inputs;
-        let stages = self.stages(inputs, psi);
+        let stages = self.stages(&setup.inputs, psi);
         let el = self.integrals(psi);
+        let u_c = Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true).energy;
+        self.entropy_at(&setup, comp, psi, &stages, &el, u_c)
+    }
+
+    /// The entropy ([`Plasma::specific_entropy`]) at a solved psi, with the Coulomb energy
+    /// `u_c` (erg g^-1) there.
+    fn entropy_at(
+        &self,
+        setup: &Setup,
+        comp: &Composition,
+        psi: f64,
+        stages: &Stages,
+        el: &ElectronIntegrals,
+        u_c: f64,
+    ) -> Result<f64, PhysicsError> {
+        use super::entropy::{radiation, stage_mixing, translational, K_PER_MU};
+        use super::h2::H_ATOM_MASS_U;
+        use std::f64::consts::LN_2;
+        let (rho, t, inputs) = (setup.rho, setup.t, &setup.inputs);
         let ln_n_mu = (rho / M_U_G).ln();
         let z_ion = comp.z() / METAL_MEAN_MASS_NUMBER;
         let (sigma, he_0) = (stages.h_sigma, (1.0 - stages.he1 - stages.he2).max(0.0));
@@ -470,22 +488,20 @@ impl Plasma {
                     (stages.he2, 0.0),
                 ]);
         let metals = translational(z_ion, METAL_MEAN_MASS_NUMBER, ln_n_mu, t);
-        let molecules = inputs.molecular_entropy_k(&stages, ln_n_mu, t);
+        let molecules = inputs.molecular_entropy_k(stages, ln_n_mu, t);
         // T S_e = (5/2) P_e V - N_e k T psi, per m_u: P_e m_u / (rho k T) = (2/3) q F_3/2 m_u / rho.
         let electrons =
             2.5 * (2.0 / 3.0) * setup.q * el.f_three_halves * M_U_G / rho - stages.n_e * psi;
-        let coulomb = match setup.per_t.coulomb.as_ref() {
-            Some(at_t) => {
-                let u_c = Self::coulomb_at(rho, comp, Some(at_t), true).energy;
-                let f_c = coulomb_free_energy(
-                    rho,
-                    t,
-                    &Self::coulomb_ions(comp),
-                    Self::electrons_fully_ionised(comp),
-                );
-                (u_c - f_c) / t
-            }
-            None => 0.0,
+        let coulomb = if setup.per_t.coulomb.is_some() {
+            let f_c = coulomb_free_energy(
+                rho,
+                t,
+                &Self::coulomb_ions(comp),
+                Self::electrons_fully_ionised(comp),
+            );
+            (u_c - f_c) / t
+        } else {
+            0.0
         };
         let s = K_PER_MU * (hydrogen + helium + metals + molecules + electrons)
             + radiation(rho, t)
@@ -497,7 +513,8 @@ impl Plasma {
         }
     }
 
-    /// The full state at a solved psi, with the analytic derivatives.
+    /// The full state at a solved psi, with the analytic derivatives, and the entropy if
+    /// `with_entropy`.
     fn finish(
         &self,
         setup: &Setup,
@@ -505,6 +522,7 @@ impl Plasma {
         psi: f64,
         stages: &Stages,
         el: &ElectronIntegrals,
+        with_entropy: bool,
     ) -> Result<Solved, PhysicsError> {
         let Setup { rho, t, kt, q, .. } = *setup;
         // The inversion carried the Coulomb pressure only; the energy terms are added here.
@@ -578,9 +596,16 @@ impl Plasma {
                 t,
             ));
         }
+        let entropy_erg_g_k = if with_entropy {
+            self.entropy_at(setup, comp, psi, stages, el, coul.energy)
+                .ok()
+        } else {
+            None
+        };
         Ok(Solved {
             state,
             dpsi_dlnrho: psi_rho,
+            entropy_erg_g_k,
         })
     }
 
@@ -640,7 +665,7 @@ impl Plasma {
         t: f64,
         comp: &Composition,
     ) -> Result<EosState, PhysicsError> {
-        self.at_pressure_from(p, t, comp, None)
+        Ok(self.at_pressure_from(p, t, comp, None, false)?.state)
     }
 
     /// As [`Plasma::at_pressure`], with the joint iteration started from the state `near` of a
@@ -654,27 +679,56 @@ impl Plasma {
         comp: &Composition,
         near: &EosState,
     ) -> Result<EosState, PhysicsError> {
-        let start = (near.density_g_cm3 > 0.0
-            && near.chi_rho > 0.0
-            && near.degeneracy_psi.is_finite())
-        .then(|| {
-            let ln_rho = near.density_g_cm3.ln()
-                + ((p / near.pressure_dyn_cm2).ln() - near.chi_t * (t / near.temperature_k).ln())
-                    / near.chi_rho;
-            (ln_rho, near.degeneracy_psi)
-        });
-        self.at_pressure_from(p, t, comp, start.filter(|(r, _)| r.is_finite()))
+        Ok(self
+            .at_pressure_from(p, t, comp, Self::start_near(p, t, near), false)?
+            .state)
+    }
+
+    /// As [`Plasma::at_pressure_near`] (from the fully ionised ideal gas without `near`),
+    /// together with the state's specific entropy ([`Plasma::specific_entropy`]; `None` if it
+    /// is not finite), computed on the inversion's last evaluation.
+    pub fn at_pressure_with_entropy(
+        &self,
+        p: f64,
+        t: f64,
+        comp: &Composition,
+        near: Option<&EosState>,
+    ) -> Result<(EosState, Option<f64>), PhysicsError> {
+        let start = near.and_then(|n| Self::start_near(p, t, n));
+        let solved = self.at_pressure_from(p, t, comp, start, true)?;
+        let entropy = solved
+            .entropy_erg_g_k
+            .or_else(|| self.specific_entropy(&solved.state, comp).ok());
+        Ok((solved.state, entropy))
+    }
+
+    /// The joint iteration's start from the state `near` of a nearby point: ln rho extrapolated
+    /// to (`p`, `t`) with its chi_rho and chi_T, and its psi.
+    fn start_near(p: f64, t: f64, near: &EosState) -> Option<(f64, f64)> {
+        (near.density_g_cm3 > 0.0 && near.chi_rho > 0.0 && near.degeneracy_psi.is_finite())
+            .then(|| {
+                let ln_rho = near.density_g_cm3.ln()
+                    + ((p / near.pressure_dyn_cm2).ln()
+                        - near.chi_t * (t / near.temperature_k).ln())
+                        / near.chi_rho;
+                (ln_rho, near.degeneracy_psi)
+            })
+            .filter(|(r, _)| r.is_finite())
     }
 
     /// The inversion, started at (ln rho, psi) = `start` if given, else from the fully ionised
-    /// ideal gas.
+    /// ideal gas; the entropy too if `with_entropy` (on the fast path; the caller computes it
+    /// after the bracketed fallback). Inlined: its callers keep only the parts of the result
+    /// they return, without copying the whole.
+    #[inline]
     fn at_pressure_from(
         &self,
         p: f64,
         t: f64,
         comp: &Composition,
         start: Option<(f64, f64)>,
-    ) -> Result<EosState, PhysicsError> {
+        with_entropy: bool,
+    ) -> Result<Solved, PhysicsError> {
         if !(p.is_finite() && p > 0.0) {
             return Err(self.error(
                 format!("pressure {p:e} dyn/cm^2 must be finite and positive"),
@@ -702,15 +756,15 @@ impl Plasma {
             .clamp(lo, hi);
         let ln_p = p.ln();
         if let Some((warm_rho, warm_psi)) = start {
-            if let Some(state) =
-                self.joint_newton(ln_p, p_rad, t, comp, warm_rho.clamp(lo, hi), Some(warm_psi))
-            {
-                return Ok(state);
+            let warm = (warm_rho.clamp(lo, hi), Some(warm_psi));
+            if let Some(solved) = self.joint_newton(ln_p, p_rad, t, comp, warm, with_entropy) {
+                return Ok(solved);
             }
         }
         let mut ln_rho = ideal;
-        if let Some(state) = self.joint_newton(ln_p, p_rad, t, comp, ln_rho, None) {
-            return Ok(state);
+        if let Some(solved) = self.joint_newton(ln_p, p_rad, t, comp, (ln_rho, None), with_entropy)
+        {
+            return Ok(solved);
         }
         // Fallback: nested iteration, slower but bracketed.
         let mut psi_guess = None;
@@ -719,7 +773,7 @@ impl Plasma {
             let s = solved.state;
             let f = s.pressure_dyn_cm2.ln() - ln_p;
             if f.abs() < 1e-12 {
-                return Ok(s);
+                return Ok(solved);
             }
             if f > 0.0 {
                 hi = ln_rho;
@@ -765,9 +819,9 @@ impl Plasma {
         p_rad: f64,
         t: f64,
         comp: &Composition,
-        ln_rho_start: f64,
-        psi_start: Option<f64>,
-    ) -> Option<EosState> {
+        (ln_rho_start, psi_start): (f64, Option<f64>),
+        with_entropy: bool,
+    ) -> Option<Solved> {
         let (rlo, rhi) = self.rho_range_g_cm3;
         let (llo, lhi) = (rlo.ln(), rhi.ln());
         let mut ln_rho = ln_rho_start;
@@ -788,9 +842,8 @@ impl Plasma {
             let r1 = p_tot.ln() - ln_p;
             if r1.abs() < 1e-12 && r2.abs() < 1e-12 {
                 return self
-                    .finish(&setup, comp, ps, &stages, &el)
-                    .ok()
-                    .map(|s| s.state);
+                    .finish(&setup, comp, ps, &stages, &el, with_entropy)
+                    .ok();
             }
             let a11 = (p_ion * (1.0 + stages.d_n_p.ln_rho / stages.n_p) + setup.coulomb.dp_dln_rho)
                 / p_tot;
@@ -1031,6 +1084,17 @@ macro_rules! plasma_law {
                 comp: &$crate::physics::composition::Composition,
             ) -> Option<f64> {
                 $engine.specific_entropy(state, comp).ok()
+            }
+
+            fn state_and_entropy_at_pressure(
+                &self,
+                p: f64,
+                t: f64,
+                comp: &$crate::physics::composition::Composition,
+                near: Option<&$crate::physics::eos::EosState>,
+            ) -> Result<($crate::physics::eos::EosState, Option<f64>), $crate::error::PhysicsError>
+            {
+                $engine.at_pressure_with_entropy(p, t, comp, near)
             }
 
             fn state_at_pressure(

@@ -474,7 +474,8 @@ fn potential_energy_from_the_potential() {
 /// The grids: uniform in radius (to the root finder's 1e-14 in x, about 1e-13 of R) and in mass
 /// (exact but for the photosphere, about 1e-11 M below M); the balanced grid gives every range
 /// of r/R and of m/M at least a third of its uniform share of rows, and the outer layers fewer
-/// rows than the integrator's steps alone would (1 745 of 5 000 above 0.99 R, issue 12).
+/// rows than the integrator's steps alone gave (1 735 of 5 000 above 0.99 R before this grid;
+/// 1 745 in issue 12).
 #[test]
 fn grids_are_as_documented() {
     let dir = scratch_dir("profile-grids");
@@ -512,7 +513,7 @@ fn grids_are_as_documented() {
         }
     }
     let outer = auto.col("r_over_R").iter().filter(|&&v| v > 0.99).count();
-    assert!(outer < 1745 / 2, "{outer} rows above 0.99 R");
+    assert!(outer < 1735 / 2, "{outer} rows above 0.99 R");
     let _ = std::fs::remove_dir_all(&dir);
 }
 

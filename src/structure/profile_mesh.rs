@@ -462,3 +462,29 @@ impl<'a> FineSolution<'a> {
         }
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn grid_names_round_trip() {
+        for g in ProfileGrid::ALL {
+            assert_eq!(g.name().parse::<ProfileGrid>().unwrap(), g);
+            assert_eq!(g.to_string(), g.name());
+        }
+        assert_eq!(ProfileGrid::default(), ProfileGrid::Auto);
+        let err = "uniform".parse::<ProfileGrid>().unwrap_err().to_string();
+        assert!(err.contains("auto, radius or mass"), "{err}");
+    }
+
+    /// Five-point Gauss–Legendre integrates polynomials to degree 9 exactly: the weights sum to
+    /// 2 and x^8 integrates to 2/9 on [-1, 1].
+    #[test]
+    fn gauss_rule_is_exact_to_degree_nine() {
+        let sum = |f: &dyn Fn(f64) -> f64| GAUSS.iter().map(|&(t, w)| w * f(t)).sum::<f64>();
+        assert!((sum(&|_| 1.0) - 2.0).abs() < 1e-15);
+        assert!((sum(&|t| t.powi(8)) - 2.0 / 9.0).abs() < 1e-15);
+        assert!(sum(&|t| t.powi(9)).abs() < 1e-15);
+    }
+}

@@ -172,6 +172,26 @@ struct PerTemperature {
     ln_q: f64,
 }
 
+/// The balance evaluated at one psi: what the state and the entropy are read from.
+#[derive(Clone, Copy)]
+struct AtPsi<'a> {
+    setup: &'a Setup,
+    psi: f64,
+    stages: &'a Stages,
+    el: &'a ElectronIntegrals,
+}
+
+impl<'a> AtPsi<'a> {
+    fn new(setup: &'a Setup, psi: f64, stages: &'a Stages, el: &'a ElectronIntegrals) -> Self {
+        Self {
+            setup,
+            psi,
+            stages,
+            el,
+        }
+    }
+}
+
 /// Derivatives of one quantity with respect to (psi, ln T, ln rho).
 #[derive(Debug, Clone, Copy, Default)]
 pub(super) struct Grad {
@@ -419,7 +439,7 @@ impl Plasma {
             .filter(|g| g.is_finite())
             .unwrap_or(setup.psi_full);
         let (psi, stages, el) = self.solve_neutrality(&setup, guess)?;
-        self.finish(&setup, comp, psi, &stages, &el, false)
+        self.finish(&AtPsi::new(&setup, psi, &stages, &el), comp, false)
     }
 
     /// Specific internal energy at (rho, T), erg g^-1, counted from the fully ionised plasma at
@@ -457,20 +477,18 @@ impl Plasma {
         let stages = self.stages(&setup.inputs, psi);
         let el = self.integrals(psi);
         let u_c = Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true).energy;
-        self.entropy_at(&setup, comp, psi, &stages, &el, u_c)
+        self.entropy_at(&AtPsi::new(&setup, psi, &stages, &el), comp, u_c)
     }
 
     /// The entropy ([`Plasma::specific_entropy`]) at a solved psi, with the Coulomb energy
     /// `u_c` (erg g^-1) there.
-    fn entropy_at(
-        &self,
-        setup: &Setup,
-        comp: &Composition,
-        psi: f64,
-        stages: &Stages,
-        el: &ElectronIntegrals,
-        u_c: f64,
-    ) -> Result<f64, PhysicsError> {
+    fn entropy_at(&self, at: &AtPsi, comp: &Composition, u_c: f64) -> Result<f64, PhysicsError> {
+        let AtPsi {
+            setup,
+            psi,
+            stages,
+            el,
+        } = *at;
         use super::entropy::{radiation, stage_mixing, translational, K_PER_MU};
         use super::h2::H_ATOM_MASS_U;
         use std::f64::consts::LN_2;
@@ -517,13 +535,16 @@ impl Plasma {
     /// `with_entropy`.
     fn finish(
         &self,
-        setup: &Setup,
+        at: &AtPsi,
         comp: &Composition,
-        psi: f64,
-        stages: &Stages,
-        el: &ElectronIntegrals,
         with_entropy: bool,
     ) -> Result<Solved, PhysicsError> {
+        let AtPsi {
+            setup,
+            psi,
+            stages,
+            el,
+        } = *at;
         let Setup { rho, t, kt, q, .. } = *setup;
         // The inversion carried the Coulomb pressure only; the energy terms are added here.
         let coul = &Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true);
@@ -597,8 +618,7 @@ impl Plasma {
             ));
         }
         let entropy_erg_g_k = if with_entropy {
-            self.entropy_at(setup, comp, psi, stages, el, coul.energy)
-                .ok()
+            self.entropy_at(at, comp, coul.energy).ok()
         } else {
             None
         };
@@ -842,7 +862,7 @@ impl Plasma {
             let r1 = p_tot.ln() - ln_p;
             if r1.abs() < 1e-12 && r2.abs() < 1e-12 {
                 return self
-                    .finish(&setup, comp, ps, &stages, &el, with_entropy)
+                    .finish(&AtPsi::new(&setup, ps, &stages, &el), comp, with_entropy)
                     .ok();
             }
             let a11 = (p_ion * (1.0 + stages.d_n_p.ln_rho / stages.n_p) + setup.coulomb.dp_dln_rho)

@@ -2,7 +2,8 @@
 //! and every column checked against its definition and against the others.
 //!
 //! - The differential identities (hydrostatic balance dP/dr = -rho g, continuity
-//!   dm/dr = 4 pi r^2 rho, dPhi/dr = g, V = -dln P/dln r, A* = (1/Gamma_1) dln P/dln r -
+//!   dm/dr = 4 pi r^2 rho, dPhi/dr = g, V = -dln P/dln r, U = dln m/dln r,
+//!   A* = (1/Gamma_1) dln P/dln r -
 //!   dln rho/dln r, and the thermodynamic identities du = c_V dT + (P/rho^2)(1 - chi_T) d rho and
 //!   T ds = du - (P/rho^2) d rho) are checked by three-point differences between rows, and their
 //!   residual is shown to be the differences' truncation error alone: on the radius grid with
@@ -127,6 +128,10 @@ fn structure_v(p: &Profile, i: usize, s: usize) -> f64 {
     -dln(p, "pressure_dyn_cm2", i, s) / p.col("structure_v")[i] - 1.0
 }
 
+fn structure_u(p: &Profile, i: usize, s: usize) -> f64 {
+    dln(p, "mass_g", i, s) / p.col("structure_u")[i] - 1.0
+}
+
 /// A* against its definition, relative to V (A* itself vanishes in convective zones).
 fn structure_a_star(p: &Profile, i: usize, s: usize) -> f64 {
     let definition =
@@ -241,6 +246,7 @@ fn structure_identities_are_exact_up_to_truncation() {
             ("continuity", continuity),
             ("dPhi/dr = g", potential),
             ("V", structure_v),
+            ("U", structure_u),
             ("A*", structure_a_star),
         ],
     );

@@ -483,12 +483,7 @@ impl Plasma {
     /// The entropy ([`Plasma::specific_entropy`]) at a solved psi, with the Coulomb energy
     /// `u_c` (erg g^-1) there.
     fn entropy_at(&self, at: &AtPsi, comp: &Composition, u_c: f64) -> Result<f64, PhysicsError> {
-        let AtPsi {
-            setup,
-            psi,
-            stages,
-            el,
-        } = *at;
+        let (setup, psi, stages, el) = (at.setup, at.psi, at.stages, at.el);
         use super::entropy::{radiation, stage_mixing, translational, K_PER_MU};
         use super::h2::H_ATOM_MASS_U;
         use std::f64::consts::LN_2;
@@ -539,12 +534,7 @@ impl Plasma {
         comp: &Composition,
         with_entropy: bool,
     ) -> Result<Solved, PhysicsError> {
-        let AtPsi {
-            setup,
-            psi,
-            stages,
-            el,
-        } = *at;
+        let (setup, psi, stages, el) = (at.setup, at.psi, at.stages, at.el);
         let Setup { rho, t, kt, q, .. } = *setup;
         // The inversion carried the Coulomb pressure only; the energy terms are added here.
         let coul = &Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true);

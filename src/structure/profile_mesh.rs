@@ -111,8 +111,9 @@ pub(crate) struct Structure {
     pub l_over_m: f64,
     /// Gravitational potential, erg g^-1.
     pub potential_erg_g: f64,
-    /// The leg and x to name in an error at this place.
+    /// The leg to name in an error at this place.
     pub leg: Leg,
+    /// The leg's variable x to name in an error at this place.
     pub x: f64,
 }
 
@@ -224,7 +225,7 @@ pub(crate) struct FineSolution<'a> {
     inward: LegTrack,
     /// R, cm.
     pub radius_cm: f64,
-    /// The fitting mass fraction and its x on each leg.
+    /// The fitting mass fraction, where the legs meet.
     fit_fraction: f64,
     /// int_{m0}^{M} dm / r, cm^-1 g: the potential's integral from the outward leg's start.
     integral_from_start: f64,

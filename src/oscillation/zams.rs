@@ -37,14 +37,8 @@ pub fn tabulated_from_profile(rows: &[ProfileRow]) -> Result<TabulatedModel> {
             "the rows must have strictly increasing radius",
         ));
     }
-    let n = rows.len() + 1;
+    let n = rows.len();
     let mut a: [Vec<f64>; 6] = std::array::from_fn(|_| Vec::with_capacity(n));
-    if rows[0].radius_cm > 0.0 {
-        let c = centre_row(&rows[0], &rows[1]);
-        for (column, value) in a.iter_mut().zip(c) {
-            column.push(value);
-        }
-    }
     for row in rows {
         let values = [
             row.radius_cm,
@@ -68,26 +62,3 @@ pub fn tabulated_from_profile(rows: &[ProfileRow]) -> Result<TabulatedModel> {
         brunt_n2_s2,
     })
 }
-
-// ---- Centre handling: only while profiles start off the centre ------------------------------
-// Today's profiles start at m = 1e-10 M (r of order 1e-4 R), not at r = 0, which the tabulated
-// model needs. Drop `centre_row` (and its call above) once the profile has a row at r = 0.
-
-/// The row at r = 0 (r, m, P, rho, Gamma_1, N^2) from the two rows nearest the centre, by the
-/// regular expansion f(r) = f_c + f_2 r^2 + O(r^4) of P, rho and Gamma_1 (the structure is even
-/// in r at a regular centre: P = P_c - (2 pi/3) G rho_c^2 r^2 + ..., e.g. Kippenhahn & Weigert
-/// 1990, §11.3; fact of the trade), and N^2(0) = 0 (N^2 is proportional to g^2, and g to r).
-/// Two rows at r ~ 1e-4 R leave an O(r^4) error of order 1e-16 relative.
-fn centre_row(a: &ProfileRow, b: &ProfileRow) -> [f64; 6] {
-    let (ra, rb) = (a.radius_cm * a.radius_cm, b.radius_cm * b.radius_cm);
-    let at_zero = |fa: f64, fb: f64| (fa * rb - fb * ra) / (rb - ra);
-    [
-        0.0,
-        0.0,
-        at_zero(a.pressure_dyn_cm2, b.pressure_dyn_cm2),
-        at_zero(a.density_g_cm3, b.density_g_cm3),
-        at_zero(a.gamma1, b.gamma1),
-        0.0,
-    ]
-}
-// ---- End of centre handling -----------------------------------------------------------------

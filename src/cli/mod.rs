@@ -5,11 +5,13 @@ mod common;
 mod compare;
 mod completions;
 mod figure;
+mod io;
 mod model_file;
 mod plot;
 mod polytrope;
 mod probe;
 mod sequence;
+mod values;
 mod verify;
 mod zams;
 
@@ -91,6 +93,7 @@ fn flag_of(sequence: bool, compare: bool, key: &str) -> Option<&'static str> {
         "shard" => "--shard",
         "masses" if compare => "--mass",
         "files" => "FILES",
+        "grid size" => "--masses x --x x --z x --variant",
         _ => return None,
     })
 }

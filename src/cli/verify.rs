@@ -1,5 +1,6 @@
 //! `starpoise verify`: run the built-in published checks and report them.
 
+use super::io::{err, out};
 use super::Format;
 use clap::Args;
 use starpoise::verify::{checks, run_all, CheckReport, Summary};
@@ -23,14 +24,14 @@ pub fn run(args: VerifyArgs) -> Result<()> {
         .collect();
     let summary = Summary::of(&reports);
     match args.format {
-        Format::Text => print!("{}", starpoise::verify::report::to_text(&reports)),
+        Format::Text => out(&starpoise::verify::report::to_text(&reports))?,
         Format::Json => {
             let text = serde_json::to_string_pretty(&reports).map_err(|e| Error::Io {
                 path: "<stdout>".to_string(),
                 reason: e.to_string(),
             })?;
-            println!("{text}");
-            eprintln!("{}", summary.line());
+            out(&format!("{text}\n"))?;
+            err(&format!("{}\n", summary.line()));
         }
     }
     if summary.failed > 0 {

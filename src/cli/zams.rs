@@ -1,10 +1,10 @@
 //! `starpoise zams`: one zero-age main-sequence model.
 
 use super::common::{CompositionFlags, PhysicsFlags};
+use super::io::{err, Files};
 use super::model_file::ModelFile;
-use super::Format;
+use super::{values, Format};
 use clap::{Args, ValueEnum};
-use starpoise::output::check_output_path;
 use starpoise::output::zams::{
     failure_json, summary_json, text_summary, to_json_text, write_profile, ProfileFormat,
 };
@@ -18,26 +18,26 @@ use std::path::PathBuf;
 #[derive(Debug, Args)]
 pub struct ZamsArgs {
     /// Stellar mass in solar masses (0.05–150).
-    #[arg(long, value_name = "MSUN")]
+    #[arg(long, value_name = "MSUN", value_parser = values::number, allow_hyphen_values = true)]
     mass: Option<f64>,
     #[command(flatten)]
     composition: CompositionFlags,
     #[command(flatten)]
     physics: PhysicsFlags,
     /// Fitting mass as a fraction of M [default: 0.4].
-    #[arg(long, value_name = "FRACTION")]
+    #[arg(long, value_name = "FRACTION", value_parser = values::number, allow_hyphen_values = true)]
     fit_mass: Option<f64>,
-    /// Finest integrator tolerance [default: 1e-11].
-    #[arg(long, value_name = "TOL")]
+    /// Finest integrator tolerance [default: 1e-11; range 1e-13 to 1e-6].
+    #[arg(long, value_name = "TOL", value_parser = values::number, allow_hyphen_values = true)]
     tolerance: Option<f64>,
-    /// Maximum Newton iterations [default: 60].
-    #[arg(long, value_name = "N")]
+    /// Maximum Newton iterations [default: 60; range 1 to 500].
+    #[arg(long, value_name = "N", value_parser = values::max_iterations, allow_hyphen_values = true)]
     max_iterations: Option<usize>,
     /// Output format of the summary.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     format: Format,
-    /// Write the profile to this file (atomically).
-    #[arg(long, value_name = "FILE")]
+    /// Write the profile to this file (atomically; `-` for standard output).
+    #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     profile: Option<PathBuf>,
     /// Format of the profile file.
     #[arg(long, value_enum, default_value_t = ProfileFileFormat::Csv)]
@@ -49,15 +49,15 @@ pub struct ZamsArgs {
     /// The x axis of the --plot figure [default: radius].
     #[arg(long, value_enum, requires = "plot")]
     abscissa: Option<super::figure::AbscissaArg>,
-    /// Number of profile rows [default: 400].
-    #[arg(long, value_name = "K")]
+    /// Number of profile rows [default: 400; range 10 to 100000].
+    #[arg(long, value_name = "K", value_parser = values::profile_points, allow_hyphen_values = true)]
     points: Option<usize>,
     /// Read the model's settings from this JSON model file; flags override it.
     #[arg(long, value_name = "FILE")]
     model: Option<PathBuf>,
     /// Starting guesses: central pressure (dyn/cm^2), central temperature (K), radius (R_sun),
     /// luminosity (L_sun); all four together.
-    #[arg(long, value_names = ["PC", "TC", "RSUN", "LSUN"], num_args = 4)]
+    #[arg(long, value_names = ["PC", "TC", "RSUN", "LSUN"], num_args = 4, value_parser = values::number, allow_hyphen_values = true)]
     guess: Option<Vec<f64>>,
 }
 
@@ -106,6 +106,7 @@ impl ZamsArgs {
             settings = settings.with_max_iterations(n)?;
         }
         if let Some(g) = &self.guess {
+            check_guess(g)?;
             settings = settings.with_guess(g[0], g[1], g[2], g[3])?;
         }
         let points = check_profile_points(
@@ -117,6 +118,32 @@ impl ZamsArgs {
     }
 }
 
+/// The four values of `--guess`, each named by its place on the command line.
+const GUESS_SLOTS: [(&str, &str); 4] = [
+    (
+        "--guess PC",
+        "the central pressure in dyn/cm^2, e.g. 1.5e17",
+    ),
+    ("--guess TC", "the central temperature in K, e.g. 1.3e7"),
+    ("--guess RSUN", "the radius in R_sun, e.g. 0.9"),
+    ("--guess LSUN", "the luminosity in L_sun, e.g. 0.7"),
+];
+
+/// Each starting guess must be positive; the error names its place in `--guess PC TC RSUN
+/// LSUN`.
+fn check_guess(values: &[f64]) -> Result<()> {
+    for ((slot, what), &v) in GUESS_SLOTS.iter().zip(values) {
+        if !(v.is_finite() && v > 0.0) {
+            return Err(Error::invalid(
+                slot,
+                v,
+                &format!("a starting guess must be a positive number: {what}"),
+            ));
+        }
+    }
+    Ok(())
+}
+
 /// Run `starpoise zams`.
 pub fn run(args: ZamsArgs) -> Result<()> {
     let file = match &args.model {
@@ -124,18 +151,27 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         None => ModelFile::default(),
     };
     let (settings, points) = args.settings(&file)?;
-    if let Some(p) = &args.profile {
-        check_output_path("--profile", p)?;
+    let spec = settings.physics().spec().clone();
+    let mut files = Files::default();
+    if let Some(p) = &args.model {
+        files.input("the model file (--model)", p);
     }
-    if let Some(p) = &args.plot {
-        starpoise::output::plot::check_figure_path("--plot", p)?;
+    for table in spec.input_files() {
+        files.input("the opacity table", table);
     }
+    let channel = files
+        .text("--profile", args.profile.as_deref())
+        .figure("--plot", args.plot.as_deref())
+        .check()?;
     let model = match solve(&settings) {
         Ok(m) => m,
         Err(Error::NoConvergence(failure)) => {
-            eprint!("{}", starpoise::output::zams::failure_text(&failure));
+            err(&starpoise::output::zams::failure_text(&failure));
             if args.format == Format::Json {
-                println!("{}", to_json_text(&failure_json(&settings, &failure))?);
+                channel.print(&format!(
+                    "{}\n",
+                    to_json_text(&failure_json(&settings, &failure))?
+                ))?;
             }
             return Err(Error::NoConvergence(failure));
         }
@@ -159,8 +195,7 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         }
     }
     match args.format {
-        Format::Json => println!("{}", to_json_text(&summary_json(&model))?),
-        Format::Text => print!("{}", text_summary(&model)),
+        Format::Json => channel.print(&format!("{}\n", to_json_text(&summary_json(&model))?)),
+        Format::Text => channel.print(&text_summary(&model)),
     }
-    Ok(())
 }

@@ -168,7 +168,7 @@ impl CompareTable {
 /// Write the table to `path` (CSV of the records, or the whole table as JSON if the name ends
 /// in `.json`), atomically.
 pub fn write_table(path: &Path, table: &CompareTable) -> Result<()> {
-    crate::output::write_atomically(path, |w| {
+    crate::output::write_output(path, |w| {
         if crate::output::sequence::is_json(path) {
             serde_json::to_writer_pretty(&mut *w, table).map_err(std::io::Error::other)?;
             w.write_all(b"\n")

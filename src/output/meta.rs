@@ -97,7 +97,9 @@ mod tests {
         let p = Provenance::new("starpoise zams --mass 1")
             .with_model(Some("Lantern-B".into()), Some("two\nlines".into()));
         let lines = p.comment_lines();
-        assert!(lines.iter().all(|l| l.starts_with("# ") && !l.contains('\n')));
+        assert!(lines
+            .iter()
+            .all(|l| l.starts_with("# ") && !l.contains('\n')));
         assert!(lines.contains(&"# model_note: two lines".to_string()));
         assert_eq!(p.version, env!("CARGO_PKG_VERSION"));
     }

@@ -1,9 +1,11 @@
-//! Writing results: atomic file writes and the documented output schemas.
+//! Writing results: output destinations (standard output, special files, atomic file writes)
+//! and the documented output schemas.
 
-pub mod atomic;
 pub mod compare;
+pub mod destination;
 pub mod format;
 pub mod meta;
+pub mod pending;
 pub mod plot;
 pub mod polytrope;
 pub mod probe;
@@ -11,4 +13,7 @@ pub mod sequence;
 pub mod zams;
 
 pub use crate::physics::probe::ProbeReport;
-pub use atomic::{check_output_path, write_atomically};
+pub use destination::{
+    check_output_path, check_outputs, is_stdout_path, print_stdout, write_output, Destination,
+    OutputKind,
+};

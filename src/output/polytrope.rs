@@ -2,7 +2,7 @@
 //! CSV. Every key and column is documented with its unit.
 
 use crate::error::Result;
-use crate::output::write_atomically;
+use crate::output::write_output;
 use crate::polytrope::{LaneEmdenSolution, ScaledPolytrope};
 use serde::Serialize;
 use std::fmt::Write as _;
@@ -88,6 +88,40 @@ impl PolytropeSummary {
             potential_energy_erg: scaled.map(|s| s.potential_energy_erg),
             beta: scaled.and_then(|s| s.beta),
         }
+    }
+
+    /// The first quantity of the scaled star that is not a finite number (an overflow or
+    /// underflow from absurd units), as (key, description), or `None` if all are finite.
+    pub fn non_finite(&self) -> Option<(&'static str, &'static str)> {
+        let values = [
+            ("mass_g", "the mass in g", self.mass_g),
+            ("radius_cm", "the radius in cm", self.radius_cm),
+            (
+                "central_density_g_cm3",
+                "the central density",
+                self.central_density_g_cm3,
+            ),
+            (
+                "central_pressure_dyn_cm2",
+                "the central pressure",
+                self.central_pressure_dyn_cm2,
+            ),
+            (
+                "central_temperature_k",
+                "the central temperature",
+                self.central_temperature_k,
+            ),
+            (
+                "potential_energy_erg",
+                "the potential energy",
+                self.potential_energy_erg,
+            ),
+            ("beta", "beta = P_gas/P", self.beta),
+        ];
+        values
+            .into_iter()
+            .find(|(_, _, v)| v.is_some_and(|v| !v.is_finite() || v == 0.0))
+            .map(|(k, d, _)| (k, d))
     }
 
     /// The summary as aligned text for people: one quantity per line, value, unit.
@@ -214,7 +248,7 @@ pub fn write_profile_csv(
     solution: &LaneEmdenSolution,
     scaled: Option<&ScaledPolytrope>,
 ) -> Result<()> {
-    write_atomically(path, |w| {
+    write_output(path, |w| {
         let mut writer = csv::Writer::from_writer(w);
         match scaled {
             None => {

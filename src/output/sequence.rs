@@ -181,7 +181,7 @@ pub fn table_json(table: &GridTable) -> Value {
 
 /// Write the table to `path` (CSV, or JSON if it ends in `.json`), atomically.
 pub fn write_table(path: &Path, table: &GridTable) -> Result<()> {
-    crate::output::write_atomically(path, |w| {
+    crate::output::write_output(path, |w| {
         if is_json(path) {
             serde_json::to_writer_pretty(&mut *w, &table_json(table))
                 .map_err(std::io::Error::other)?;

@@ -87,7 +87,7 @@ pub enum ProfileFormat {
 
 /// Write profile rows as CSV or JSON, atomically.
 pub fn write_profile(path: &Path, rows: &[ProfileRow], format: ProfileFormat) -> Result<()> {
-    super::write_atomically(path, |w| match format {
+    super::write_output(path, |w| match format {
         ProfileFormat::Csv => {
             let mut csv = csv::Writer::from_writer(w);
             for r in rows {

@@ -8,7 +8,10 @@ use super::Format;
 use clap::Args;
 use starpoise::grid::run::{solve_points, RunSettings};
 use starpoise::grid::{parse_value_list, Grid};
-use starpoise::output::compare::{write_table, CompareRecord, CompareTable};
+use starpoise::output::compare::{
+    table_json, write_table, CompareRecord, CompareTable, COMPARE_CONTENT,
+};
+use starpoise::output::meta::{Meta, Provenance};
 use starpoise::structure::DEFAULT_FIT_MASS_FRACTION;
 use starpoise::{Error, Result};
 use std::path::PathBuf;
@@ -35,8 +38,8 @@ pub struct CompareArgs {
     /// Output on stdout.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     format: Format,
-    /// Also write the records here: CSV, or JSON if the name ends in .json (atomically; `-`
-    /// for standard output, as CSV).
+    /// Also write the records here: CSV; JSON if the name ends in .json; ECSV if it ends in
+    /// .ecsv (atomically; `-` for standard output, as CSV).
     #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     out: Option<PathBuf>,
     /// Worker threads [default: 0, one per core; at most 256].
@@ -82,14 +85,15 @@ pub fn run(args: CompareArgs) -> Result<()> {
         &|| {},
     )?;
     let table = CompareTable::new(&grid, &masses, &results);
+    let meta = Meta::new(&Provenance::of_this_process(), COMPARE_CONTENT);
     if let Some(path) = &args.out {
-        write_table(path, &table)?;
+        write_table(path, &table, &meta)?;
     }
     match args.format {
         Format::Text => channel.print(&text_table(&grid, &table))?,
         Format::Json => channel.print(&format!(
             "{}\n",
-            serde_json::to_string_pretty(&table).map_err(|e| Error::Io {
+            serde_json::to_string_pretty(&table_json(&table, &meta)).map_err(|e| Error::Io {
                 path: "stdout".to_string(),
                 reason: e.to_string(),
             })?

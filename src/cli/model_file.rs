@@ -19,11 +19,9 @@ use std::path::Path;
 /// A model file's contents.
 #[derive(Debug, Default, Deserialize)]
 pub struct ModelFile {
-    /// Free-text name of the star (accepted so that files can label themselves).
-    #[allow(dead_code)]
+    /// Free-text name of the star (recorded in the outputs' provenance as `model_name`).
     pub name: Option<String>,
-    /// Free-text note.
-    #[allow(dead_code)]
+    /// Free-text note (recorded as `model_note`).
     pub note: Option<String>,
     /// Mass, M_sun.
     pub mass_msun: Option<f64>,

@@ -4,7 +4,10 @@ use super::io::Files;
 use super::Format;
 use clap::Args;
 use starpoise::error::{Error, Result};
-use starpoise::output::polytrope::{write_profile_csv, PolytropeSummary};
+use starpoise::output::meta::{Meta, Provenance};
+use starpoise::output::polytrope::{
+    profile_meta, write_profile, PolytropeSummary, POLYTROPE_CONTENT,
+};
 use starpoise::polytrope::{
     scale_to_star, solve_lane_emden, validate_index, validate_scaling, LaneEmdenSettings,
     StarParameters, DEFAULT_MU,
@@ -34,8 +37,8 @@ pub struct PolytropeArgs {
     /// Output format of the summary on stdout.
     #[arg(long, value_enum, default_value_t)]
     format: Format,
-    /// Also write the profile as CSV to this file (written atomically; `-` for standard
-    /// output).
+    /// Also write the profile to this file: CSV; JSON if it ends in .json; ECSV if in .ecsv
+    /// (written atomically; `-` for standard output, as CSV).
     #[arg(long, value_name = "FILE.csv", allow_hyphen_values = true)]
     profile: Option<PathBuf>,
     /// Number of profile points from the centre to the surface inclusive (2 to 1000000).
@@ -125,13 +128,20 @@ pub fn run(args: PolytropeArgs) -> Result<()> {
             ),
         ));
     }
+    let provenance = Provenance::of_this_process();
     if let Some(path) = &request.profile {
-        write_profile_csv(path, &solution, scaled.as_ref())?;
+        let meta = profile_meta(&Meta::new(&provenance, POLYTROPE_CONTENT), &summary);
+        write_profile(path, &solution, scaled.as_ref(), &meta)?;
     }
     match request.format {
         Format::Text => channel.print(&summary.to_text()),
         Format::Json => {
-            let json = serde_json::to_string_pretty(&summary).map_err(|e| Error::Io {
+            let meta = Meta::new(&provenance, "Lane-Emden polytrope summary");
+            let mut value = serde_json::to_value(&summary).unwrap_or_default();
+            if let serde_json::Value::Object(m) = &mut value {
+                m.insert("meta".into(), meta.to_json());
+            }
+            let json = serde_json::to_string_pretty(&value).map_err(|e| Error::Io {
                 path: "stdout".to_string(),
                 reason: e.to_string(),
             })?;

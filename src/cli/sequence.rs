@@ -9,8 +9,9 @@ use starpoise::grid::fits::{fit_groups, parse_ranges, DEFAULT_FIT_RANGES};
 use starpoise::grid::merge::merge_shards;
 use starpoise::grid::run::{solve_points, RunSettings};
 use starpoise::grid::{parse_value_list, Grid, GridRow, GridTable, Shard, Variant};
+use starpoise::output::meta::{Meta, Provenance};
 use starpoise::output::plot::{hr_diagram, series_from_rows};
-use starpoise::output::sequence::{read_table, write_table};
+use starpoise::output::sequence::{read_table, write_table, SEQUENCE_CONTENT};
 use starpoise::structure::DEFAULT_FIT_MASS_FRACTION;
 use starpoise::{Error, Result};
 use std::io::IsTerminal;
@@ -38,8 +39,8 @@ pub struct SequenceArgs {
     /// Fitting mass as a fraction of M [default: 0.4].
     #[arg(long, value_name = "FRACTION", value_parser = super::values::number, allow_hyphen_values = true)]
     fit_mass: Option<f64>,
-    /// Write the table here: CSV, or JSON if the name ends in .json (atomically; `-` for
-    /// standard output, as CSV).
+    /// Write the table here: CSV; JSON if the name ends in .json; ECSV if it ends in .ecsv
+    /// (atomically; `-` for standard output, as CSV).
     #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     out: Option<PathBuf>,
     /// Draw the HR diagram of the converged models to this figure, SVG or PNG by its
@@ -143,7 +144,8 @@ pub fn run(args: SequenceArgs) -> Result<()> {
         rows,
     };
     if let Some(path) = &args.out {
-        write_table(path, &table)?;
+        let meta = Meta::new(&Provenance::of_this_process(), SEQUENCE_CONTENT);
+        write_table(path, &table, &meta)?;
     }
     if let Some(path) = &args.plot {
         let series = series_from_rows(&table.rows);
@@ -219,11 +221,11 @@ pub fn text_table(t: &GridTable) -> String {
 /// Arguments of `starpoise merge`.
 #[derive(Debug, Args)]
 pub struct MergeArgs {
-    /// Shard outputs of one grid (CSV or JSON, by extension).
+    /// Shard outputs of one grid (CSV, ECSV or JSON, as `sequence --out` wrote them).
     #[arg(required = true, value_name = "FILES")]
     files: Vec<PathBuf>,
-    /// The merged table (CSV, or JSON if it ends in .json), written atomically (`-` for
-    /// standard output, as CSV).
+    /// The merged table (CSV; JSON if it ends in .json; ECSV if it ends in .ecsv), written
+    /// atomically (`-` for standard output, as CSV).
     #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     out: PathBuf,
 }
@@ -272,7 +274,8 @@ pub fn run_merge(args: MergeArgs) -> Result<()> {
         fits,
         rows,
     };
-    write_table(&args.out, &table)?;
+    let meta = Meta::new(&Provenance::of_this_process(), SEQUENCE_CONTENT);
+    write_table(&args.out, &table, &meta)?;
     err(&format!(
         "starpoise: merged {} grid points from {} files into {}\n",
         table.rows.len(),

@@ -5,9 +5,11 @@ use super::io::{err, Files};
 use super::model_file::ModelFile;
 use super::{values, Format};
 use clap::{Args, ValueEnum};
+use starpoise::output::meta::{Meta, Provenance};
 use starpoise::output::zams::{
-    failure_json, summary_json, text_summary, to_json_text, write_profile, ProfileFormat,
+    failure_json, profile_meta, summary_json, text_summary, to_json_text, with_meta, write_profile,
 };
+use starpoise::output::TableFormat;
 use starpoise::physics::PhysicsSet;
 use starpoise::structure::DEFAULT_PROFILE_POINTS;
 use starpoise::structure::{profile::check_profile_points, solve, ZamsSettings};
@@ -39,9 +41,10 @@ pub struct ZamsArgs {
     /// Write the profile to this file (atomically; `-` for standard output).
     #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     profile: Option<PathBuf>,
-    /// Format of the profile file.
-    #[arg(long, value_enum, default_value_t = ProfileFileFormat::Csv)]
-    profile_format: ProfileFileFormat,
+    /// Format of the profile file [default: by the extension: .json JSON, .ecsv ECSV, else
+    /// CSV].
+    #[arg(long, value_enum)]
+    profile_format: Option<ProfileFileFormat>,
     /// Draw the profile (T, rho, P, L, m and the gradients against r/R, m/M or log P) to this
     /// figure, SVG or PNG by its extension.
     #[arg(long, value_name = "FILE.svg|FILE.png")]
@@ -64,17 +67,20 @@ pub struct ZamsArgs {
 /// Profile file format.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
 pub enum ProfileFileFormat {
-    /// Comma-separated values with a header row.
+    /// Comma-separated values: `#` metadata lines, then a header row.
     Csv,
-    /// A JSON array of row objects.
+    /// One JSON object {meta, columns, units, rows}.
     Json,
+    /// ECSV 1.0 (astropy's Enhanced CSV, with units and metadata).
+    Ecsv,
 }
 
-impl From<ProfileFileFormat> for ProfileFormat {
+impl From<ProfileFileFormat> for TableFormat {
     fn from(f: ProfileFileFormat) -> Self {
         match f {
-            ProfileFileFormat::Csv => ProfileFormat::Csv,
-            ProfileFileFormat::Json => ProfileFormat::Json,
+            ProfileFileFormat::Csv => TableFormat::Csv,
+            ProfileFileFormat::Json => TableFormat::Json,
+            ProfileFileFormat::Ecsv => TableFormat::Ecsv,
         }
     }
 }
@@ -163,15 +169,15 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         .text("--profile", args.profile.as_deref())
         .figure("--plot", args.plot.as_deref())
         .check()?;
+    let provenance = Provenance::of_this_process().with_model(file.name.clone(), file.note.clone());
+    let summary_meta = Meta::new(&provenance, "ZAMS model summary");
     let model = match solve(&settings) {
         Ok(m) => m,
         Err(Error::NoConvergence(failure)) => {
             err(&starpoise::output::zams::failure_text(&failure));
             if args.format == Format::Json {
-                channel.print(&format!(
-                    "{}\n",
-                    to_json_text(&failure_json(&settings, &failure))?
-                ))?;
+                let json = with_meta(failure_json(&settings, &failure), &summary_meta);
+                channel.print(&format!("{}\n", to_json_text(&json)?))?;
             }
             return Err(Error::NoConvergence(failure));
         }
@@ -180,7 +186,10 @@ pub fn run(args: ZamsArgs) -> Result<()> {
     if args.profile.is_some() || args.plot.is_some() {
         let rows = model.profile(points)?;
         if let Some(path) = &args.profile {
-            write_profile(path, &rows, args.profile_format.into())?;
+            let format = args
+                .profile_format
+                .map_or_else(|| TableFormat::from_path(path), Into::into);
+            write_profile(path, &rows, format, &profile_meta(&provenance, &model))?;
         }
         if let Some(path) = &args.plot {
             let c = model.composition();
@@ -195,7 +204,10 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         }
     }
     match args.format {
-        Format::Json => channel.print(&format!("{}\n", to_json_text(&summary_json(&model))?)),
+        Format::Json => channel.print(&format!(
+            "{}\n",
+            to_json_text(&with_meta(summary_json(&model), &summary_meta))?
+        )),
         Format::Text => channel.print(&text_summary(&model)),
     }
 }

@@ -570,6 +570,19 @@ const CASES: &[Case] = &[
         "nonsense",
         "ideal",
     ),
+    case(
+        &[
+            "sequence",
+            "--masses",
+            "1",
+            "--physics",
+            "analytic",
+            "--variant",
+            "x=alpha:1.5",
+        ],
+        "--variant = x=alpha:1.5",
+        "only to convection mlt",
+    ),
     // sequence: outputs
     case(
         &[

@@ -92,9 +92,28 @@ impl Grid {
                 ),
             ));
         }
+        // The base flags on their own first, so that their errors name the flags; then each
+        // variant over them, whose errors name the variant.
+        PhysicsSet::from_spec(&base.resolve()?)?;
         let physics = variants
             .iter()
-            .map(|v| PhysicsSet::from_spec(&base.overridden_by(&v.overrides).resolve()?))
+            .map(|v| {
+                base.overridden_by(&v.overrides)
+                    .resolve()
+                    .and_then(|spec| PhysicsSet::from_spec(&spec))
+                    .map_err(|e| match e {
+                        Error::InvalidInput {
+                            name,
+                            value,
+                            allowed,
+                        } => Error::invalid(
+                            "variant",
+                            format!("{}={}", v.name, v.spec),
+                            &format!("{name} = {value}: {allowed}"),
+                        ),
+                        other => other,
+                    })
+            })
             .collect::<Result<Vec<_>>>()?;
         let mut points = Vec::new();
         for v in 0..variants.len() {

@@ -21,6 +21,21 @@ pub fn scratch_dir(name: &str) -> PathBuf {
     dir
 }
 
+/// A table file's text without its provenance `command` (the one line in which the outputs of
+/// different command lines that computed the same numbers may differ): the `# command: ...`
+/// line of CSV, the `command` entry of ECSV's meta, the `"command"` member of JSON.
+pub fn without_command(path: &std::path::Path) -> String {
+    let text = std::fs::read_to_string(path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+    text.lines()
+        .filter(|l| {
+            !(l.starts_with("# command: ")
+                || l.starts_with("# - {\"command\": ")
+                || l.trim_start().starts_with("\"command\": "))
+        })
+        .map(|l| format!("{l}\n"))
+        .collect()
+}
+
 /// Standard error as text.
 pub fn stderr(o: &Output) -> String {
     String::from_utf8_lossy(&o.stderr).into_owned()

@@ -67,6 +67,20 @@ mod tests {
         }
     }
 
+    proptest::proptest! {
+        #![proptest_config(proptest::prelude::ProptestConfig::with_cases(2000))]
+        /// Arbitrary text never panics; what is accepted is finite, or in range.
+        #[test]
+        fn arbitrary_text_is_parsed_or_refused(text in "\\PC{0,30}") {
+            if let Ok(v) = number(&text) {
+                proptest::prop_assert!(v.is_finite());
+            }
+            if let Ok(n) = count_in(&text, 10, 100_000) {
+                proptest::prop_assert!((10..=100_000).contains(&n));
+            }
+        }
+    }
+
     #[test]
     fn counts_name_their_range() {
         assert_eq!(count_in("400", 10, 100_000), Ok(400));

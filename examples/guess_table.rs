@@ -1,22 +1,42 @@
-//! Regenerate the built-in table of starting guesses (`structure::guess::REFERENCE_MODELS`):
-//! refined ZAMS models at X = 0.70, Z = 0.02, solved by continuation along the mass axis, printed
-//! as Rust source. Run: `cargo run --release --example guess_table`.
+//! Regenerate a built-in table of starting guesses (`structure::guess::REFINED_MODELS` or
+//! `ANALYTIC_MODELS`): ZAMS models of a preset at X = 0.70, Z = 0.02, solved by continuation
+//! along the mass axis, printed as Rust source.
+//! Run: `cargo run --release --example guess_table -- refined` (or `analytic`).
 
-use starpoise::physics::{Composition, PhysicsSet};
+use starpoise::physics::{Composition, PhysicsSet, Preset};
 use starpoise::structure::{guess, solve, ZamsSettings};
 
 fn main() -> Result<(), Box<dyn std::error::Error>> {
-    let physics = PhysicsSet::refined();
+    let preset: Preset = std::env::args()
+        .nth(1)
+        .unwrap_or_else(|| "refined".into())
+        .parse()?;
+    let physics = PhysicsSet::from_spec(&preset.spec())?;
     let comp = Composition::new(0.70, 0.02)?;
-    let masses = [
+    let all = [
         0.08, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.5, 0.7, 1.0, 1.2, 1.35, 1.5, 1.7, 2.0, 3.0,
         5.0, 7.0, 10.0, 15.0, 20.0, 30.0, 50.0, 70.0, 100.0, 150.0,
     ];
-    // Continue downward and upward from 1 M_sun, each model starting from its neighbour.
-    let start = masses
-        .iter()
-        .position(|&m| m == 1.0)
-        .ok_or("1 M_sun missing")?;
+    let lowest = preset.minimum_mass_msun().unwrap_or(0.0);
+    let masses: Vec<f64> = all.into_iter().filter(|&m| m >= lowest).collect();
+    // Continue downward and upward from the first mass that converges from the built-in guess
+    // (tried from 2 M_sun outward), each model starting from its neighbour.
+    let order: Vec<usize> = {
+        let mut o: Vec<usize> = (0..masses.len()).collect();
+        o.sort_by(|&a, &b| {
+            (masses[a] / 2.0)
+                .ln()
+                .abs()
+                .total_cmp(&(masses[b] / 2.0).ln().abs())
+        });
+        o
+    };
+    let start = order
+        .into_iter()
+        .find(|&i| {
+            ZamsSettings::new(masses[i], comp, physics.clone()).is_ok_and(|s| solve(&s).is_ok())
+        })
+        .ok_or("no mass converges from the built-in guess")?;
     let mut rows = vec![None; masses.len()];
     for order in [
         (start..masses.len()).collect::<Vec<_>>(),
@@ -40,7 +60,8 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
         }
     }
     println!(
-        "pub const REFERENCE_MODELS: [(f64, GuessRow); {}] = [",
+        "pub const {}_MODELS: [(f64, GuessRow); {}] = [",
+        preset.to_string().to_uppercase(),
         masses.len()
     );
     for (m, r) in masses.iter().zip(rows) {

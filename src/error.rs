@@ -97,6 +97,15 @@ pub enum Error {
     /// The shooting iteration for a model did not converge.
     #[error(transparent)]
     NoConvergence(#[from] Box<crate::structure::NotConverged>),
+    /// The search for oscillation modes of one degree failed: a mode could not be converged,
+    /// classified, or the orders asked for could not all be found.
+    #[error("mode search for degree {degree}: {reason}")]
+    ModeSearch {
+        /// Spherical degree l.
+        degree: u32,
+        /// What went wrong, with the frequency or orders concerned.
+        reason: String,
+    },
     /// Some models of a grid or comparison did not converge (the others were written).
     #[error("{failed} of {total} models did not converge (see their status)")]
     Incomplete {
@@ -145,7 +154,9 @@ impl Error {
     pub fn exit_code(&self) -> ExitCode {
         match self {
             Error::InvalidInput { .. } | Error::BadFile { .. } => ExitCode::BadInput,
-            Error::NoConvergence(_) | Error::Incomplete { .. } => ExitCode::NotConverged,
+            Error::NoConvergence(_) | Error::Incomplete { .. } | Error::ModeSearch { .. } => {
+                ExitCode::NotConverged
+            }
             _ => ExitCode::Failure,
         }
     }

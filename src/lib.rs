@@ -9,6 +9,7 @@ pub mod constants;
 pub mod error;
 pub mod grid;
 pub mod numerics;
+pub mod oscillation;
 pub mod output;
 pub mod physics;
 pub mod polytrope;

@@ -379,13 +379,18 @@ fn model_file_errors_name_the_file_and_key() {
 fn non_convergence_exits_3_with_history_and_no_result() {
     let dir = scratch_dir("zams-noconv");
     let profile = dir.join("p.csv");
-    // Two Newton iterations cannot converge from the default guess.
+    // Two Newton iterations cannot converge from a guess a factor 3 off in every unknown.
     let out = starpoise(&[
         "zams",
         "--mass",
         "1",
         "--physics",
         "analytic",
+        "--guess",
+        "3e17",
+        "5e7",
+        "3",
+        "0.3",
         "--max-iterations",
         "2",
         "--format",

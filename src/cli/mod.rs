@@ -6,7 +6,9 @@ mod compare;
 mod completions;
 mod figure;
 mod io;
+mod limits;
 mod model_file;
+mod modes;
 mod plot;
 mod polytrope;
 mod probe;
@@ -43,8 +45,13 @@ enum Command {
     Plot(plot::PlotArgs),
     /// Solve a Lane–Emden polytrope of index n, optionally scaled to a star.
     Polytrope(polytrope::PolytropeArgs),
+    /// Oscillation modes (radial, p, f, g) of a polytrope, dimensionless.
+    #[command(allow_negative_numbers = true)]
+    Modes(modes::ModesArgs),
     /// Evaluate every physics law at one density and temperature.
     Probe(probe::ProbeArgs),
+    /// Find the hydrogen-burning minimum mass for a composition and set of laws.
+    Limits(limits::LimitsArgs),
     /// Run the built-in published checks (constants, polytropes, microphysics, ZAMS figures).
     Verify(verify::VerifyArgs),
     /// Write a shell completion script to standard output.
@@ -94,6 +101,9 @@ fn flag_of(sequence: bool, compare: bool, key: &str) -> Option<&'static str> {
         "masses" if compare => "--mass",
         "files" => "FILES",
         "grid size" => "--masses x --x x --z x --variant",
+        "gamma1" => "--gamma1",
+        "degree" => "--degrees",
+        "max_order" => "--max-order",
         _ => return None,
     })
 }
@@ -124,7 +134,9 @@ fn dispatch(command: Command) -> Result<()> {
         Command::Compare(args) => compare::run(*args),
         Command::Merge(args) => sequence::run_merge(args),
         Command::Plot(args) => plot::run(args),
+        Command::Modes(args) => modes::run(args),
         Command::Probe(args) => probe::run(args),
+        Command::Limits(args) => limits::run(args),
         Command::Verify(args) => verify::run(args),
         Command::Completions(args) => completions::run(&args),
     }

@@ -1,5 +1,7 @@
 //! General numerical tools that know nothing about stars.
 
+pub mod brent;
+pub mod continuation;
 pub mod cube_root;
 pub mod newton;
 pub mod ode;

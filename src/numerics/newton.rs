@@ -32,6 +32,10 @@ pub trait NewtonProblem<const N: usize> {
     fn sharpen(&mut self) -> bool {
         false
     }
+    /// Told, before the trial of a Newton step, the mismatch expected after it, so that a
+    /// problem can evaluate the trial at the accuracy that mismatch calls for instead of the
+    /// current one (one evaluation fewer when the step is good). The default ignores it.
+    fn prepare_trial(&mut self, _expected_norm: f64) {}
 }
 
 /// Settings of the iteration. Defaults: tolerance 1e-8 on the max-norm of F, 60 iterations,
@@ -129,7 +133,8 @@ fn two_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
     }
 }
 
-fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
+/// max_i |v_i|, infinite if any component is NaN.
+pub(crate) fn max_norm<const N: usize>(v: &SVector<f64, N>) -> f64 {
     v.iter().fold(0.0f64, |a, x| {
         if x.is_nan() {
             f64::INFINITY
@@ -187,8 +192,10 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
     report.residual_norm = norm;
     let mut reusable: Option<SMatrix<f64, N, N>> = None;
     while report.iterations < settings.max_iterations {
+        // A change of accuracy keeps the Jacobian: F moves by about the old accuracy, its
+        // derivatives hardly at all, and a Jacobian that no longer serves is replaced anyway
+        // when the line search fails with it.
         if problem.adapt_to_residual(norm) {
-            reusable = None;
             match reevaluate(problem, &u, &mut report) {
                 Some((g, n)) => (f, norm) = (g, n),
                 None => return report,
@@ -232,6 +239,15 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
         // Backtracking: accept the first step length that lowers the max-norm of F; failing
         // that, the first that lowers its 2-norm (the Newton direction always descends |F|^2,
         // while the max-norm can stall on a curved valley).
+        // The mismatch expected after the step: the contraction of the last step if there was
+        // one, else that of a quadratically converging iteration from this mismatch (e -> e^1.5,
+        // the geometric mean of linear and quadratic); only the accuracy of the trial depends
+        // on it, never the answer.
+        let contraction = match report.history.last() {
+            Some(previous) if previous.residual_norm > 0.0 => norm / previous.residual_norm,
+            _ => norm.sqrt(),
+        };
+        problem.prepare_trial(norm * contraction.min(1.0));
         let norm2 = two_norm(&f);
         let mut accepted = None;
         let mut lambda = 1.0;

@@ -186,7 +186,7 @@ impl PolytropeSummary {
 }
 
 /// Ten significant digits: fixed notation between 1e-3 and 1e6, scientific otherwise.
-fn number(x: f64) -> String {
+pub(crate) fn number(x: f64) -> String {
     let magnitude = x.abs();
     if magnitude == 0.0 {
         return "0".to_string();

@@ -4,8 +4,8 @@
 //! dT/dm = -(G m T / (4 pi r^4 P)) nabla
 //!
 //! (Kippenhahn & Weigert 1990, eqs. 10.1–10.4, without the gravothermal term: this is the ZAMS).
-//! The state carries y = (ln r, ln P, ln T, L-variable), four running integrals used for the
-//! model's consistency checks, and a copy of the independent variable. The luminosity variable is
+//! The state carries y = (ln r, ln P, ln T, L-variable) and four running integrals used for the
+//! model's consistency checks. The luminosity variable is
 //! ln L on the outward leg (L > 0 there, and ln L keeps its relative accuracy near the centre,
 //! where L ~ eps_c m is tiny) and L / L_scale on the inward leg (a poor trial can use up all of
 //! L before the fitting mass; the linear form then stays finite and Newton still sees a
@@ -17,7 +17,7 @@ use crate::physics::{convection, Composition, ConvectionPoint, EnergyRate, EosSt
 use std::f64::consts::PI;
 
 /// Number of components of the integrated state.
-pub const STATE_LEN: usize = 9;
+pub const STATE_LEN: usize = 8;
 /// Index of ln r in the state.
 pub const LN_R: usize = 0;
 /// Index of ln P in the state.
@@ -72,14 +72,6 @@ pub const INT_CNO: usize = 5;
 pub const INT_THERMAL: usize = 6;
 /// Index of the running integral of G m / r dm, same units.
 pub const INT_GRAVITY: usize = 7;
-/// Index of a copy of the leg's independent variable, integrated with derivative 1.
-///
-/// `ode_solvers` 0.6.2 evaluates the twelfth stage of `Dop853` at c_12 = 0 instead of 1 (its
-/// tableau has `0.0` where Hairer's DOP853 has 1), so the right-hand side must not read the
-/// independent variable it is handed: the legs read this component instead, which every stage
-/// carries at the right abscissa (the stage weights of each row sum to its c_i). The test
-/// `tests/integrator_pitfalls.rs` pins this.
-pub const X_COPY: usize = 8;
 
 /// The integrated state vector.
 pub type State = nalgebra::SVector<f64, STATE_LEN>;

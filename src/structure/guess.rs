@@ -1,10 +1,11 @@
 //! Starting guesses for the shooting unknowns.
 //!
 //! The built-in guess interpolates, in log M, a reference table of this program's own converged
-//! `refined` models at X = 0.70, Z = 0.02 ([`REFERENCE_MODELS`], regenerated with
-//! `cargo run --release --example guess_table` whenever the refined laws change), shifted for
-//! other metallicities by logarithmic slopes fitted to this program's models at Z = 0.001 and
-//! Z = 0.04. The Newton iteration takes it from there; it does not need to be close.
+//! models of the preset at X = 0.70, Z = 0.02 ([`REFINED_MODELS`], [`ANALYTIC_MODELS`],
+//! regenerated with `cargo run --release --example guess_table -- PRESET` whenever the preset's
+//! laws change), shifted for other metallicities by logarithmic slopes fitted to this program's
+//! refined models at Z = 0.001 and Z = 0.04. The Newton iteration takes it from there; a guess
+//! within a few per cent takes it there in two or three iterations.
 //!
 //! For continuation along a sequence, [`shifted`] moves a converged neighbour by the difference
 //! of the smooth [`polytrope_guess`] between the two masses:
@@ -18,7 +19,7 @@
 
 use super::shooting::Unknowns;
 use crate::constants::{G_CGS, K_B_ERG_K, L_SUN_ERG_S, M_SUN_G, M_U_G, R_SUN_CM};
-use crate::physics::Composition;
+use crate::physics::{Composition, Preset};
 use crate::polytrope::eddington_beta;
 use crate::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
 
@@ -28,7 +29,7 @@ pub type GuessRow = [f64; 4];
 
 /// Reference models: (M / M_sun, [`GuessRow`]), refined physics, X = 0.70, Z = 0.02 (computed
 /// by this program; see the module documentation).
-pub const REFERENCE_MODELS: [(f64, GuessRow); 27] = [
+pub const REFINED_MODELS: [(f64, GuessRow); 27] = [
     (0.08, [39.471998, 14.940710, -1.967744, -9.809693]),
     (0.1, [39.200985, 15.111340, -1.786940, -8.781861]),
     (0.15, [38.933994, 15.351517, -1.514774, -7.274050]),
@@ -58,20 +59,52 @@ pub const REFERENCE_MODELS: [(f64, GuessRow); 27] = [
     (150.0, [37.345331, 17.589500, 2.779180, 14.693167]),
 ];
 
-/// Built-in starting guess (ln P_c, ln T_c, ln R, ln L) for mass `mass_msun`: the reference table
-/// interpolated linearly in ln M (extrapolated from the end intervals), shifted for Z by
-/// d(ln Q)/d(ln Z) that blend in log M from their 1 M_sun values to their 10 M_sun values:
-/// ln L -0.22 to 0, ln R 0.035 to 0.12, ln T_c -0.02 to -0.045, ln P_c -0.13 to -0.26
-/// (fitted to this program's own models at Z = 0.001 and 0.04).
-pub fn initial_guess(mass_msun: f64, comp: &Composition) -> Unknowns {
+/// Reference models of the `analytic` preset, as [`REFINED_MODELS`] (its masses from 0.7 M_sun,
+/// the preset's lowest).
+pub const ANALYTIC_MODELS: [(f64, GuessRow); 18] = [
+    (0.7, [38.007372, 15.896420, 0.101104, -4.343606]),
+    (1.0, [38.440004, 16.176774, 0.174914, -2.412902]),
+    (1.2, [38.690054, 16.327602, 0.205126, -1.425591]),
+    (1.35, [38.860150, 16.427879, 0.222116, -0.789082]),
+    (1.5, [39.010762, 16.519535, 0.236706, -0.223413]),
+    (1.7, [39.153077, 16.627263, 0.258985, 0.432590]),
+    (2.0, [39.203732, 16.733860, 0.314600, 1.243865]),
+    (3.0, [38.981531, 16.890297, 0.549672, 3.211172]),
+    (5.0, [38.565895, 17.036089, 0.885418, 5.580484]),
+    (7.0, [38.287466, 17.121625, 1.101625, 7.008768]),
+    (10.0, [38.010924, 17.202936, 1.321301, 8.372849]),
+    (15.0, [37.742784, 17.282703, 1.558737, 9.730488]),
+    (20.0, [37.590547, 17.331552, 1.720659, 10.578747]),
+    (30.0, [37.429131, 17.390952, 1.942987, 11.633714]),
+    (50.0, [37.298910, 17.452797, 2.219315, 12.769125]),
+    (70.0, [37.246241, 17.487138, 2.401727, 13.422687]),
+    (100.0, [37.211083, 17.519056, 2.596423, 14.050702]),
+    (150.0, [37.190271, 17.550735, 2.819463, 14.699557]),
+];
+
+/// The reference table of a preset.
+pub fn reference_models(preset: Preset) -> &'static [(f64, GuessRow)] {
+    match preset {
+        Preset::Refined => &REFINED_MODELS,
+        Preset::Analytic => &ANALYTIC_MODELS,
+    }
+}
+
+/// Built-in starting guess (ln P_c, ln T_c, ln R, ln L) for mass `mass_msun` and the laws of
+/// `preset`: the preset's reference table interpolated linearly in ln M (extrapolated from the
+/// end intervals), shifted for Z by d(ln Q)/d(ln Z) that blend in log M from their 1 M_sun values
+/// to their 10 M_sun values: ln L -0.22 to 0, ln R 0.035 to 0.12, ln T_c -0.02 to -0.045, ln P_c
+/// -0.13 to -0.26 (fitted to this program's own refined models at Z = 0.001 and 0.04).
+pub fn initial_guess(mass_msun: f64, comp: &Composition, preset: Preset) -> Unknowns {
+    let table = reference_models(preset);
     let lm = mass_msun.ln();
-    let n = REFERENCE_MODELS.len();
-    let i = REFERENCE_MODELS[1..n - 1]
+    let n = table.len();
+    let i = table[1..n - 1]
         .iter()
         .take_while(|(m, _)| m.ln() < lm)
         .count();
-    let (m0, r0) = REFERENCE_MODELS[i];
-    let (m1, r1) = REFERENCE_MODELS[i + 1];
+    let (m0, r0) = table[i];
+    let (m1, r1) = table[i + 1];
     let f = (lm - m0.ln()) / (m1.ln() - m0.ln());
     let row: GuessRow = std::array::from_fn(|k| r0[k] + f * (r1[k] - r0[k]));
     let w = (lm / 10f64.ln()).clamp(0.0, 1.0);

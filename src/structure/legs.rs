@@ -1,6 +1,7 @@
-//! The two integration legs of the shooting method, as `ode_solvers` systems.
+//! The two integration legs of the shooting method, on the project's own DOP853
+//! ([`crate::numerics::ode`]).
 //!
-//! Independent variables (both increase along their leg, as `ode_solvers` requires):
+//! Independent variables:
 //! - outward: x = ln(m / M), from the series start near the centre to the fitting mass;
 //! - inward: x = ln(1 - m / M), from the photosphere to the fitting mass.
 //!
@@ -9,15 +10,27 @@
 //! ill-conditioned (m itself cannot resolve M - m near 1e-12 M). With D = 1 - m/M the hydrostatic
 //! column above a point is M D / (4 pi r^2), so near the surface P ~ g M D / (4 pi R^2) and
 //! dln P / dln D ~ 1: the variable spreads the envelope evenly and keeps every step well scaled.
+//!
+//! Convective boundaries (nabla_rad = nabla_ad) put a kink in nabla. The integrator watches
+//! g = nabla_rad - nabla_ad as an event: a sign change is located on the dense output and the
+//! integration restarts there, so that no step straddles a kink. The located boundaries give the
+//! convective zones.
 
-use super::equations::{derivatives_in_mass, LuminosityForm, Scales, State, X_COPY};
+use super::equations::{
+    derivatives_in_mass, LuminosityForm, Scales, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL,
+    STATE_LEN,
+};
 use super::error::{LegCause, LegError, LegName};
 use crate::error::PhysicsError;
+use crate::numerics::ode::{
+    AcceptedStep, Control, DenseOutput, Dop853, Dop853Settings, Observer, OdeError, OdeSystem,
+    RhsFailure, Stop,
+};
 use crate::physics::{Composition, EosState, PhysicsSet};
-use ode_solvers::dop853::Dop853;
-use ode_solvers::dop_shared::{IntegrationError, OutputType};
-use ode_solvers::System;
-use std::cell::{Cell, RefCell};
+use std::cell::Cell;
+
+/// Result of a leg: the value, or where and why the leg failed.
+pub type LegResult<T> = Result<T, LegError>;
 
 /// Which leg.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -27,9 +40,6 @@ pub enum Leg {
     /// From the surface inward, x = ln(1 - m/M).
     Inward,
 }
-
-/// Result of a leg: the value, or where and why the leg failed.
-pub type LegResult<T> = Result<T, LegError>;
 
 impl Leg {
     /// Name used in error messages.
@@ -94,380 +104,374 @@ pub struct LegContext<'a> {
     pub tolerance: f64,
 }
 
-/// Counts right-hand-side evaluations and keeps the last physics error of the current
-/// integration, which `ode_solvers` cannot carry out of `System::system` itself.
-#[derive(Debug, Default)]
-pub struct LegMonitor {
-    /// Right-hand-side evaluations so far.
-    pub evaluations: Cell<u64>,
-    /// The last physics error met in the current integration, with the leg variable x where it
-    /// happened (cleared when an integration starts, so an error from which an earlier
-    /// integration recovered is never reported with a later failure).
-    pub last_error: RefCell<Option<(f64, PhysicsError)>>,
-    /// Mass fractions m/M of the convective boundaries located, in the order met.
-    pub boundaries: RefCell<Vec<f64>>,
-    /// Set when a leg met more boundaries than [`MAX_BOUNDARIES_PER_LEG`] (the list is then
-    /// incomplete).
-    pub boundary_limit_reached: Cell<bool>,
-}
-
-/// Derivative returned where the physics failed: huge, so that the integrator rejects the step and
-/// shrinks it; if the failure is real the step size underflows and the recorded error is reported.
-const FAILED_DERIVATIVE: f64 = 1e30;
-
-struct LegSystem<'a, 'b> {
-    ctx: LegContext<'a>,
-    leg: Leg,
-    monitor: &'b LegMonitor,
-    watch: Option<&'b BoundaryWatch>,
-    /// The equation-of-state result of the previous evaluation, to warm-start the next.
-    last_eos: Cell<Option<EosState>>,
-}
-
-/// Watches the Schwarzschild criterion at every accepted step and stops the integration at the
-/// first step across which nabla_rad - nabla_ad changes sign.
-#[derive(Debug, Default)]
-struct BoundaryWatch {
-    /// The last accepted step point and whether it was convective.
-    previous: Cell<Option<(State, bool)>>,
-    /// Set when a sign change was seen: the step point before it.
-    crossed_after: Cell<Option<State>>,
-}
-
 /// At most this many convective boundaries are located on one leg; past them (a noisy,
 /// marginally convective layer) the integrator carries on through.
 pub const MAX_BOUNDARIES_PER_LEG: usize = 16;
 
+/// What one integration of a leg found.
+#[derive(Debug, Clone, PartialEq)]
+pub struct LegEnd {
+    /// The state at the end of the leg.
+    pub y: State,
+    /// Mass fractions m/M of the convective boundaries located, in the order met.
+    pub boundaries: Vec<f64>,
+    /// Whether the leg met more boundaries than it locates (the list is then incomplete).
+    pub boundary_limit_reached: bool,
+}
+
+/// The last point at which the local physics was evaluated: its (x, y), the equation-of-state
+/// result there (to warm-start the next inversion) and nabla_rad - nabla_ad there (so that the
+/// event function at the end of an accepted step, where the integrator has just evaluated the
+/// right-hand side, costs nothing).
+#[derive(Debug, Clone, Copy)]
+struct LastPoint {
+    x: f64,
+    y: State,
+    eos: EosState,
+    excess: f64,
+}
+
+/// The right-hand side of one leg: dy/dx = (dy/dm)(dm/dx).
+struct LegSystem<'a, 'c> {
+    ctx: &'c LegContext<'a>,
+    leg: Leg,
+    last: &'c Cell<Option<LastPoint>>,
+}
+
 impl LegSystem<'_, '_> {
-    /// nabla_rad - nabla_ad at state `y` (positive: convective), if the physics can be evaluated.
-    fn convective_excess(&self, y: &State) -> Option<f64> {
-        let (m, _) = self.leg.mass_and_jacobian(y[X_COPY], self.ctx.total_mass_g);
-        let form = self.leg.luminosity_form(&self.ctx);
-        derivatives_in_mass(
+    /// dy/dm and nabla_rad - nabla_ad at (x, y), recording the point.
+    fn evaluate(&self, x: f64, y: &State) -> Result<(State, f64), PhysicsError> {
+        let (m, dm_dx) = self.leg.mass_and_jacobian(x, self.ctx.total_mass_g);
+        let near = self.last.get().map(|p| p.eos);
+        let (d, local) = derivatives_in_mass(
             self.ctx.physics,
             self.ctx.composition,
             &self.ctx.scales,
             m,
             y,
-            form,
-            self.last_eos.get().as_ref(),
-        )
-        .ok()
-        .map(|(_, local)| local.nabla_rad - local.eos.nabla_ad)
-    }
-}
-
-impl System<f64, State> for LegSystem<'_, '_> {
-    /// Reads the independent variable from the state's [`X_COPY`] component, never from `_x`.
-    fn system(&self, _x: f64, y: &State, dy: &mut State) {
-        self.monitor
-            .evaluations
-            .set(self.monitor.evaluations.get() + 1);
-        let (m, dm_dx) = self.leg.mass_and_jacobian(y[X_COPY], self.ctx.total_mass_g);
-        let form = self.leg.luminosity_form(&self.ctx);
-        let near = self.last_eos.get();
-        match derivatives_in_mass(
-            self.ctx.physics,
-            self.ctx.composition,
-            &self.ctx.scales,
-            m,
-            y,
-            form,
+            self.leg.luminosity_form(self.ctx),
             near.as_ref(),
-        ) {
-            Ok((d, local)) if d.iter().all(|v| v.is_finite()) => {
-                self.last_eos.set(Some(local.eos));
-                *dy = d * dm_dx;
-                dy[X_COPY] = 1.0;
-            }
-            Ok(_) => {
-                *self.monitor.last_error.borrow_mut() = Some((
-                    y[X_COPY],
-                    PhysicsError::new(
-                        "structure",
-                        "non-finite derivative",
-                        f64::NAN,
-                        y[super::equations::LN_T].exp(),
-                    ),
-                ));
-                *dy = State::repeat(FAILED_DERIVATIVE);
-            }
-            Err(e) => {
-                *self.monitor.last_error.borrow_mut() = Some((y[X_COPY], e));
-                *dy = State::repeat(FAILED_DERIVATIVE);
-            }
-        }
+        )?;
+        let excess = local.nabla_rad - local.eos.nabla_ad;
+        self.last.set(Some(LastPoint {
+            x,
+            y: *y,
+            eos: local.eos,
+            excess,
+        }));
+        Ok((d * dm_dx, excess))
     }
 
-    fn solout(&mut self, _x: f64, y: &State, _dy: &State) -> bool {
-        let Some(watch) = self.watch else {
-            return false;
-        };
-        let Some(excess) = self.convective_excess(y) else {
-            return false;
-        };
-        let convective = excess > 0.0;
-        let previous = watch.previous.replace(Some((*y, convective)));
-        match previous {
-            Some((before, was)) if was != convective => {
-                watch.crossed_after.set(Some(before));
-                true
-            }
-            _ => false,
+    /// nabla_rad - nabla_ad at (x, y): from the last evaluation if it was at this point.
+    fn excess(&self, x: f64, y: &State) -> Result<f64, PhysicsError> {
+        match self.last.get() {
+            Some(p) if p.x == x && p.y == *y => Ok(p.excess),
+            _ => self.evaluate(x, y).map(|(_, e)| e),
         }
     }
 }
 
-/// One run of the integrator from `x0` to `x1`; with a `watch` it may stop early at a
-/// convective boundary. Returns the last state reached.
-fn run(
-    ctx: &LegContext,
-    leg: Leg,
-    x0: f64,
-    x1: f64,
-    y0: State,
-    monitor: &LegMonitor,
-    watch: Option<&BoundaryWatch>,
-) -> LegResult<State> {
-    run_recording(ctx, leg, (x0, x1), y0, monitor, watch, None)
-}
+impl OdeSystem<STATE_LEN> for LegSystem<'_, '_> {
+    type Error = PhysicsError;
 
-/// [`run`], also appending the accepted step points to `steps` when given.
-fn run_recording(
-    ctx: &LegContext,
-    leg: Leg,
-    (x0, x1): (f64, f64),
-    y0: State,
-    monitor: &LegMonitor,
-    watch: Option<&BoundaryWatch>,
-    steps: Option<&mut Vec<f64>>,
-) -> LegResult<State> {
-    monitor.last_error.borrow_mut().take();
-    let mut y0 = y0;
-    y0[X_COPY] = x0;
-    let system = LegSystem {
-        ctx: *ctx,
-        leg,
-        monitor,
-        watch,
-        last_eos: Cell::new(None),
-    };
-    let mut stepper = Dop853::new(system, x0, x1, x1 - x0, y0, ctx.tolerance, ctx.tolerance);
-    // Sparse output: dense output of ode_solvers 0.6 compares |x|, which breaks for the negative
-    // independent variables used here.
-    stepper.set_output(OutputType::Sparse);
-    // Where the integrator stopped (the x it reports, else the start); a physics error recorded
-    // in this integration is the real cause (its own x belongs to a rejected trial stage, which
-    // can lie far beyond where the leg stood).
-    let failure = |x: Option<f64>, cause: LegCause| {
-        let cause = match monitor.last_error.borrow_mut().take() {
-            Some((_, e)) => LegCause::Physics(e),
-            None => cause,
-        };
-        leg.error(x.unwrap_or(x0), ctx.total_mass_g, cause)
-    };
-    if let Err(e) = stepper.integrate() {
-        let x = match e {
-            IntegrationError::MaxNumStepReached { x, .. }
-            | IntegrationError::StepSizeUnderflow { x }
-            | IntegrationError::StiffnessDetected { x } => x,
-        };
-        return Err(failure(Some(x), LegCause::Integrator(e.to_string())));
-    }
-    let last_x = stepper.x_out().last().copied();
-    let Some(end) = stepper.y_out().last().copied() else {
-        return Err(failure(
-            last_x,
-            LegCause::Integrator("the integrator produced no output".into()),
-        ));
-    };
-    if !end.iter().all(|v| v.is_finite()) {
-        return Err(failure(last_x, LegCause::NonFinite));
-    }
-    if let Some(steps) = steps {
-        steps.extend_from_slice(stepper.x_out());
-    }
-    Ok(end)
-}
-
-/// Integrate `leg` from `x0` to `x1` starting at `y0`; return the end state.
-///
-/// Convective boundaries (nabla_rad = nabla_ad) put a kink in nabla. The integration stops at
-/// the first step across one, locates the boundary by regula falsi (Illinois variant) on
-/// nabla_rad - nabla_ad of short re-integrations from the last step point, and restarts there,
-/// so that no step straddles a kink.
-pub fn integrate(
-    ctx: &LegContext,
-    leg: Leg,
-    x0: f64,
-    x1: f64,
-    y0: State,
-    monitor: &LegMonitor,
-) -> LegResult<State> {
-    if x1 <= x0 {
-        return Ok(y0);
-    }
-    let mut x = x0;
-    let mut y = y0;
-    for boundaries in 0..=MAX_BOUNDARIES_PER_LEG {
-        let watch = BoundaryWatch::default();
-        let watching = (boundaries < MAX_BOUNDARIES_PER_LEG).then_some(&watch);
-        let end = run(ctx, leg, x, x1, y, monitor, watching)?;
-        let Some(before) = watch.crossed_after.take() else {
-            if (end[X_COPY] - x1).abs() > 1e-9 * (1.0 + x1.abs()) {
-                return Err(leg.error(
-                    end[X_COPY],
-                    ctx.total_mass_g,
-                    LegCause::Integrator(format!("stopped before reaching x = {x1}")),
-                ));
-            }
-            return Ok(end);
-        };
-        y = locate_boundary(ctx, leg, &before, &end, monitor)?;
-        x = y[X_COPY];
-    }
-    monitor.boundary_limit_reached.set(true);
-    run(ctx, leg, x, x1, y, monitor, None)
-}
-
-/// The state just past the convective boundary between step points `a` and `b` (where
-/// nabla_rad - nabla_ad has opposite signs), to 1e-10 in x.
-fn locate_boundary(
-    ctx: &LegContext,
-    leg: Leg,
-    a: &State,
-    b: &State,
-    monitor: &LegMonitor,
-) -> LegResult<State> {
-    let probe = LegSystem {
-        ctx: *ctx,
-        leg,
-        monitor,
-        watch: None,
-        last_eos: Cell::new(None),
-    };
-    let excess = |y: &State| probe.convective_excess(y).unwrap_or(f64::NAN);
-    let (xa, xb) = (a[X_COPY], b[X_COPY]);
-    let (mut lo, mut f_lo) = (xa, excess(a));
-    let (mut hi, mut y_hi, mut f_hi) = (xb, *b, excess(b));
-    if !(f_lo.is_finite() && f_hi.is_finite()) || f_lo.signum() == f_hi.signum() {
-        return Ok(*b);
-    }
-    let mut side = 0i8;
-    for _ in 0..60 {
-        if hi - lo <= 1e-10 * (1.0 + hi.abs()) {
-            break;
-        }
-        let mut x = (lo * f_hi - hi * f_lo) / (f_hi - f_lo);
-        if !(x > lo && x < hi) {
-            x = 0.5 * (lo + hi);
-        }
-        let y = run(ctx, leg, xa, x, *a, monitor, None)?;
-        let f = excess(&y);
-        if !f.is_finite() {
-            break;
-        }
-        if f.signum() == f_hi.signum() {
-            hi = x;
-            y_hi = y;
-            f_hi = f;
-            if side == 1 {
-                f_lo *= 0.5;
-            }
-            side = 1;
+    fn rhs(&mut self, x: f64, y: &State, dy: &mut State) -> Result<(), PhysicsError> {
+        let (d, _) = self.evaluate(x, y)?;
+        *dy = d;
+        if dy.iter().all(|v| v.is_finite()) {
+            Ok(())
         } else {
-            lo = x;
-            f_lo = f;
-            if side == -1 {
-                f_hi *= 0.5;
-            }
-            side = -1;
+            Err(PhysicsError::new(
+                "structure",
+                "non-finite derivative",
+                self.last.get().map_or(f64::NAN, |p| p.eos.density_g_cm3),
+                y[super::equations::LN_T].exp(),
+            ))
         }
     }
-    let (m, _) = leg.mass_and_jacobian(y_hi[X_COPY], ctx.total_mass_g);
-    monitor.boundaries.borrow_mut().push(m / ctx.total_mass_g);
-    Ok(y_hi)
 }
 
-/// Integrate `leg` through the increasing points `xs` (the first is the start `x0` with state
-/// `y0`); return the state at every point.
-pub fn integrate_through(
-    ctx: &LegContext,
-    leg: Leg,
-    xs: &[f64],
-    y0: State,
-    monitor: &LegMonitor,
-) -> LegResult<Vec<State>> {
-    let mut out = Vec::with_capacity(xs.len());
-    let mut y = y0;
-    let mut x_prev = match xs.first() {
-        Some(&x) => x,
-        None => return Ok(out),
-    };
-    out.push(y);
-    for &x in &xs[1..] {
-        y = integrate(ctx, leg, x_prev, x, y, monitor)?;
-        out.push(y);
-        x_prev = x;
+/// Watches a leg: the convective boundary as an event, output points, and (for profiles) every
+/// accepted step's dense output.
+struct LegObserver<'a, 'c, 'r> {
+    system: LegSystem<'a, 'c>,
+    watch_boundaries: bool,
+    steps: Option<&'r mut Vec<DenseStep>>,
+    /// The start of the last accepted step.
+    step_start: Option<(f64, State)>,
+}
+
+/// One accepted step of a recorded leg: from `x_start` to `x_end` (the event's x where the
+/// integration stopped inside the step), with its dense output.
+#[derive(Debug, Clone)]
+pub struct DenseStep {
+    x_start: f64,
+    x_end: f64,
+    dense: DenseOutput<STATE_LEN>,
+}
+
+impl Observer<STATE_LEN, PhysicsError> for LegObserver<'_, '_, '_> {
+    fn event_count(&self) -> usize {
+        usize::from(self.watch_boundaries)
     }
-    Ok(out)
+    fn event_value(&mut self, _index: usize, x: f64, y: &State) -> Result<f64, PhysicsError> {
+        self.system.excess(x, y)
+    }
+    fn on_event(&mut self, _index: usize, _x: f64, _y: &State) -> Control {
+        Control::Stop
+    }
+    fn dense_every_step(&self) -> bool {
+        self.steps.is_some()
+    }
+    fn on_step(&mut self, step: &AcceptedStep<'_, STATE_LEN>) -> Control {
+        self.step_start = Some((step.x_old, *step.y_old));
+        if let (Some(steps), Some(dense)) = (self.steps.as_deref_mut(), step.dense()) {
+            steps.push(DenseStep {
+                x_start: step.x_old,
+                x_end: step.x,
+                dense: dense.clone(),
+            });
+        }
+        Control::Continue
+    }
 }
 
-/// The accepted step points of one integration from `x0` to `x1`, for choosing a profile mesh
-/// that is dense where the solution changes fast.
-pub fn step_points(
-    ctx: &LegContext,
-    leg: Leg,
-    x0: f64,
-    x1: f64,
-    y0: State,
-    monitor: &LegMonitor,
-) -> LegResult<Vec<f64>> {
-    let mut steps = Vec::new();
-    run_recording(ctx, leg, (x0, x1), y0, monitor, None, Some(&mut steps))?;
-    Ok(steps)
+/// Integrates legs: one integrator, reused for every leg of one model.
+pub struct LegRunner<'a> {
+    /// Physics, composition, mass and integrator tolerance.
+    pub ctx: LegContext<'a>,
+    solver: Dop853<STATE_LEN>,
+    last: Cell<Option<LastPoint>>,
 }
 
-#[cfg(test)]
-mod tests {
-    use super::*;
-    use crate::physics::{Composition, PhysicsSet};
+/// The integrator's settings for the legs: the context's tolerance (relative and absolute), and
+/// a failed right-hand side shrinks the step by 3 (a trial stage can leave a law's domain while
+/// the solution does not).
+fn settings(tolerance: f64) -> Dop853Settings {
+    Dop853Settings {
+        rtol: tolerance,
+        atol: tolerance,
+        on_rhs_failure: RhsFailure::RejectStep { shrink: 1.0 / 3.0 },
+        ..Dop853Settings::default()
+    }
+}
 
-    /// An error recorded by an earlier integration is cleared when the next starts, so it is
-    /// never reported with a later, unrelated failure.
-    #[test]
-    fn a_stale_physics_error_is_cleared() {
-        let physics = PhysicsSet::refined();
-        let comp = Composition::new(0.7, 0.02).expect("valid composition");
-        let m = crate::constants::M_SUN_G;
-        let ctx = LegContext {
-            physics: &physics,
-            composition: &comp,
-            total_mass_g: m,
-            scales: Scales {
-                luminosity_erg_s: crate::constants::L_SUN_ERG_S,
-                energy_erg: 1e48,
-            },
-            tolerance: 1e-8,
+impl<'a> LegRunner<'a> {
+    /// A runner for `ctx`.
+    pub fn new(ctx: LegContext<'a>) -> LegResult<Self> {
+        let setup_error = |e: crate::Error| LegError {
+            leg: LegName::Outward,
+            variable: "ln(m/M)",
+            x: f64::NAN,
+            mass_g: f64::NAN,
+            cause: LegCause::Integrator(e.to_string()),
         };
-        let start = super::super::centre::start(&ctx, 1.5e17f64.ln(), 1.32e7f64.ln())
-            .expect("a solar centre");
-        let monitor = LegMonitor::default();
-        let stale = PhysicsError::new("stale", "from an earlier leg", 1.0, 1.0);
-        *monitor.last_error.borrow_mut() = Some((0.0, stale));
-        integrate(
-            &ctx,
-            Leg::Outward,
-            start.x0,
-            0.4f64.ln(),
-            start.y0,
-            &monitor,
-        )
-        .expect("the leg integrates");
-        assert!(monitor
-            .last_error
-            .borrow()
-            .as_ref()
-            .is_none_or(|(_, e)| e.law != "stale"));
+        let mut solver = Dop853::new(settings(ctx.tolerance)).map_err(setup_error)?;
+        // The running integrals (energy and virial checks) ride along: they are quadratures of
+        // smooth integrands on the steps the structure variables choose, and need not choose
+        // the steps themselves.
+        for i in [INT_EPS, INT_CNO, INT_THERMAL, INT_GRAVITY] {
+            solver.set_error_control(i, false).map_err(setup_error)?;
+        }
+        Ok(Self {
+            ctx,
+            solver,
+            last: Cell::new(None),
+        })
+    }
+
+    /// Set the integrator tolerance (relative and absolute).
+    pub fn set_tolerance(&mut self, tolerance: f64) {
+        self.ctx.tolerance = tolerance;
+        // A tolerance the context accepted is one the integrator accepts (both finite, > 0).
+        let _ = self.solver.set_tolerances(tolerance, tolerance);
+    }
+
+    /// Right-hand-side evaluations of every integration so far.
+    pub fn rhs_evaluations(&self) -> u64 {
+        self.solver.total_stats().rhs_evaluations as u64
+    }
+
+    /// Integrate `leg` from `x0` to `x1` starting at `y0`; the end state and the convective
+    /// boundaries met. With `steps`, every accepted step's dense output is appended to it (for
+    /// a profile).
+    pub fn integrate(
+        &mut self,
+        leg: Leg,
+        x0: f64,
+        x1: f64,
+        y0: State,
+        mut steps: Option<&mut Vec<DenseStep>>,
+    ) -> LegResult<LegEnd> {
+        let mut y = y0;
+        let mut end = LegEnd {
+            y,
+            boundaries: Vec::new(),
+            boundary_limit_reached: false,
+        };
+        if x1 <= x0 {
+            return Ok(end);
+        }
+        self.last.set(None);
+        let total_mass_g = self.ctx.total_mass_g;
+        let mut x = x0;
+        let mut initial_step = None;
+        loop {
+            let watch_boundaries = end.boundaries.len() < MAX_BOUNDARIES_PER_LEG;
+            let _ = self.solver.set_initial_step(initial_step);
+            let mut observer = LegObserver {
+                system: LegSystem {
+                    ctx: &self.ctx,
+                    leg,
+                    last: &self.last,
+                },
+                watch_boundaries,
+                steps: steps.as_deref_mut(),
+                step_start: None,
+            };
+            let mut system = LegSystem {
+                ctx: &self.ctx,
+                leg,
+                last: &self.last,
+            };
+            let outcome = self
+                .solver
+                .integrate(&mut system, x, &y, x1, &mut observer)
+                .map_err(|e| leg_error(leg, total_mass_g, x, e))?;
+            let step_start = observer.step_start;
+            y = outcome.y;
+            x = outcome.x;
+            match outcome.stop {
+                Stop::Event { .. } => {
+                    // The step that crossed the boundary straddles the kink in nabla, so its
+                    // dense output (and the state it gives at the located boundary) is poor:
+                    // integrate again from the step's start to just past the boundary, so that
+                    // no step crosses the kink by more than a hair, and restart there.
+                    if let Some((xs, ys)) = step_start.filter(|(xs, _)| *xs < x) {
+                        if let Some(recorded) = steps.as_deref_mut() {
+                            recorded.pop();
+                        }
+                        (x, y) = self.past_boundary(leg, (xs, ys), x, x1, steps.as_deref_mut())?;
+                    }
+                    let (m, _) = leg.mass_and_jacobian(x, total_mass_g);
+                    end.boundaries.push(m / total_mass_g);
+                    initial_step = Some(outcome.next_step);
+                }
+                Stop::End | Stop::Observer => {
+                    end.y = y;
+                    end.boundary_limit_reached = !watch_boundaries;
+                    let _ = self.solver.set_initial_step(None);
+                    return Ok(end);
+                }
+            }
+        }
+    }
+}
+
+impl LegRunner<'_> {
+    /// Integrate `leg` from the start of the step that crossed a convective boundary,
+    /// `(xs, ys)`, to just past the boundary located near `x_event` (where nabla_rad - nabla_ad
+    /// has the sign it has beyond the boundary), without events; the state there. The step past
+    /// the located root is [`BOUNDARY_STEP`] times (1 + |x|), doubled until the sign has changed.
+    fn past_boundary(
+        &mut self,
+        leg: Leg,
+        (xs, ys): (f64, State),
+        x_event: f64,
+        x1: f64,
+        mut steps: Option<&mut Vec<DenseStep>>,
+    ) -> LegResult<(f64, State)> {
+        let total_mass_g = self.ctx.total_mass_g;
+        let probe = LegSystem {
+            ctx: &self.ctx,
+            leg,
+            last: &self.last,
+        };
+        let g_start = probe
+            .excess(xs, &ys)
+            .map_err(|e| leg.error(xs, total_mass_g, LegCause::Physics(e)))?;
+        let mut delta = BOUNDARY_STEP * (1.0 + x_event.abs());
+        loop {
+            let target = (x_event + delta).min(x1);
+            let mut recorded = Vec::new();
+            let mut observer = LegObserver {
+                system: LegSystem {
+                    ctx: &self.ctx,
+                    leg,
+                    last: &self.last,
+                },
+                watch_boundaries: false,
+                steps: steps.is_some().then_some(&mut recorded),
+                step_start: None,
+            };
+            let mut system = LegSystem {
+                ctx: &self.ctx,
+                leg,
+                last: &self.last,
+            };
+            let _ = self.solver.set_initial_step(None);
+            let y = self
+                .solver
+                .integrate(&mut system, xs, &ys, target, &mut observer)
+                .map_err(|e| leg_error(leg, total_mass_g, xs, e))?
+                .y;
+            let g = probe
+                .excess(target, &y)
+                .map_err(|e| leg.error(target, total_mass_g, LegCause::Physics(e)))?;
+            if g.signum() != g_start.signum() || target >= x1 || delta > 1e-3 {
+                if let Some(all) = steps.as_deref_mut() {
+                    all.extend(recorded);
+                }
+                return Ok((target, y));
+            }
+            delta *= 2.0;
+        }
+    }
+}
+
+/// How far past a located convective boundary a leg restarts, relative to 1 + |x|: well above
+/// the event tolerance (1e-12) and far below any step, so the restart is on the boundary's far
+/// side and the hair of kink crossed costs nothing measurable (an error of order the jump in
+/// the slope of nabla times the square of this).
+pub const BOUNDARY_STEP: f64 = 1e-9;
+
+/// A leg's error from the integrator's: where it stopped (the integrator's x, else the start)
+/// and why (a law's error where one is reported).
+fn leg_error(leg: Leg, total_mass_g: f64, x_start: f64, e: OdeError<PhysicsError>) -> LegError {
+    let x = e.x().unwrap_or(x_start);
+    let cause = match e {
+        OdeError::Rhs { source, .. } | OdeError::Event { source, .. } => LegCause::Physics(source),
+        OdeError::NonFinite { .. } | OdeError::EventNotFinite { .. } => LegCause::NonFinite,
+        other => LegCause::Integrator(other.to_string()),
+    };
+    leg.error(x, total_mass_g, cause)
+}
+
+/// The solution of one leg between its ends, from the dense output of its accepted steps.
+#[derive(Debug, Clone)]
+pub struct LegSolution {
+    steps: Vec<DenseStep>,
+}
+
+impl LegSolution {
+    /// The solution made of `steps` (in the order integrated, x increasing).
+    pub fn new(steps: Vec<DenseStep>) -> Self {
+        Self { steps }
+    }
+
+    /// The ends of the accepted steps, first start included.
+    pub fn step_points(&self) -> Vec<f64> {
+        let mut xs: Vec<f64> = self.steps.iter().map(|s| s.x_start).collect();
+        if let Some(last) = self.steps.last() {
+            xs.push(last.x_end);
+        }
+        xs
+    }
+
+    /// The state at `x` by the dense output of the step that holds it (the first or last step
+    /// for a point outside the integrated range, which is then extrapolated).
+    pub fn at(&self, x: f64) -> Option<State> {
+        let i = self.steps.partition_point(|s| s.x_end < x);
+        let step = self.steps.get(i).or(self.steps.last())?;
+        Some(step.dense.evaluate(x))
     }
 }

@@ -9,6 +9,7 @@ pub mod equations;
 pub mod error;
 pub mod guess;
 pub mod legs;
+pub mod limits;
 pub mod model;
 pub mod profile;
 pub mod shooting;
@@ -36,6 +37,8 @@ pub const ANALYTIC_MIN_MASS_MSUN: f64 = 0.7;
 pub const DEFAULT_FIT_MASS_FRACTION: f64 = 0.4;
 /// Default (finest) integrator tolerance, relative and absolute on the logarithmic variables.
 pub const DEFAULT_TOLERANCE: f64 = 1e-11;
+/// The integrator tolerance of the first evaluations of a solve (tightened as the mismatch falls).
+pub const START_TOLERANCE: f64 = 1e-8;
 /// Smallest and largest finest integrator tolerance.
 pub const TOLERANCE_RANGE: (f64, f64) = (1e-13, 1e-6);
 /// Smallest and largest fitting mass fraction.
@@ -207,18 +210,35 @@ impl ZamsSettings {
     }
 
     pub(crate) fn context(&self) -> LegContext<'_> {
-        let m = self.mass_msun * M_SUN_G;
-        LegContext {
-            physics: &self.physics,
-            composition: &self.composition,
-            total_mass_g: m,
-            scales: Scales {
-                luminosity_erg_s: L_SUN_ERG_S,
-                energy_erg: G_CGS * m * m / R_SUN_CM,
-            },
-            // The coarsest tolerance of the iteration (or the finest asked, if coarser).
-            tolerance: self.tolerance.max(1e-7),
-        }
+        // The starting tolerance of the iteration (or the finest asked, if coarser): a leg at
+        // 1e-8 costs hardly more than at 1e-7, and a good guess needs no finer one to take its
+        // first Newton step.
+        leg_context(
+            self.mass_msun,
+            &self.physics,
+            &self.composition,
+            self.tolerance.max(START_TOLERANCE),
+        )
+    }
+}
+
+/// The context of the legs of a star of `mass_msun` with these laws and composition.
+pub(crate) fn leg_context<'a>(
+    mass_msun: f64,
+    physics: &'a PhysicsSet,
+    composition: &'a Composition,
+    tolerance: f64,
+) -> LegContext<'a> {
+    let m = mass_msun * M_SUN_G;
+    LegContext {
+        physics,
+        composition,
+        total_mass_g: m,
+        scales: Scales {
+            luminosity_erg_s: L_SUN_ERG_S,
+            energy_erg: G_CGS * m * m / R_SUN_CM,
+        },
+        tolerance,
     }
 }
 
@@ -226,11 +246,15 @@ impl ZamsSettings {
 /// carrying its [`NotConverged`] report (reason, history, last unknowns).
 pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
     let ctx = settings.context();
-    let u0 = settings
-        .guess
-        .unwrap_or_else(|| guess::initial_guess(settings.mass_msun, &settings.composition));
+    let u0 = settings.guess.unwrap_or_else(|| {
+        guess::initial_guess(
+            settings.mass_msun,
+            &settings.composition,
+            settings.physics.spec().preset,
+        )
+    });
     let mut problem =
-        shooting::ShootingProblem::new(ctx, settings.fit_mass_fraction, settings.tolerance);
+        shooting::ShootingProblem::new(ctx, settings.fit_mass_fraction, settings.tolerance)?;
     let u0 = repaired_guess(&mut problem, u0);
     let report = newton::solve(&mut problem, u0, &settings.newton);
     if !report.converged() {
@@ -241,7 +265,7 @@ pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
             mismatch: report.residual_norm,
             history: report.history,
             last_unknowns: report.solution,
-            rhs_evaluations: problem.monitor.evaluations.get(),
+            rhs_evaluations: problem.runner.rhs_evaluations(),
         })));
     }
     // The converged legs at the tolerance the iteration converged with (sharpening may have
@@ -256,10 +280,10 @@ pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
         fit_mismatch: report.residual_norm,
         residual_evaluations,
         jacobian_evaluations: report.jacobian_evaluations,
-        rhs_evaluations: problem.monitor.evaluations.get(),
-        tolerance: problem.ctx.tolerance,
+        rhs_evaluations: problem.runner.rhs_evaluations(),
+        tolerance: problem.ctx().tolerance,
     };
-    model::build(settings, &problem.ctx, &legs, report.history, stats)
+    model::build(settings, problem.ctx(), &legs, report.history, stats)
 }
 
 /// A starting guess whose legs can be integrated. If `u0` itself cannot be (a poor guess can use

@@ -2,7 +2,7 @@
 //! statistics, and the profile on demand.
 
 use super::equations::{INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL};
-use super::legs::{LegContext, LegMonitor};
+use super::legs::LegContext;
 use super::profile::{self, ProfileRow};
 use super::shooting::{LegEnds, Unknowns};
 use super::summary::ModelSummary;
@@ -75,13 +75,11 @@ impl ZamsModel {
         let points = profile::check_profile_points(points)?;
         let mut ctx = self.settings.context();
         ctx.tolerance = self.stats.tolerance;
-        let monitor = LegMonitor::default();
         Ok(profile::profile(
             &ctx,
             &self.unknowns,
             self.fit_mass_fraction(),
             points,
-            &monitor,
         )?)
     }
 }
@@ -144,13 +142,11 @@ pub(crate) fn build(
     let start = centre::start(ctx, u[0], u[1])?;
     let (core, envelope) = if legs.boundary_limit_reached {
         // A leg met more boundaries than it locates: place them on a profile instead.
-        let monitor = LegMonitor::default();
         let rows = profile::profile(
             ctx,
             &u,
             settings.fit_mass_fraction(),
             profile::DEFAULT_PROFILE_POINTS,
-            &monitor,
         )?;
         profile::convective_extent(&rows)
     } else {

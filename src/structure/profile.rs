@@ -2,12 +2,14 @@
 //! (dense where the solution changes fast), centre first, photosphere last.
 
 use super::equations::{local_physics, Point, State, LN_P, LN_R, LN_T, LUM};
-use super::legs::{integrate_through, step_points, Leg, LegContext, LegMonitor, LegResult};
+use super::error::LegError;
+use super::legs::{Leg, LegContext, LegResult, LegRunner, LegSolution};
 use super::model::{convective_zones, extent_from_zones};
 use super::shooting::Unknowns;
 use super::{centre, surface};
 use crate::constants::G_CGS;
 use crate::error::{Error, Result};
+use crate::physics::EosState;
 use serde::{Deserialize, Serialize};
 
 /// Default number of profile rows.
@@ -118,7 +120,14 @@ fn mesh_like_steps(steps: &[f64], count: usize) -> Vec<f64> {
         .collect()
 }
 
-fn row(ctx: &LegContext, leg: Leg, x: f64, y: &State, radius_cm: f64) -> LegResult<ProfileRow> {
+fn row(
+    ctx: &LegContext,
+    leg: Leg,
+    x: f64,
+    y: &State,
+    radius_cm: f64,
+    near: Option<&EosState>,
+) -> LegResult<(ProfileRow, EosState)> {
     let (m, _) = leg.mass_and_jacobian(x, ctx.total_mass_g);
     let r = y[LN_R].exp();
     let p = y[LN_P].exp();
@@ -130,14 +139,14 @@ fn row(ctx: &LegContext, leg: Leg, x: f64, y: &State, radius_cm: f64) -> LegResu
         pressure_dyn_cm2: p,
         temperature_k: t,
         l_over_m: l / m,
-        near: None,
+        near,
     };
     let local = local_physics(ctx.physics, ctx.composition, &point)
         .map_err(|e| leg.error(x, ctx.total_mass_g, super::error::LegCause::Physics(e)))?;
     let rho = local.eos.density_g_cm3;
     let g = G_CGS * m / (r * r);
     let cs = (local.eos.gamma1 * p / rho).sqrt();
-    Ok(ProfileRow {
+    let r_row = ProfileRow {
         mass_g: m,
         m_over_m: m / ctx.total_mass_g,
         radius_cm: r,
@@ -158,7 +167,8 @@ fn row(ctx: &LegContext, leg: Leg, x: f64, y: &State, radius_cm: f64) -> LegResu
         brunt_n2_rad2_s2: g * g * rho * local.eos.delta * (local.eos.nabla_ad - local.nabla) / p,
         lamb_l1_rad_s: 2f64.sqrt() * cs / r,
         lamb_l2_rad_s: 6f64.sqrt() * cs / r,
-    })
+    };
+    Ok((r_row, local.eos))
 }
 
 /// Mass fractions of the convective core and of the convective envelope from the profile (used
@@ -182,33 +192,61 @@ pub fn convective_extent(profile: &[ProfileRow]) -> (f64, f64) {
 }
 
 /// The profile of the model with unknowns `u` fitted at mass fraction `q`, on `total` rows
-/// spread like the integrator's steps.
+/// spread like the integrator's steps: each leg is integrated once more, keeping every accepted
+/// step's dense output, and the rows are read off that solution.
 pub(crate) fn profile(
     ctx: &LegContext,
     u: &Unknowns,
     q: f64,
     total: usize,
-    monitor: &LegMonitor,
 ) -> LegResult<Vec<ProfileRow>> {
+    let mut runner = LegRunner::new(*ctx)?;
     let start = centre::start(ctx, u[0], u[1])?;
     let top = surface::start(ctx, u[2], u[3])?;
-    let steps_out = step_points(ctx, Leg::Outward, start.x0, q.ln(), start.y0, monitor)?;
-    let steps_in = step_points(ctx, Leg::Inward, top.x0, (1.0 - q).ln(), top.y0, monitor)?;
-    let n_out = ((total as f64 * steps_out.len() as f64 / (steps_out.len() + steps_in.len()) as f64).round() as usize)
-        .clamp(3, total - 3);
+    let mut out_steps = Vec::new();
+    let mut in_steps = Vec::new();
+    runner.integrate(
+        Leg::Outward,
+        start.x0,
+        q.ln(),
+        start.y0,
+        Some(&mut out_steps),
+    )?;
+    runner.integrate(
+        Leg::Inward,
+        top.x0,
+        (1.0 - q).ln(),
+        top.y0,
+        Some(&mut in_steps),
+    )?;
+    let (outward, inward) = (LegSolution::new(out_steps), LegSolution::new(in_steps));
+    let (steps_out, steps_in) = (outward.step_points(), inward.step_points());
+    let share = steps_out.len() as f64 / (steps_out.len() + steps_in.len()) as f64;
+    let n_out = ((total as f64 * share).round() as usize).clamp(3, total - 3);
     // The fitting point appears once (from the outward leg), so the inward leg gets one extra.
     let n_in = total - n_out + 1;
     let xs_out = mesh_like_steps(&steps_out, n_out);
     let xs_in = mesh_like_steps(&steps_in, n_in);
-    let ys_out = integrate_through(ctx, Leg::Outward, &xs_out, start.y0, monitor)?;
-    let ys_in = integrate_through(ctx, Leg::Inward, &xs_in, top.y0, monitor)?;
     let radius_cm = u[2].exp();
     let mut rows = Vec::with_capacity(total);
-    for (x, y) in xs_out.iter().zip(&ys_out) {
-        rows.push(row(ctx, Leg::Outward, *x, y, radius_cm)?);
+    let mut near = None;
+    let mut add = |leg: Leg, solution: &LegSolution, x: f64, rows: &mut Vec<ProfileRow>| {
+        // The first point is the leg's start exactly; the others come from the dense output.
+        let y = match (leg, x) {
+            (Leg::Outward, x) if x == start.x0 => start.y0,
+            (Leg::Inward, x) if x == top.x0 => top.y0,
+            _ => solution.at(x).unwrap_or(start.y0),
+        };
+        let (r, eos) = row(ctx, leg, x, &y, radius_cm, near.as_ref())?;
+        near = Some(eos);
+        rows.push(r);
+        Ok::<(), LegError>(())
+    };
+    for &x in &xs_out {
+        add(Leg::Outward, &outward, x, &mut rows)?;
     }
-    for (x, y) in xs_in.iter().zip(&ys_in).rev().skip(1) {
-        rows.push(row(ctx, Leg::Inward, *x, y, radius_cm)?);
+    for &x in xs_in.iter().rev().skip(1) {
+        add(Leg::Inward, &inward, x, &mut rows)?;
     }
     Ok(rows)
 }

@@ -5,7 +5,7 @@
 use super::centre;
 use super::equations::{State, LUM};
 use super::error::LegError;
-use super::legs::{integrate, Leg, LegContext, LegMonitor, LegResult};
+use super::legs::{Leg, LegContext, LegEnd, LegResult, LegRunner};
 use super::surface;
 use crate::numerics::newton::NewtonProblem;
 use nalgebra::{SMatrix, SVector};
@@ -36,14 +36,12 @@ pub type Unknowns = SVector<f64, 4>;
 
 /// The shooting problem for one star.
 pub struct ShootingProblem<'a> {
-    /// Physics, composition, mass and integrator tolerance.
-    pub ctx: LegContext<'a>,
+    /// Integrates the legs (and holds the context: physics, mass, tolerance).
+    pub runner: LegRunner<'a>,
     /// Fitting mass as a fraction of M.
     pub fit_mass_fraction: f64,
     /// The finest integrator tolerance the iteration tightens to.
     pub tolerance_floor: f64,
-    /// Right-hand-side evaluations and the last physics error.
-    pub monitor: LegMonitor,
     /// Legs integrated (each outward or inward integration counts one).
     pub legs_integrated: u64,
     /// The last residual evaluation.
@@ -53,53 +51,48 @@ pub struct ShootingProblem<'a> {
 impl<'a> ShootingProblem<'a> {
     /// A problem for `ctx` fitted at `fit_mass_fraction` M, tightening the integrator to
     /// `tolerance_floor` as it converges.
-    pub fn new(ctx: LegContext<'a>, fit_mass_fraction: f64, tolerance_floor: f64) -> Self {
-        Self {
-            ctx,
+    pub fn new(
+        ctx: LegContext<'a>,
+        fit_mass_fraction: f64,
+        tolerance_floor: f64,
+    ) -> LegResult<Self> {
+        Ok(Self {
+            runner: LegRunner::new(ctx)?,
             fit_mass_fraction,
             tolerance_floor,
-            monitor: LegMonitor::default(),
             legs_integrated: 0,
             last: None,
-        }
+        })
     }
 
-    /// End state of the outward leg at the fitting mass.
-    pub fn outward(&mut self, ln_pc: f64, ln_tc: f64) -> LegResult<State> {
-        self.legs_integrated += 1;
-        let start = centre::start(&self.ctx, ln_pc, ln_tc)?;
-        integrate(
-            &self.ctx,
-            Leg::Outward,
-            start.x0,
-            self.fit_mass_fraction.ln(),
-            start.y0,
-            &self.monitor,
-        )
+    /// The context of the legs (with the current tolerance).
+    pub fn ctx(&self) -> &LegContext<'a> {
+        &self.runner.ctx
     }
 
-    /// End state of the inward leg at the fitting mass.
-    pub fn inward(&mut self, ln_r: f64, ln_l: f64) -> LegResult<State> {
+    /// The outward leg at the fitting mass.
+    pub fn outward(&mut self, ln_pc: f64, ln_tc: f64) -> LegResult<LegEnd> {
         self.legs_integrated += 1;
-        let start = surface::start(&self.ctx, ln_r, ln_l)?;
-        integrate(
-            &self.ctx,
-            Leg::Inward,
-            start.x0,
-            (1.0 - self.fit_mass_fraction).ln(),
-            start.y0,
-            &self.monitor,
-        )
+        let start = centre::start(&self.runner.ctx, ln_pc, ln_tc)?;
+        let x1 = self.fit_mass_fraction.ln();
+        self.runner
+            .integrate(Leg::Outward, start.x0, x1, start.y0, None)
+    }
+
+    /// The inward leg at the fitting mass.
+    pub fn inward(&mut self, ln_r: f64, ln_l: f64) -> LegResult<LegEnd> {
+        self.legs_integrated += 1;
+        let start = surface::start(&self.runner.ctx, ln_r, ln_l)?;
+        let x1 = (1.0 - self.fit_mass_fraction).ln();
+        self.runner
+            .integrate(Leg::Inward, start.x0, x1, start.y0, None)
     }
 
     /// Relative mismatch: differences of ln r, ln P, ln T, and (L_out - L_in) / L_out.
     fn mismatch(&self, out: &State, inn: &State) -> SVector<f64, 4> {
-        let l_out = Leg::Outward
-            .luminosity_form(&self.ctx)
-            .luminosity_erg_s(out[LUM]);
-        let l_in = Leg::Inward
-            .luminosity_form(&self.ctx)
-            .luminosity_erg_s(inn[LUM]);
+        let ctx = self.ctx();
+        let l_out = Leg::Outward.luminosity_form(ctx).luminosity_erg_s(out[LUM]);
+        let l_in = Leg::Inward.luminosity_form(ctx).luminosity_erg_s(inn[LUM]);
         SVector::<f64, 4>::new(
             out[0] - inn[0],
             out[1] - inn[1],
@@ -126,11 +119,11 @@ impl<'a> ShootingProblem<'a> {
             let f = if k < 2 {
                 problem
                     .outward(v[0], v[1])
-                    .map(|o| problem.mismatch(&o, in0))
+                    .map(|o| problem.mismatch(&o.y, in0))
             } else {
                 problem
                     .inward(v[2], v[3])
-                    .map(|i| problem.mismatch(out0, &i))
+                    .map(|i| problem.mismatch(out0, &i.y))
             };
             f.map(|f| (f - f0) / step)
         };
@@ -140,7 +133,7 @@ impl<'a> ShootingProblem<'a> {
     /// Finite-difference step for the Jacobian at the current tolerance: large enough that
     /// integration noise (~ tolerance) stays below 1e-3 of the difference.
     fn difference_step(&self) -> f64 {
-        (1e3 * self.ctx.tolerance).clamp(1e-7, 1e-3)
+        (1e3 * self.ctx().tolerance).clamp(1e-7, 1e-3)
     }
 }
 
@@ -150,7 +143,7 @@ impl ShootingProblem<'_> {
     pub fn last_legs(&self, u: &Unknowns) -> Option<&LegEnds> {
         self.last
             .as_ref()
-            .filter(|l| l.u == *u && l.tolerance == self.ctx.tolerance)
+            .filter(|l| l.u == *u && l.tolerance == self.ctx().tolerance)
     }
 
     /// Both legs at `u` and the current tolerance, with the convective boundaries met: the last
@@ -161,17 +154,17 @@ impl ShootingProblem<'_> {
         if let Some(l) = self.last_legs(u) {
             return Ok(l.clone());
         }
-        self.monitor.boundaries.borrow_mut().clear();
-        self.monitor.boundary_limit_reached.set(false);
         let out = self.outward(u[0], u[1])?;
         let inn = self.inward(u[2], u[3])?;
+        let mut boundaries = out.boundaries;
+        boundaries.extend(&inn.boundaries);
         let legs = LegEnds {
             u: *u,
-            tolerance: self.ctx.tolerance,
-            out,
-            inn,
-            boundaries: self.monitor.boundaries.borrow().clone(),
-            boundary_limit_reached: self.monitor.boundary_limit_reached.get(),
+            tolerance: self.ctx().tolerance,
+            out: out.y,
+            inn: inn.y,
+            boundaries,
+            boundary_limit_reached: out.boundary_limit_reached || inn.boundary_limit_reached,
         };
         self.last = Some(legs.clone());
         Ok(legs)
@@ -201,28 +194,40 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
         Ok(j)
     }
 
-    /// Integrate coarsely while far from the solution and tighten as the mismatch falls:
-    /// tolerance = clamp(1e-3 x mismatch, floor, 1e-7).
     /// Tighten the integrator 10x so that the mismatch and its Jacobian are less noisy: down to
     /// the floor, and once at the floor down to 1/100 of it (a stall near the convergence
     /// tolerance is usually integration noise).
     fn sharpen(&mut self) -> bool {
         let limit = (self.tolerance_floor * 1e-2).max(SHARPEST_TOLERANCE);
-        if self.ctx.tolerance > limit {
-            self.ctx.tolerance = (self.ctx.tolerance * 0.1).max(limit);
+        let tolerance = self.ctx().tolerance;
+        if tolerance > limit {
+            self.runner.set_tolerance((tolerance * 0.1).max(limit));
             true
         } else {
             false
         }
     }
 
+    /// The trial of a Newton step is integrated at the accuracy its expected mismatch calls for.
+    fn prepare_trial(&mut self, expected_norm: f64) {
+        self.adapt_to_residual(expected_norm);
+    }
+
+    /// Integrate coarsely while far from the solution and tighten as the mismatch falls:
+    /// tolerance = clamp(1e-3 x mismatch, floor, 1e-7), the floor itself once within a decade
+    /// of it; the tolerance is only ever tightened.
     fn adapt_to_residual(&mut self, norm: f64) -> bool {
         // The coarsest tolerance is 1e-7, or the floor itself when the user asked for a coarser
         // one (any floor up to 1e-6 is allowed).
         let coarsest = self.tolerance_floor.max(1e-7);
-        let wanted = (1e-3 * norm).clamp(self.tolerance_floor, coarsest);
-        if wanted < 0.5 * self.ctx.tolerance {
-            self.ctx.tolerance = wanted;
+        let mut wanted = (1e-3 * norm).clamp(self.tolerance_floor, coarsest);
+        // Within a decade of the floor, go to the floor at once: an intermediate tolerance
+        // would cost one more evaluation of both legs for little saving.
+        if wanted < 10.0 * self.tolerance_floor {
+            wanted = self.tolerance_floor;
+        }
+        if wanted < 0.5 * self.ctx().tolerance {
+            self.runner.set_tolerance(wanted);
             true
         } else {
             false

@@ -1,0 +1,192 @@
+//! The hydrogen-burning minimum mass: the lowest mass at which a ZAMS model exists, i.e. a
+//! static star whose nuclear burning supplies its surface luminosity.
+//!
+//! Along the ZAMS, lower masses are denser and more degenerate; electron degeneracy pressure
+//! caps the central temperature, and below a certain mass no static model in thermal
+//! equilibrium exists (e.g. Kippenhahn & Weigert 1990, §22.4; Chabrier & Baraffe 2000, ARA&A 38,
+//! 337). In the unknowns (ln P_c, ln T_c, ln R, ln L) as functions of ln M the ZAMS branch has a
+//! turning point there: it doubles back to a second, more degenerate solution. The limit is
+//! located as that fold, by pseudo-arclength continuation in ln M
+//! ([`crate::numerics::continuation`]), not by where Newton's method happens to fail.
+
+use super::legs::LegContext;
+use super::shooting::{ShootingProblem, Unknowns};
+use super::{leg_context, model, solve, SolveStats, ZamsModel, ZamsSettings};
+use super::{LegError, DEFAULT_TOLERANCE};
+use crate::error::{Error, Result};
+use crate::numerics::continuation::{find_fold, Branch, ContinuationError, ContinuationSettings};
+use crate::numerics::newton::NewtonProblem;
+use crate::physics::{Composition, PhysicsSet};
+use nalgebra::{SMatrix, SVector};
+
+/// Where the continuation starts, M_sun: above the limit for every physics set of the program
+/// (the limit lies near 0.07–0.09 M_sun for the refined laws), low enough to be close.
+pub const START_MASS_MSUN: f64 = 0.12;
+/// Masses the continuation may visit, M_sun.
+pub const SEARCH_RANGE_MSUN: (f64, f64) = (0.03, 0.5);
+/// Step in ln M of the finite difference dF/dln M.
+const LN_MASS_STEP: f64 = 1e-6;
+
+/// The hydrogen-burning limit of one composition and set of laws.
+#[derive(Debug, Clone)]
+pub struct HydrogenBurningLimit {
+    /// The limiting mass, M_sun.
+    pub mass_msun: f64,
+    /// The model at the limit.
+    pub model: ZamsModel,
+    /// Masses visited along the branch, M_sun, from the start down to the limit.
+    pub branch_masses_msun: Vec<f64>,
+}
+
+/// The ZAMS mismatch as a function of the unknowns and lambda = ln(M / M_sun).
+struct ZamsBranch<'a> {
+    physics: &'a PhysicsSet,
+    composition: &'a Composition,
+    tolerance: f64,
+    /// The last failure of an evaluation (why a corrector step could not be taken).
+    last_error: Option<LegError>,
+}
+
+impl<'a> ZamsBranch<'a> {
+    fn context(&self, lambda: f64) -> LegContext<'a> {
+        leg_context(lambda.exp(), self.physics, self.composition, self.tolerance)
+    }
+
+    fn problem(&self, lambda: f64) -> std::result::Result<ShootingProblem<'a>, LegError> {
+        ShootingProblem::new(self.context(lambda), 0.4, self.tolerance)
+    }
+}
+
+impl Branch<4> for ZamsBranch<'_> {
+    type Error = LegError;
+
+    fn residual(
+        &mut self,
+        u: &Unknowns,
+        lambda: f64,
+    ) -> std::result::Result<SVector<f64, 4>, LegError> {
+        let f = self.problem(lambda).and_then(|mut p| p.residual(u));
+        if let Err(e) = &f {
+            self.last_error = Some(e.clone());
+        }
+        f
+    }
+
+    fn derivatives(
+        &mut self,
+        u: &Unknowns,
+        lambda: f64,
+        f: &SVector<f64, 4>,
+    ) -> std::result::Result<(SMatrix<f64, 4, 4>, SVector<f64, 4>), LegError> {
+        let j = self.problem(lambda).and_then(|mut p| p.jacobian(u, f));
+        let f_up = self.residual(u, lambda + LN_MASS_STEP);
+        match (j, f_up) {
+            (Ok(j), Ok(f_up)) => Ok((j, (f_up - f) / LN_MASS_STEP)),
+            (Err(e), _) | (_, Err(e)) => {
+                self.last_error = Some(e.clone());
+                Err(e)
+            }
+        }
+    }
+}
+
+/// The hydrogen-burning minimum mass for `composition` and `physics`: the fold of the ZAMS
+/// branch in mass, followed downward from [`START_MASS_MSUN`] at the default tolerance.
+///
+/// Errors: [`Error::InvalidInput`] for a set of laws that does not describe stars near the limit
+/// (a preset with a minimum mass above it, e.g. `analytic`); [`Error::NoConvergence`] if the
+/// model at the start does not converge; [`Error::Integration`] (what: "hydrogen-burning limit")
+/// if the continuation finds no fold in [`SEARCH_RANGE_MSUN`] or cannot go on.
+pub fn hydrogen_burning_limit(
+    composition: &Composition,
+    physics: &PhysicsSet,
+) -> Result<HydrogenBurningLimit> {
+    let preset = physics.spec().preset;
+    if let Some(min) = preset.minimum_mass_msun() {
+        return Err(Error::invalid(
+            "preset",
+            preset,
+            &format!(
+                "the {preset} set describes stars above {min} M_sun only, far from the hydrogen-burning limit; use the refined preset"
+            ),
+        ));
+    }
+    let start = ZamsSettings::new(START_MASS_MSUN, *composition, physics.clone())?;
+    let u0 = solve(&start)?.unknowns;
+    let mut branch = ZamsBranch {
+        physics,
+        composition,
+        tolerance: DEFAULT_TOLERANCE,
+        last_error: None,
+    };
+    let (lo, hi) = SEARCH_RANGE_MSUN;
+    let fail = |why: String, at: f64| Error::Integration {
+        what: "hydrogen-burning limit",
+        variable: "M/M_sun",
+        at,
+        reason: why,
+    };
+    let result = find_fold(
+        &mut branch,
+        u0,
+        START_MASS_MSUN.ln(),
+        -1.0,
+        (lo.ln(), hi.ln()),
+        &ContinuationSettings::default(),
+    );
+    let last_error = branch
+        .last_error
+        .map_or(String::new(), |e| format!(" (last failure: {e})"));
+    let fold = result.map_err(|e| match e {
+        ContinuationError::Start(leg) => Error::Leg(leg),
+        ContinuationError::NoFold { lambda } => fail(
+            format!("no turning point of the ZAMS branch between {lo} and {hi} M_sun"),
+            lambda.exp(),
+        ),
+        ContinuationError::StepTooSmall { lambda } => fail(
+            format!(
+                "the ZAMS branch could not be followed further down in mass before a turning point{last_error}"
+            ),
+            lambda.exp(),
+        ),
+        ContinuationError::TooManySteps { lambda } => {
+            fail("too many continuation steps".into(), lambda.exp())
+        }
+        ContinuationError::SingularStart => fail(
+            "the Jacobian at the starting model is singular".into(),
+            START_MASS_MSUN,
+        ),
+    })?;
+    let mass_msun = fold.point.lambda.exp();
+    let model = model_at(composition, physics, mass_msun, fold.point.u)?;
+    Ok(HydrogenBurningLimit {
+        mass_msun,
+        model,
+        branch_masses_msun: fold.branch.iter().map(|p| p.lambda.exp()).collect(),
+    })
+}
+
+/// The model of the converged unknowns `u` at `mass_msun` (the fold, where Newton's method on
+/// the plain problem would be singular): its legs integrated once at the default tolerance.
+fn model_at(
+    composition: &Composition,
+    physics: &PhysicsSet,
+    mass_msun: f64,
+    u: Unknowns,
+) -> Result<ZamsModel> {
+    let settings =
+        ZamsSettings::new(mass_msun, *composition, physics.clone())?.with_unknowns_guess(u);
+    let ctx = leg_context(mass_msun, physics, composition, DEFAULT_TOLERANCE);
+    let mut problem = ShootingProblem::new(ctx, settings.fit_mass_fraction(), DEFAULT_TOLERANCE)?;
+    let legs = problem.legs_at(&u)?;
+    let mismatch = problem.residual(&u)?.amax();
+    let stats = SolveStats {
+        iterations: 0,
+        fit_mismatch: mismatch,
+        residual_evaluations: 1,
+        jacobian_evaluations: 0,
+        rhs_evaluations: problem.runner.rhs_evaluations(),
+        tolerance: DEFAULT_TOLERANCE,
+    };
+    model::build(&settings, problem.ctx(), &legs, Vec::new(), stats)
+}

@@ -84,17 +84,7 @@ fn fixtures(dir: &Path) {
     perms.set_readonly(true);
     std::fs::set_permissions(dir.join("readonly.csv"), perms).unwrap();
     // A shard of a real grid, and copies made hostile.
-    let out = common::starpoise(&[
-        "sequence",
-        "--quiet",
-        "--masses",
-        "1,2",
-        "--physics",
-        "analytic",
-        "--out",
-        dir.join("shard.csv").to_str().unwrap(),
-    ]);
-    assert!(out.status.success(), "{}", common::stderr(&out));
+    common::small_grid(&dir.join("shard.csv"));
     let shard = std::fs::read_to_string(dir.join("shard.csv")).unwrap();
     let huge = shard.replace(",0,2,base,", ",0,18446744073709551615,base,");
     assert_ne!(huge, shard);

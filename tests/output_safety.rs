@@ -4,7 +4,7 @@
 //! a temporary file nor a partial output.
 
 mod common;
-use common::{scratch_dir, starpoise, stderr};
+use common::{scratch_dir, small_grid, starpoise, stderr};
 use std::io::Read;
 use std::os::unix::fs::FileTypeExt;
 use std::os::unix::process::ExitStatusExt;
@@ -67,17 +67,7 @@ fn a_character_device_is_written_in_place() {
     let link = dir.join("null.csv");
     std::os::unix::fs::symlink("/dev/null", &link).unwrap();
     for target in [Path::new("/dev/null"), link.as_path()] {
-        let out = starpoise(&[
-            "sequence",
-            "--quiet",
-            "--masses",
-            "1,2",
-            "--physics",
-            "analytic",
-            "--out",
-            target.to_str().unwrap(),
-        ]);
-        assert!(out.status.success(), "{}", stderr(&out));
+        small_grid(target);
         let meta = std::fs::metadata("/dev/null").unwrap();
         assert!(meta.file_type().is_char_device(), "/dev/null was replaced");
     }
@@ -225,17 +215,7 @@ fn dash_is_standard_output_for_every_text_output() {
     assert!(stderr(&out).contains("luminosity"), "{}", stderr(&out));
     assert!(!String::from_utf8_lossy(&out.stdout).contains("effective temperature"));
     // merge --out -
-    let made = starpoise(&[
-        "sequence",
-        "--quiet",
-        "--masses",
-        "1,2",
-        "--physics",
-        "analytic",
-        "--out",
-        shard.to_str().unwrap(),
-    ]);
-    assert!(made.status.success());
+    small_grid(&shard);
     let out = starpoise(&["merge", shard.to_str().unwrap(), "--out", "-"]);
     assert!(out.status.success(), "{}", stderr(&out));
     let merged = String::from_utf8_lossy(&out.stdout);

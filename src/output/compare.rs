@@ -7,7 +7,7 @@
 
 use super::columns::{compare_columns, units_json};
 use super::meta::Meta;
-use super::tabular::{cells_of, write_csv, write_ecsv, TableFormat, Tabular};
+use super::tabular::{cells_of, write_table_file, TableFormat, Tabular};
 use crate::error::Result;
 use crate::grid::compare::{differences, sensitivities, single_factor_change};
 use crate::grid::run::PointResult;
@@ -207,13 +207,7 @@ pub fn write_table(path: &Path, table: &CompareTable, meta: &Meta) -> Result<()>
         len: table.records.len(),
         row: &row,
     };
-    crate::output::write_output(path, |w| match TableFormat::from_path(path) {
-        TableFormat::Json => {
-            serde_json::to_writer_pretty(&mut *w, &table_json(table, meta))
-                .map_err(std::io::Error::other)?;
-            w.write_all(b"\n")
-        }
-        TableFormat::Ecsv => write_ecsv(w, &tabular),
-        TableFormat::Csv => write_csv(w, &tabular),
-    })
+    let format = TableFormat::from_path(path);
+    let json = (format == TableFormat::Json).then(|| table_json(table, meta));
+    write_table_file(path, format, &tabular, json.as_ref())
 }

@@ -3,9 +3,8 @@
 
 use super::columns::polytrope_columns;
 use super::meta::Meta;
-use super::tabular::{write_csv, write_ecsv, write_json, Cell, TableFormat, Tabular};
+use super::tabular::{write_table_file, Cell, TableFormat, Tabular};
 use crate::error::Result;
-use crate::output::write_output;
 use crate::polytrope::{LaneEmdenSolution, ScaledPolytrope};
 use serde::Serialize;
 use std::fmt::Write as _;
@@ -271,9 +270,5 @@ pub fn write_profile(
         len,
         row: &row,
     };
-    write_output(path, |w| match TableFormat::from_path(path) {
-        TableFormat::Csv => write_csv(w, &table),
-        TableFormat::Ecsv => write_ecsv(w, &table),
-        TableFormat::Json => write_json(w, &table),
-    })
+    write_table_file(path, TableFormat::from_path(path), &table, None)
 }

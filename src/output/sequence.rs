@@ -19,7 +19,7 @@
 
 use super::columns::{sequence_columns, units_json};
 use super::meta::Meta;
-use super::tabular::{is_ecsv_text, read_ecsv, write_csv, write_ecsv, Cell, TableFormat, Tabular};
+use super::tabular::{is_ecsv_text, read_ecsv, write_table_file, Cell, TableFormat, Tabular};
 use crate::error::{Error, Result};
 use crate::grid::fits::{format_ranges, parse_ranges, FitGroup};
 use crate::grid::{GridRow, GridTable, RowStatus};
@@ -179,15 +179,9 @@ pub fn write_table(path: &Path, table: &GridTable, meta: &Meta) -> Result<()> {
         len: table.rows.len(),
         row: &row,
     };
-    crate::output::write_output(path, |w| match TableFormat::from_path(path) {
-        TableFormat::Json => {
-            serde_json::to_writer_pretty(&mut *w, &table_json(table, meta))
-                .map_err(std::io::Error::other)?;
-            w.write_all(b"\n")
-        }
-        TableFormat::Ecsv => write_ecsv(w, &tabular),
-        TableFormat::Csv => write_csv(w, &tabular),
-    })
+    let format = TableFormat::from_path(path);
+    let json = (format == TableFormat::Json).then(|| table_json(table, meta));
+    write_table_file(path, format, &tabular, json.as_ref())
 }
 
 /// Read a table written by [`write_table`] (JSON by extension; ECSV by its first line; else

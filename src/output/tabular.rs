@@ -254,6 +254,26 @@ pub fn write_json(w: &mut dyn Write, t: &Tabular) -> std::io::Result<()> {
     w.write_all(b"]}\n")
 }
 
+/// Write `t` to `path` in `format`: CSV, ECSV, or JSON — `json` if given (an output with its
+/// own JSON shape), else the row-major table of [`write_json`]. `-` is standard output; a file
+/// is written atomically.
+pub fn write_table_file(
+    path: &std::path::Path,
+    format: TableFormat,
+    t: &Tabular,
+    json: Option<&Value>,
+) -> crate::error::Result<()> {
+    crate::output::write_output(path, |w| match (format, json) {
+        (TableFormat::Csv, _) => write_csv(w, t),
+        (TableFormat::Ecsv, _) => write_ecsv(w, t),
+        (TableFormat::Json, None) => write_json(w, t),
+        (TableFormat::Json, Some(v)) => {
+            serde_json::to_writer_pretty(&mut *w, v).map_err(std::io::Error::other)?;
+            w.write_all(b"\n")
+        }
+    })
+}
+
 /// An ECSV table as read back: its columns, metadata, header row and rows of text.
 #[derive(Debug, Clone, PartialEq)]
 pub struct EcsvTable {
@@ -462,8 +482,8 @@ mod tests {
         (columns, meta, rows)
     }
 
-    #[test]
-    fn ecsv_round_trips_through_its_reader() {
+    /// The demo table written by `writer`.
+    fn render(writer: fn(&mut dyn Write, &Tabular) -> std::io::Result<()>) -> Vec<u8> {
         let (columns, meta, rows) = demo();
         let row = |i: usize| rows[i].clone();
         let t = Tabular {
@@ -473,8 +493,14 @@ mod tests {
             row: &row,
         };
         let mut out = Vec::new();
-        write_ecsv(&mut out, &t).unwrap();
-        let text = String::from_utf8(out).unwrap();
+        writer(&mut out, &t).unwrap();
+        out
+    }
+
+    #[test]
+    fn ecsv_round_trips_through_its_reader() {
+        let (columns, meta, _) = demo();
+        let text = String::from_utf8(render(write_ecsv)).unwrap();
         assert!(
             text.starts_with("# %ECSV 1.0\n# ---\n# datatype:\n"),
             "{text}"
@@ -503,17 +529,7 @@ mod tests {
 
     #[test]
     fn ecsv_reader_refuses_what_the_standard_does_not_allow() {
-        let (columns, meta, rows) = demo();
-        let row = |i: usize| rows[i].clone();
-        let t = Tabular {
-            columns: &columns,
-            meta: &meta,
-            len: rows.len(),
-            row: &row,
-        };
-        let mut out = Vec::new();
-        write_ecsv(&mut out, &t).unwrap();
-        let good = String::from_utf8(out).unwrap();
+        let good = String::from_utf8(render(write_ecsv)).unwrap();
         for (from, to) in [
             ("# %ECSV 1.0", "# %ECSV 9.9"),
             ("# ---", "# ..."),
@@ -531,17 +547,7 @@ mod tests {
 
     #[test]
     fn json_tables_are_row_major_with_units() {
-        let (columns, meta, rows) = demo();
-        let row = |i: usize| rows[i].clone();
-        let t = Tabular {
-            columns: &columns,
-            meta: &meta,
-            len: rows.len(),
-            row: &row,
-        };
-        let mut out = Vec::new();
-        write_json(&mut out, &t).unwrap();
-        let v: Value = serde_json::from_slice(&out).unwrap();
+        let v: Value = serde_json::from_slice(&render(write_json)).unwrap();
         assert_eq!(v["columns"], serde_json::json!(["mass_g", "ok", "note"]));
         assert_eq!(v["units"]["mass_g"], "g");
         assert_eq!(v["rows"][0][0].as_f64(), Some(1.9884098706980498e33));

@@ -12,7 +12,7 @@
 use super::columns::profile_columns;
 use super::format::{laws_text, num};
 use super::meta::{Meta, Provenance};
-use super::tabular::{cells_of, write_csv, write_ecsv, write_json, TableFormat, Tabular};
+use super::tabular::{cells_of, write_table_file, TableFormat, Tabular};
 use crate::error::{Error, Result};
 use crate::structure::{ModelSummary, NotConverged, ProfileRow, ZamsModel, ZamsSettings};
 use serde_json::{json, Map, Value};
@@ -122,11 +122,7 @@ pub fn write_profile(
         len: rows.len(),
         row: &row,
     };
-    super::write_output(path, |w| match format {
-        TableFormat::Csv => write_csv(w, &table),
-        TableFormat::Ecsv => write_ecsv(w, &table),
-        TableFormat::Json => write_json(w, &table),
-    })
+    write_table_file(path, format, &table, None)
 }
 
 /// The summary as aligned text with units.

@@ -36,6 +36,21 @@ pub fn without_command(path: &std::path::Path) -> String {
         .collect()
 }
 
+/// Solve the small analytic grid `--masses 1,2` into `out` (a shard file for merge tests).
+pub fn small_grid(out: &std::path::Path) {
+    let o = starpoise(&[
+        "sequence",
+        "--quiet",
+        "--masses",
+        "1,2",
+        "--physics",
+        "analytic",
+        "--out",
+        out.to_str().expect("a UTF-8 path"),
+    ]);
+    assert!(o.status.success(), "{}", stderr(&o));
+}
+
 /// Standard error as text.
 pub fn stderr(o: &Output) -> String {
     String::from_utf8_lossy(&o.stderr).into_owned()

@@ -982,6 +982,50 @@ const CASES: &[Case] = &[
         "line 6",
         "3 comma-separated values",
     ),
+    // modes, limits
+    case(&["modes", "--polytrope", "-1"], "-1", "[0, 5)"),
+    case(
+        &["modes", "--polytrope", "3", "--gamma1", "1"],
+        "--gamma1 = 1",
+        "4/3",
+    ),
+    case(
+        &["modes", "--polytrope", "3", "--degrees", "0,-1"],
+        "-1",
+        "0 to 1000",
+    ),
+    case(
+        &["modes", "--polytrope", "3", "--degrees", "2000"],
+        "2000",
+        "0 to 1000",
+    ),
+    case(
+        &["modes", "--polytrope", "3", "--max-order", "-5"],
+        "-5",
+        "1 to 1000",
+    ),
+    case(
+        &["modes", "--polytrope", "3", "--points", "1e9"],
+        "1e9",
+        "50 to 100000",
+    ),
+    case(
+        &[
+            "modes",
+            "--polytrope",
+            "3",
+            "--eigenfunctions",
+            "/proc/e.csv",
+        ],
+        "/proc/e.csv",
+        "writable folder",
+    ),
+    case(&["limits", "--x", "2"], "--x = 2", "[0, 1]"),
+    case(
+        &["limits", "--opacity-factor", "-3"],
+        "-3",
+        "[0.000001, 1000000]",
+    ),
     // verify, completions
     case(&["verify", "--format", "xml"], "xml", "possible values"),
     case(&["completions", "tcsh"], "tcsh", "possible values"),

@@ -1,7 +1,7 @@
 //! `sequence` and `merge` as a user runs them: shards, threads, order, and bad input.
 
 mod common;
-use common::{scratch_dir, starpoise, stderr, without_command};
+use common::{scratch_dir, small_grid, starpoise, stderr, without_command};
 
 const GRID: [&str; 6] = [
     "--masses",
@@ -46,18 +46,7 @@ fn three_shards_merge_to_the_single_run() {
     assert_eq!(without_command(&merged), without_command(&whole));
     // A missing shard, a repeated shard and a foreign grid are refused with exit 2.
     let foreign = dir.join("foreign.csv");
-    assert!(starpoise(&[
-        "sequence",
-        "--quiet",
-        "--masses",
-        "1,2",
-        "--physics",
-        "analytic",
-        "--out",
-        foreign.to_str().unwrap()
-    ])
-    .status
-    .success());
+    small_grid(&foreign);
     let bad_sets: Vec<(Vec<&str>, &str)> = vec![
         (vec![&names[0], &names[1]], "missing"),
         (vec![&names[0], &names[1], &names[2], &names[2]], "also in"),

@@ -14,8 +14,8 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     let physics = PhysicsSet::from_spec(&preset.spec())?;
     let comp = Composition::new(0.70, 0.02)?;
     let all = [
-        0.08, 0.1, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.5, 0.7, 1.0, 1.2, 1.35, 1.5, 1.7, 2.0, 3.0,
-        5.0, 7.0, 10.0, 15.0, 20.0, 30.0, 50.0, 70.0, 100.0, 150.0,
+        0.075, 0.08, 0.085, 0.09, 0.1, 0.12, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.5, 0.7, 1.0, 1.2,
+        1.35, 1.5, 1.7, 2.0, 3.0, 5.0, 7.0, 10.0, 15.0, 20.0, 30.0, 50.0, 70.0, 100.0, 150.0,
     ];
     let lowest = preset.minimum_mass_msun().unwrap_or(0.0);
     let masses: Vec<f64> = all.into_iter().filter(|&m| m >= lowest).collect();

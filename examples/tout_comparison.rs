@@ -26,7 +26,7 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
     );
     let (mut worst_l, mut worst_r) = (0.0f64, 0.0f64);
     for m in [
-        0.1, 0.2, 0.3, 0.5, 0.7, 1.0, 1.5, 2.0, 3.0, 5.0, 10.0, 20.0, 50.0, 100.0,
+        0.08, 0.1, 0.2, 0.3, 0.5, 0.7, 1.0, 1.5, 2.0, 3.0, 5.0, 10.0, 20.0, 50.0, 100.0,
     ] {
         match solve(&ZamsSettings::new(m, comp, physics.clone())?) {
             Ok(model) => {

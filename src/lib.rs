@@ -15,6 +15,7 @@ pub mod physics;
 pub mod polytrope;
 pub mod reference;
 pub mod structure;
+pub mod units;
 pub mod verify;
 
 pub use error::{Error, Result};

@@ -87,7 +87,7 @@ fn ordering_and_monotonicity() {
     assert_eq!(a18.nabla(&stable).unwrap(), 0.2);
     assert!(MixingLength::new(0.0).is_err());
     assert!(MixingLength::new(f64::NAN).is_err());
-    assert_eq!(a18.name(), "mlt:alpha=1.8");
+    assert_eq!(a18.name(), "mlt:alpha=2.4");
 }
 
 /// Bad inputs in a convective layer are an error, not NaN.

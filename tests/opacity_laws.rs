@@ -149,3 +149,61 @@ fn scaled_opacity() {
     assert!(Scaled::new(base.clone(), 0.0, "--opacity-factor").is_err());
     assert!(Scaled::new(base, f64::INFINITY, "--opacity-factor").is_err());
 }
+
+/// Bell & Lin (1994) piecewise law (docs/references.md §8.3; coefficients memory, regime bounds
+/// computed): inside each regime, away from the rounded corners (a factor 1.5 from every
+/// bound), it is the regime's power law exactly; at the computed bounds neighbouring regimes
+/// agree to the 5-6 digits of the recorded bounds.
+#[test]
+fn bell_lin_regimes_and_bounds() {
+    use starpoise::physics::opacity::BellLin;
+    let rho: f64 = 1e-9;
+    // Molecules -> H- bound 1e4 rho^(1/21) K; H- -> bound-free 31195.2 rho^(4/75) K.
+    let t_mol = 1e4 * rho.powf(1.0 / 21.0);
+    let t_hm = 31195.2 * rho.powf(4.0 / 75.0);
+    let molecules = |t: f64| 1e-8 * rho.powf(2.0 / 3.0) * t.powi(3);
+    let h_minus = |t: f64| 1e-36 * rho.powf(1.0 / 3.0) * t.powi(10);
+    let bound_free = |t: f64| 1.5e20 * rho * t.powf(-2.5);
+    assert!((molecules(t_mol) / h_minus(t_mol) - 1.0).abs() < 1e-4);
+    assert!((h_minus(t_hm) / bound_free(t_hm) - 1.0).abs() < 1e-4);
+    let c = solar();
+    let law = |t: f64| BellLin.kappa(rho, t, &c).unwrap();
+    let mid = (t_mol * t_hm).sqrt();
+    for (t, expected) in [
+        (t_mol / 1.5, molecules(t_mol / 1.5)),
+        (mid, h_minus(mid)),
+        (t_hm * 1.5, bound_free(t_hm * 1.5)),
+    ] {
+        assert!((law(t) / expected - 1.0).abs() < 1e-12, "{t} K");
+    }
+    // Electron scattering 0.348 at 1e6 K and 1e-9 g/cm^3 (bound-free is 1e-4 of it there).
+    assert!((BellLin.kappa(1e-9, 1e6, &c).unwrap() - 0.348).abs() < 1e-9);
+    // Outside the published range: an error, not an extrapolation.
+    assert!(BellLin.kappa(1e-2, 3000.0, &c).is_err());
+    assert!(BellLin.kappa(1e-9, 100.0, &c).is_err());
+}
+
+/// The refined opacity below 4000 K: the Bell & Lin molecular term (scaled by Z/0.02) takes
+/// over from H-, which is switched off below 2500 K (outside the 3000–6000 K range it was
+/// fitted on); at 2000 K the radiative opacity is the molecular term plus the 0.1 Z floor, and
+/// above 4500 K the molecular term is gone (docs/references.md §3, §8.3).
+#[test]
+fn refined_opacity_below_4000_k() {
+    use starpoise::physics::opacity::bell_lin::molecular_kappa;
+    let c = solar();
+    let refined = RefinedOpacity::default();
+    let (rho, t) = (1e-6, 2000.0);
+    let expected = molecular_kappa(rho, t) + 0.1 * 0.02;
+    // Electron scattering by the 1e-20 ionised hydrogen and Kramers (~5e6 cm^2/g here) through
+    // the harmonic sum change it by 2e-9: tolerance 1e-8.
+    let got = refined.radiative(rho, t, &c);
+    assert!((got / expected - 1.0).abs() < 1e-8, "{got} vs {expected}");
+    // Scales with Z.
+    let poor = Composition::new(0.70, 0.002).unwrap();
+    let poor_expected = molecular_kappa(rho, t) * 0.1 + 0.1 * 0.002;
+    assert!((refined.radiative(rho, t, &poor) / poor_expected - 1.0).abs() < 1e-8);
+    // Above 4500 K only H- and the rest: the molecular term would be 0.07 at 5000 K, 1e-7.
+    let hot = refined.radiative(1e-7, 5000.0, &c);
+    let h_minus = HMinus::formula(1e-7, 5000.0, &c);
+    assert!(hot < 1.1 * h_minus + 0.01, "{hot} vs H- {h_minus}");
+}

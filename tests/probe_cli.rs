@@ -70,7 +70,7 @@ fn json_keys_and_values() {
     assert!((p / 2.4e17 - 1.0).abs() < 0.05, "P = {p}");
     assert_eq!(v["physics"]["preset"], "refined");
     let laws = v["opacity_laws"].as_array().unwrap();
-    assert_eq!(laws.len(), 6);
+    assert_eq!(laws.len(), 7);
     assert!(laws
         .iter()
         .any(|l| l["law"] == "h-minus" && l["opacity_cm2_g"].is_null() && l["error"].is_string()));

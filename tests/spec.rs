@@ -37,11 +37,11 @@ fn presets() {
     let d = with("").unwrap();
     assert_eq!(d, Preset::Refined.spec());
     assert_eq!(d.preset.to_string(), "refined");
-    assert_eq!(d.eos.to_string(), "refined");
+    assert_eq!(d.eos.to_string(), "molecular");
     assert_eq!(d.opacity.to_string(), "refined:guillotine=3,exponent=0.5");
     assert_eq!(d.rates.to_string(), "sfactor");
-    assert_eq!(d.convection.to_string(), "mlt:alpha=1.8");
-    assert_eq!(d.atmosphere.to_string(), "grey");
+    assert_eq!(d.convection.to_string(), "mlt:alpha=2.4");
+    assert_eq!(d.atmosphere.to_string(), "krishna-swamy");
     assert_eq!(with("preset:analytic").unwrap(), Preset::Analytic.spec());
     for (preset, set) in [
         (Preset::Refined, PhysicsSet::refined()),
@@ -62,7 +62,7 @@ fn presets() {
 /// Every law can be chosen by name, with parameters, and prints in the same grammar.
 #[test]
 fn overrides_by_name() {
-    for eos in ["ideal", "saha", "degenerate", "refined"] {
+    for eos in ["ideal", "saha", "degenerate", "refined", "molecular"] {
         let s = with(&format!("preset:analytic;eos:{eos}")).unwrap();
         assert_eq!(s.eos.to_string(), eos);
     }
@@ -72,6 +72,7 @@ fn overrides_by_name() {
         ("kramers", "kramers:guillotine=1".to_string()),
         ("kramers:guillotine=30", "kramers:guillotine=30".to_string()),
         ("h-minus", "h-minus".to_string()),
+        ("bell-lin", "bell-lin".to_string()),
         ("conductive", "conductive".to_string()),
         ("analytic", "analytic".to_string()),
         ("refined", "refined:guillotine=3,exponent=0.5".to_string()),
@@ -108,9 +109,13 @@ fn overrides_by_name() {
     );
     // What the JSON summary prints for convection is accepted back.
     assert_eq!(
-        with("convection:mlt:alpha=1.8").unwrap(),
+        with("convection:mlt:alpha=2.4").unwrap(),
         Preset::Refined.spec()
     );
+    for atmosphere in ["photosphere", "eddington", "hopf", "krishna-swamy"] {
+        let s = with(&format!("atmosphere:{atmosphere}")).unwrap();
+        assert_eq!(s.atmosphere.to_string(), atmosphere);
+    }
     let s = with("opacity-factor:2;rates-factor:0.5").unwrap();
     assert_eq!((s.opacity_factor, s.rates_factor), (2.0, 0.5));
     assert_eq!(
@@ -127,7 +132,10 @@ fn clear_errors() {
     assert!(a.contains("refined") && a.contains("analytic"), "{a}");
     let (n, _, a) = invalid("eos:vdw");
     assert_eq!(n, "eos");
-    assert!(a.contains("ideal, saha, degenerate, refined"), "{a}");
+    assert!(
+        a.contains("ideal, saha, degenerate, refined, molecular"),
+        "{a}"
+    );
     let (n, _, a) = invalid("opacity:opal");
     assert_eq!(n, "opacity");
     assert!(a.contains("table:PATH") && a.contains("kramers"), "{a}");

@@ -53,7 +53,7 @@ pub struct PhysicsFlags {
     /// Convection law.
     #[arg(long, value_name = "LAW", allow_hyphen_values = true, help = help(LawKind::Convection))]
     pub convection: Option<ConvectionSpec>,
-    /// Mixing-length parameter alpha of mlt [default: 1.8; range 0.1-10].
+    /// Mixing-length parameter alpha of mlt [default: 2.4; range 0.1-10].
     #[arg(long, value_name = "A", value_parser = super::values::number, allow_hyphen_values = true)]
     pub alpha: Option<f64>,
     /// Factor multiplying the opacity [default: 1; range 1e-6-1e6].

@@ -138,6 +138,8 @@ struct March {
 struct Solver<'a> {
     grid: &'a Grid,
     run: &'a RunSettings,
+    /// Asked before each model; once it answers true no further model is started.
+    stop: &'a (dyn Fn() -> bool + Sync),
     chains: Chains,
     /// Outcomes from the built-in guess, by grid index.
     from_guess: HashMap<usize, Outcome>,
@@ -150,7 +152,16 @@ impl Solver<'_> {
         &self.grid.points[i]
     }
 
-    fn solve_from(&self, i: usize, start: Option<(f64, Unknowns)>) -> Outcome {
+    /// The outcome at point `i` from `start` (the built-in guess if `None`); `None` if the run
+    /// was stopped.
+    fn solve_from(&self, i: usize, start: Option<(f64, Unknowns)>) -> Option<Outcome> {
+        if (self.stop)() {
+            return None;
+        }
+        Some(self.solve_model(i, start))
+    }
+
+    fn solve_model(&self, i: usize, start: Option<(f64, Unknowns)>) -> Outcome {
         let p = self.point(i);
         let mut s = settings_for(self.grid, p, self.run)?;
         if let Some((from_msun, u)) = start {
@@ -178,23 +189,31 @@ impl Solver<'_> {
         Scan::None
     }
 
-    /// Solve from the guess every point of `wanted` not yet solved, in parallel.
-    fn solve_from_guess(&mut self, wanted: &[usize], tick: &(dyn Fn() + Sync)) {
-        let new: Vec<(usize, Outcome)> = wanted
+    /// Solve from the guess every point of `wanted` not yet solved, in parallel; false if the
+    /// run was stopped.
+    fn solve_from_guess(&mut self, wanted: &[usize], tick: &(dyn Fn() + Sync)) -> bool {
+        let new: Option<Vec<(usize, Outcome)>> = wanted
             .par_iter()
             .filter(|i| !self.from_guess.contains_key(i))
             .map(|&i| {
-                let o = self.solve_from(i, None);
+                let o = self.solve_from(i, None)?;
                 tick();
-                (i, o)
+                Some((i, o))
             })
             .collect();
-        self.from_guess.extend(new);
+        match new {
+            Some(new) => {
+                self.from_guess.extend(new);
+                true
+            }
+            None => false,
+        }
     }
 
     /// The anchors (chain positions) below and above the failed point `i`, the nearer in ln M
-    /// first; solves from the guess whatever points of the chain that needs.
-    fn anchors(&mut self, failed: &[usize]) -> HashMap<usize, Vec<March>> {
+    /// first; solves from the guess whatever points of the chain that needs. `None` if the run
+    /// was stopped.
+    fn anchors(&mut self, failed: &[usize]) -> Option<HashMap<usize, Vec<March>>> {
         loop {
             let mut wanted: Vec<usize> = Vec::new();
             for &i in failed {
@@ -209,9 +228,11 @@ impl Solver<'_> {
             if wanted.is_empty() {
                 break;
             }
-            self.solve_from_guess(&wanted, &|| {});
+            if !self.solve_from_guess(&wanted, &|| {}) {
+                return None;
+            }
         }
-        failed
+        let anchors = failed
             .iter()
             .map(|&i| {
                 let (c, _) = self.chains.place[i];
@@ -239,16 +260,18 @@ impl Solver<'_> {
                 found.sort_by(|a, b| a.0.total_cmp(&b.0));
                 (i, found.into_iter().map(|(_, m)| m).collect())
             })
-            .collect()
+            .collect();
+        Some(anchors)
     }
 
-    /// Run every march of `needed` (march, steps) that is not yet long enough, in parallel.
-    fn march(&mut self, needed: HashMap<March, usize>) {
+    /// Run every march of `needed` (march, steps) that is not yet long enough, in parallel;
+    /// false if the run was stopped.
+    fn march(&mut self, needed: HashMap<March, usize>) -> bool {
         let todo: Vec<(March, usize)> = needed
             .into_iter()
             .filter(|(m, steps)| self.marches.get(m).is_none_or(|done| done.len() < *steps))
             .collect();
-        let done: Vec<(March, Vec<Outcome>)> = todo
+        let done: Option<Vec<(March, Vec<Outcome>)>> = todo
             .par_iter()
             .map(|&(m, steps)| {
                 let chain = &self.chains.chains[m.chain];
@@ -264,16 +287,22 @@ impl Solver<'_> {
                         break;
                     };
                     let i = chain[pos];
-                    let o = self.solve_from(i, last);
+                    let o = self.solve_from(i, last)?;
                     if let Ok(model) = &o {
                         last = Some((self.point(i).mass_msun, model.unknowns));
                     }
                     outcomes.push(o);
                 }
-                (m, outcomes)
+                Some((m, outcomes))
             })
             .collect();
-        self.marches.extend(done);
+        match done {
+            Some(done) => {
+                self.marches.extend(done);
+                true
+            }
+            None => false,
+        }
     }
 
     /// The outcome at the failed point `i` of the march `m`.
@@ -292,6 +321,20 @@ pub fn solve_points(
     run: &RunSettings,
     tick: &(dyn Fn() + Sync),
 ) -> Result<Vec<PointResult>> {
+    Ok(solve_points_until(grid, points, run, tick, &|| false)?.unwrap_or_default())
+}
+
+/// [`solve_points`] that can be stopped: `stop` is asked before each model (from the worker
+/// threads); once it answers true, no further model is started and the run returns `Ok(None)`
+/// after the models under way finish. A caller that handles interrupts (the Python module's
+/// Ctrl-C) sets a flag that `stop` reads.
+pub fn solve_points_until(
+    grid: &Grid,
+    points: &[GridPoint],
+    run: &RunSettings,
+    tick: &(dyn Fn() + Sync),
+    stop: &(dyn Fn() -> bool + Sync),
+) -> Result<Option<Vec<PointResult>>> {
     for p in &grid.points {
         settings_for(grid, p, run)?;
     }
@@ -309,18 +352,23 @@ pub fn solve_points(
         let mut solver = Solver {
             grid,
             run,
+            stop,
             chains: Chains::of(grid),
             from_guess: HashMap::new(),
             marches: HashMap::new(),
         };
         let requested: Vec<usize> = points.iter().map(|p| p.index).collect();
-        solver.solve_from_guess(&requested, tick);
+        if !solver.solve_from_guess(&requested, tick) {
+            return Ok(None);
+        }
         let failed: Vec<usize> = requested
             .iter()
             .copied()
             .filter(|i| solver.from_guess.get(i).is_some_and(|o| o.is_err()))
             .collect();
-        let anchors = solver.anchors(&failed);
+        let Some(anchors) = solver.anchors(&failed) else {
+            return Ok(None);
+        };
         let mut continued: HashMap<usize, Outcome> = HashMap::new();
         // First every failed point's nearer anchor, then the other one for those still failing.
         for attempt in 0..2 {
@@ -335,7 +383,9 @@ pub fn solve_points(
                     *e = (*e).max(steps);
                 }
             }
-            solver.march(needed);
+            if !solver.march(needed) {
+                return Ok(None);
+            }
             for &i in &failed {
                 if continued.contains_key(&i) {
                     continue;
@@ -348,22 +398,84 @@ pub fn solve_points(
                 }
             }
         }
-        Ok(points
-            .iter()
-            .map(|p| match continued.remove(&p.index) {
-                Some(outcome) => PointResult {
-                    point: p.clone(),
-                    outcome,
-                    continued: true,
-                },
-                None => PointResult {
-                    point: p.clone(),
-                    outcome: solver.from_guess.remove(&p.index).unwrap_or_else(|| {
-                        Err(Error::invalid("grid point", p.index, "not solved"))
-                    }),
-                    continued: false,
-                },
-            })
-            .collect())
+        Ok(Some(
+            points
+                .iter()
+                .map(|p| match continued.remove(&p.index) {
+                    Some(outcome) => PointResult {
+                        point: p.clone(),
+                        outcome,
+                        continued: true,
+                    },
+                    None => PointResult {
+                        point: p.clone(),
+                        outcome: solver.from_guess.remove(&p.index).unwrap_or_else(|| {
+                            Err(Error::invalid("grid point", p.index, "not solved"))
+                        }),
+                        continued: false,
+                    },
+                })
+                .collect(),
+        ))
     })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::grid::Variant;
+    use crate::physics::{PhysicsOverrides, Preset};
+    use std::sync::atomic::{AtomicUsize, Ordering};
+
+    fn analytic_grid(masses: &[f64]) -> Grid {
+        let base = PhysicsOverrides {
+            preset: Some(Preset::Analytic),
+            ..PhysicsOverrides::default()
+        };
+        Grid::product(&base, vec![Variant::base()], masses, &[0.7], &[0.02], 0.4)
+            .expect("valid grid")
+    }
+
+    #[test]
+    fn a_stopped_run_starts_no_further_model() {
+        let grid = analytic_grid(&[2.0, 3.0, 5.0]);
+        let points = grid.select(None);
+        let solved = AtomicUsize::new(0);
+        let tick = || {
+            solved.fetch_add(1, Ordering::SeqCst);
+        };
+        let run = RunSettings {
+            threads: 1,
+            tolerance: None,
+        };
+        // Stop before the first model: nothing is solved.
+        let out = solve_points_until(&grid, &points, &run, &tick, &|| true).expect("runs");
+        assert!(out.is_none());
+        assert_eq!(solved.load(Ordering::SeqCst), 0);
+        // Stop after the first model (one worker thread: models run one after another).
+        let stop = || solved.load(Ordering::SeqCst) >= 1;
+        let out = solve_points_until(&grid, &points, &run, &tick, &stop).expect("runs");
+        assert!(out.is_none());
+        assert_eq!(solved.load(Ordering::SeqCst), 1);
+        // Never stopped: the same results as the plain runner.
+        let all = solve_points_until(&grid, &points, &run, &|| {}, &|| false)
+            .expect("runs")
+            .expect("not stopped");
+        let plain = solve_points(&grid, &points, &run, &|| {}).expect("runs");
+        assert_eq!(all.len(), 3);
+        for (a, b) in all.iter().zip(&plain) {
+            let (a, b) = (a.outcome.as_ref().ok(), b.outcome.as_ref().ok());
+            let bits = |m: Option<&Box<ZamsModel>>| {
+                m.map(|m| {
+                    m.summary
+                        .values()
+                        .iter()
+                        .map(|v| v.to_bits())
+                        .collect::<Vec<_>>()
+                })
+            };
+            assert!(a.is_some());
+            assert_eq!(bits(a), bits(b));
+        }
+    }
 }

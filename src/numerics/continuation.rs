@@ -114,10 +114,31 @@ pub enum ContinuationError<E> {
 /// The fold and the branch that led to it.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Fold<const N: usize> {
-    /// The turning point (its tangent's lambda part is within the tolerance of 0).
+    /// The turning point (its tangent's lambda part is within the tolerance of 0), or, when the
+    /// branch could not be followed to it, the last point reached.
     pub point: BranchPoint<N>,
+    /// The parameter at the fold: `point.lambda` when the fold was reached, else extrapolated.
+    pub lambda: f64,
+    /// How the fold was found.
+    pub located: FoldLocation,
     /// The points visited, start first (the fold not included).
     pub branch: Vec<BranchPoint<N>>,
+}
+
+/// How a fold was found.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum FoldLocation {
+    /// Reached: the tangent's lambda part changed sign between two branch points and the fold
+    /// was located between them.
+    Reached,
+    /// Extrapolated: the corrector could not step further (F undefined beyond, e.g. a law's
+    /// domain), but the branch was approaching a turn: its tangent's lambda part had fallen
+    /// below a fifth of its value at the start, and lambda, a parabola in the leading unknown
+    /// near a simple fold, has its vertex just ahead (see `extrapolate_fold`).
+    Extrapolated {
+        /// |lambda* - lambda_last|: how far the last point reached lies from the fold.
+        distance: f64,
+    },
 }
 
 /// The unit tangent at (u, lambda) from dF/du = `j` and dF/dlambda = `fl`, oriented along
@@ -255,14 +276,18 @@ pub fn find_fold<const N: usize, B: Branch<N>>(
         tangent_lambda: tl,
     };
     let mut branch = vec![current];
+    // Arclength of each branch point from the start.
+    let mut arclength = vec![0.0];
     let mut ds = settings.initial_step;
     for _ in 0..settings.max_steps {
         let Some(next) = correct(problem, &current, ds, settings) else {
             ds *= 0.5;
             if ds < settings.min_step {
-                return Err(ContinuationError::StepTooSmall {
-                    lambda: current.lambda,
-                });
+                return extrapolate_fold(&branch, &arclength).ok_or(
+                    ContinuationError::StepTooSmall {
+                        lambda: current.lambda,
+                    },
+                );
             }
             continue;
         };
@@ -285,6 +310,8 @@ pub fn find_fold<const N: usize, B: Branch<N>>(
             let fold = locate_fold(problem, &current, &point, ds, settings);
             return Ok(Fold {
                 point: fold,
+                lambda: fold.lambda,
+                located: FoldLocation::Reached,
                 branch,
             });
         }
@@ -294,6 +321,7 @@ pub fn find_fold<const N: usize, B: Branch<N>>(
             });
         }
         branch.push(point);
+        arclength.push(arclength.last().copied().unwrap_or(0.0) + ds);
         current = point;
         ds = if next.iterations <= 2 {
             (ds * 1.5).min(settings.max_step)
@@ -305,6 +333,68 @@ pub fn find_fold<const N: usize, B: Branch<N>>(
     }
     Err(ContinuationError::TooManySteps {
         lambda: current.lambda,
+    })
+}
+
+/// Points used to extrapolate a fold (at most; at least 4).
+const EXTRAPOLATION_POINTS: usize = 8;
+/// How small the tangent's lambda part must have become, relative to its value at the start,
+/// for an extrapolation to be tried.
+const EXTRAPOLATION_RATIO: f64 = 0.2;
+
+/// The fold ahead of the last points of `branch` (see [`FoldLocation::Extrapolated`]): near a
+/// simple fold lambda is a parabola in the unknown v that moves most along the branch (the
+/// largest component of the last tangent), so a least-squares parabola through the last points
+/// gives the fold as its vertex, which must lie ahead of the last point and within a few times
+/// the span of the points fitted. `None` if the branch does not look like it is approaching a
+/// fold. (The tangents themselves are too noisy for this once the steps have shrunk: they come
+/// from finite-difference Jacobians.)
+fn extrapolate_fold<const N: usize>(branch: &[BranchPoint<N>], _s: &[f64]) -> Option<Fold<N>> {
+    let n = branch.len();
+    let first = branch.first()?.tangent_lambda;
+    let last = branch.last()?;
+    if n < 5 || last.tangent_lambda.abs() > EXTRAPOLATION_RATIO * first.abs() {
+        return None;
+    }
+    let k = last.tangent_u.iamax();
+    let tail = &branch[n.saturating_sub(EXTRAPOLATION_POINTS)..];
+    let v_last = last.u[k];
+    let span = tail
+        .iter()
+        .map(|p| (p.u[k] - v_last).abs())
+        .fold(0.0f64, f64::max);
+    if span <= 0.0 {
+        return None;
+    }
+    // lambda = c0 + c1 w + c2 w^2 with w = (v - v_last) / span, by the normal equations.
+    let mut a = nalgebra::Matrix3::<f64>::zeros();
+    let mut b = nalgebra::Vector3::<f64>::zeros();
+    for p in tail {
+        let w = (p.u[k] - v_last) / span;
+        let row = nalgebra::Vector3::new(1.0, w, w * w);
+        a += row * row.transpose();
+        b += row * p.lambda;
+    }
+    let c = a.lu().solve(&b)?;
+    if c[2] == 0.0 {
+        return None;
+    }
+    let w_star = -c[1] / (2.0 * c[2]);
+    let lambda = c[0] - c[1] * c[1] / (4.0 * c[2]);
+    // Ahead of the last point (in the direction the branch moves in v), not far ahead, and a
+    // turn in the direction the branch was going in lambda.
+    let ahead = w_star * last.tangent_u[k].signum() > 0.0 && w_star.abs() < 3.0;
+    let turning = (lambda - last.lambda) * last.tangent_lambda > 0.0;
+    if !(ahead && turning && lambda.is_finite()) {
+        return None;
+    }
+    Some(Fold {
+        point: *last,
+        lambda,
+        located: FoldLocation::Extrapolated {
+            distance: (lambda - last.lambda).abs(),
+        },
+        branch: branch.to_vec(),
     })
 }
 
@@ -401,6 +491,8 @@ mod tests {
         )
         .expect("a fold");
         assert!((fold.point.lambda - 1.0).abs() < 1e-6, "{:?}", fold.point);
+        assert_eq!(fold.located, FoldLocation::Reached);
+        assert_eq!(fold.lambda, fold.point.lambda);
         assert!(fold.point.u[0].abs() < 1e-3);
         assert!(fold.branch.len() > 3);
     }
@@ -433,5 +525,66 @@ mod tests {
             &ContinuationSettings::default(),
         );
         assert!(matches!(r, Err(ContinuationError::NoFold { lambda }) if lambda < -1.0));
+    }
+}
+
+#[cfg(test)]
+mod extrapolation {
+    use super::*;
+
+    /// F(u, lambda) = u^2 + lambda - 1, defined only for u > 0.05: the branch from u = 1 cannot be
+    /// followed to its fold at (u, lambda) = (0, 1); the fold is extrapolated from the points
+    /// before the barrier (where t_lambda = 2u / sqrt(1 + 4u^2) is nearly linear in arclength).
+    struct Fenced;
+    impl Branch<1> for Fenced {
+        type Error = ();
+        fn residual(&mut self, u: &SVector<f64, 1>, l: f64) -> Result<SVector<f64, 1>, ()> {
+            if u[0] < 0.05 {
+                return Err(());
+            }
+            Ok(SVector::<f64, 1>::new(u[0] * u[0] + l - 1.0))
+        }
+        fn derivatives(
+            &mut self,
+            u: &SVector<f64, 1>,
+            _l: f64,
+            _f: &SVector<f64, 1>,
+        ) -> Result<(SMatrix<f64, 1, 1>, SVector<f64, 1>), ()> {
+            Ok((
+                SMatrix::<f64, 1, 1>::new(2.0 * u[0]),
+                SVector::<f64, 1>::new(1.0),
+            ))
+        }
+    }
+
+    #[test]
+    fn a_fold_beyond_a_barrier_is_extrapolated() {
+        let settings = ContinuationSettings {
+            max_step: 0.05,
+            ..ContinuationSettings::default()
+        };
+        let fold = find_fold(
+            &mut Fenced,
+            SVector::<f64, 1>::new(1.0),
+            0.0,
+            1.0,
+            (-10.0, 10.0),
+            &settings,
+        )
+        .expect("an extrapolated fold");
+        let FoldLocation::Extrapolated { distance } = fold.located else {
+            panic!("{:?}", fold.located)
+        };
+        // The last point reached has u above the barrier 0.05, lambda = 1 - u^2 below 0.9975;
+        // the fold is at lambda = 1, and the extrapolation removes most of the gap (the
+        // remaining error is of order the gap times the curvature of t_lambda(s) over it).
+        let gap = 1.0 - fold.point.lambda;
+        assert!(gap > 0.0025 && gap < 0.05, "{gap}");
+        assert!(
+            (fold.lambda - 1.0).abs() < 0.1 * gap,
+            "{} (gap {gap})",
+            fold.lambda
+        );
+        assert!((distance - (fold.lambda - fold.point.lambda)).abs() < 1e-15);
     }
 }

@@ -14,6 +14,33 @@ pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
     (h, dh_dt / width)
 }
 
+/// An infinitely differentiable switch for laws whose thermodynamic derivatives use the
+/// switch's curvature: (h, dh / dln(a/b), d^2h / dln(a/b)^2) with h = p(t) / (p(t) + p(1 - t)),
+/// p(t) = exp(-1/t), of the same t as [`switch_weight`]. Every derivative vanishes at both ends,
+/// so a quantity built from h'' (a heat capacity) is smooth across them.
+/// With q = 1/t^2 + 1/(1-t)^2: h' = h (1 - h) q and h'' = h (1 - h) [q^2 (1 - 2h) + q'],
+/// q' = 2/(1-t)^3 - 2/t^3 (derivatives in t).
+pub fn switch_weight_curved(a: f64, b: f64, r0: f64) -> (f64, f64, f64) {
+    let lo = r0.ln();
+    let width = -2.0 * lo;
+    let t = ((a / b).ln() - lo) / width;
+    if t <= 0.0 {
+        return (0.0, 0.0, 0.0);
+    }
+    if t >= 1.0 {
+        return (1.0, 0.0, 0.0);
+    }
+    let u = 1.0 - t;
+    // h = 1 / (1 + exp(1/t - 1/u)), stable for any t in (0, 1).
+    let h = 1.0 / (1.0 + (1.0 / t - 1.0 / u).exp());
+    let hh = h * (1.0 - h);
+    let q = 1.0 / (t * t) + 1.0 / (u * u);
+    let dq = 2.0 / (u * u * u) - 2.0 / (t * t * t);
+    let dh_dt = hh * q;
+    let d2h_dt2 = hh * (q * q * (1.0 - 2.0 * h) + dq);
+    (h, dh_dt / width, d2h_dt2 / (width * width))
+}
+
 /// A twice-differentiable max(a, b) of positive numbers: exactly the larger one unless they are
 /// within a factor 1/`r0` of each other, where it blends b (1 - h) + a h with
 /// [`switch_weight`]`(a, b, r0)`. Never below the true max by more than the blend allows
@@ -33,6 +60,8 @@ mod tests {
         assert_eq!(switch_weight(2.0, 1.0, 0.8), (1.0, 0.0));
         assert_eq!(smooth_max(3.0, 1.0, 0.8), 3.0);
         assert_eq!(smooth_max(0.3, 1.0, 0.8), 1.0);
+        assert_eq!(switch_weight_curved(0.5, 1.0, 0.8), (0.0, 0.0, 0.0));
+        assert_eq!(switch_weight_curved(2.0, 1.0, 0.8), (1.0, 0.0, 0.0));
         assert!((smooth_max(1.0, 1.0, 0.8) - 1.0).abs() < 1e-15);
         // dh / dln(a/b) against a central difference across the blend.
         for i in 1..100 {
@@ -43,6 +72,12 @@ mod tests {
                 - switch_weight((ln_r - e).exp(), 1.0, 0.8).0)
                 / (2.0 * e);
             assert!((fd - dh).abs() < 1e-6, "{ln_r}: {fd} vs {dh}");
+            let curved = |r: f64| switch_weight_curved(r.exp(), 1.0, 0.8);
+            let (_, dh2, d2h) = curved(ln_r);
+            let fd1 = (curved(ln_r + e).0 - curved(ln_r - e).0) / (2.0 * e);
+            assert!((fd1 - dh2).abs() < 1e-6, "{ln_r}: {fd1} vs {dh2}");
+            let fd2 = (curved(ln_r + e).1 - curved(ln_r - e).1) / (2.0 * e);
+            assert!((fd2 - d2h).abs() < 1e-5, "{ln_r}: {fd2} vs {d2h}");
         }
     }
 }

@@ -2,8 +2,10 @@
 //! laws.
 //!
 //! JSON keys: `meta` (provenance), `x`, `y`, `z`, `physics` (a model-file fragment),
-//! `hydrogen_burning_minimum_mass_msun`, and `limiting_model`: every summary quantity of the
-//! model at the limit (the keys of the `zams` JSON summary, with `mass_msun`).
+//! `hydrogen_burning_minimum_mass_msun`, `extrapolated_by_msun` (`null` when the turning point
+//! was reached; else how far below the last model reached it was extrapolated), and
+//! `limiting_model`: every summary quantity of the model at the limit, or of the last model
+//! reached (the keys of the `zams` JSON summary, with `mass_msun`).
 
 use super::format::{laws_text, num};
 use super::meta::Provenance;
@@ -16,7 +18,7 @@ pub fn limits_json(limit: &HydrogenBurningLimit, meta: &Provenance) -> Value {
     let model = &limit.model;
     let c = model.composition();
     let mut m = Map::new();
-    m.insert("mass_msun".into(), json!(limit.mass_msun));
+    m.insert("mass_msun".into(), json!(model.mass_msun()));
     for (f, v) in ModelSummary::FIELDS.iter().zip(model.summary.values()) {
         m.insert(
             f.key.into(),
@@ -30,6 +32,7 @@ pub fn limits_json(limit: &HydrogenBurningLimit, meta: &Provenance) -> Value {
         "z": c.z(),
         "physics": model.physics(),
         "hydrogen_burning_minimum_mass_msun": limit.mass_msun,
+        "extrapolated_by_msun": limit.extrapolated_by_msun,
         "limiting_model": Value::Object(m),
     })
 }
@@ -58,6 +61,14 @@ pub fn limits_text(limit: &HydrogenBurningLimit) -> String {
         num(limit.mass_msun),
         "M_sun (turning point of the ZAMS branch)",
     );
+    let at = match limit.extrapolated_by_msun {
+        None => "the model at the limit".to_string(),
+        Some(d) => format!(
+            "extrapolated {d:.1e} M_sun below the last model (the laws fail beyond it); that model, at {} M_sun:",
+            num(model.mass_msun())
+        ),
+    };
+    line("", String::new(), &at);
     line("  radius", num(s.radius_rsun), "R_sun");
     line("  effective temperature", num(s.teff_k), "K");
     line("  luminosity", num(s.luminosity_lsun), "L_sun");

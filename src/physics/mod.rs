@@ -2,6 +2,7 @@
 //! convection. One trait per kind of law, one type per law; a [`PhysicsSet`] bundles one law of
 //! each kind and is what the structure equations evaluate.
 
+pub mod atmosphere;
 pub mod composition;
 pub mod convection;
 pub mod eos;
@@ -100,7 +101,7 @@ impl PhysicsSet {
         match preset {
             Preset::Refined => Self {
                 spec,
-                eos: Arc::new(eos::RefinedEos),
+                eos: Arc::new(eos::MolecularEos),
                 opacity: Arc::new(opacity::RefinedOpacity::default()),
                 rates: Arc::new(nuclear::SFactorRates::default()),
                 convection: Arc::new(convection::MixingLength::default()),

@@ -14,7 +14,9 @@ use super::shooting::{ShootingProblem, Unknowns};
 use super::{leg_context, model, solve, SolveStats, ZamsModel, ZamsSettings};
 use super::{LegError, DEFAULT_TOLERANCE};
 use crate::error::{Error, Result};
-use crate::numerics::continuation::{find_fold, Branch, ContinuationError, ContinuationSettings};
+use crate::numerics::continuation::{
+    find_fold, Branch, ContinuationError, ContinuationSettings, FoldLocation,
+};
 use crate::numerics::newton::NewtonProblem;
 use crate::physics::{Composition, PhysicsSet};
 use nalgebra::{SMatrix, SVector};
@@ -24,6 +26,42 @@ use nalgebra::{SMatrix, SVector};
 pub const START_MASS_MSUN: f64 = 0.12;
 /// Masses the continuation may visit, M_sun.
 pub const SEARCH_RANGE_MSUN: (f64, f64) = (0.03, 0.5);
+/// Hydrogen mass fractions of the built-in table of limits.
+pub const LIMIT_TABLE_X: [f64; 3] = [0.65, 0.70, 0.75];
+/// Metal mass fractions of the built-in table of limits.
+pub const LIMIT_TABLE_Z: [f64; 5] = [0.001, 0.004, 0.01, 0.02, 0.04];
+
+/// The hydrogen-burning minimum mass of the `refined` preset, M_sun, at each X (rows, in the
+/// order of [`LIMIT_TABLE_X`]) and Z (columns, [`LIMIT_TABLE_Z`]): computed by
+/// [`hydrogen_burning_limit`] (`cargo run --release --example limit_table`; regenerate it when
+/// the refined laws change). NaN where the limit cannot be found with these laws (the
+/// equation of state fails on the way to the turning point).
+pub const REFINED_LIMITS: [[f64; 5]; 3] = [
+    [f64::NAN, f64::NAN, 0.066909, 0.065691, f64::NAN],
+    [0.077895, 0.074626, 0.071058, 0.069819, 0.067788],
+    [0.084284, 0.079324, 0.077957, 0.074101, 0.071653],
+];
+
+/// How far below the tabulated limit a mass must lie to be refused (the interpolation accuracy
+/// of [`REFINED_LIMITS`] between its grid points; the limit itself is computed to 1e-6).
+pub const TABLE_MARGIN: f64 = 2e-3;
+
+/// The `refined` preset's limit at (`x`, `z`) from [`REFINED_LIMITS`], bilinear in (X, log Z)
+/// inside the table; `None` outside it or next to a composition whose limit is unknown.
+pub fn tabulated_refined_limit_msun(x: f64, z: f64) -> Option<f64> {
+    let locate = |v: f64, axis: &[f64]| -> Option<(usize, f64)> {
+        let i = axis.windows(2).position(|w| v >= w[0] && v <= w[1])?;
+        Some((i, (v - axis[i]) / (axis[i + 1] - axis[i])))
+    };
+    let (i, fx) = locate(x, &LIMIT_TABLE_X)?;
+    let log_z: Vec<f64> = LIMIT_TABLE_Z.iter().map(|z| z.ln()).collect();
+    let (j, fz) = locate(z.max(f64::MIN_POSITIVE).ln(), &log_z)?;
+    let at = |a: usize, b: usize| REFINED_LIMITS[a][b];
+    let value = (1.0 - fx) * ((1.0 - fz) * at(i, j) + fz * at(i, j + 1))
+        + fx * ((1.0 - fz) * at(i + 1, j) + fz * at(i + 1, j + 1));
+    value.is_finite().then_some(value)
+}
+
 /// Step in ln M of the finite difference dF/dln M.
 const LN_MASS_STEP: f64 = 1e-6;
 
@@ -32,8 +70,14 @@ const LN_MASS_STEP: f64 = 1e-6;
 pub struct HydrogenBurningLimit {
     /// The limiting mass, M_sun.
     pub mass_msun: f64,
-    /// The model at the limit.
+    /// The model at the limit, or the last model reached before it when the turning point had
+    /// to be extrapolated (see `extrapolated_by_msun`).
     pub model: ZamsModel,
+    /// `None` when the continuation reached the turning point; otherwise the mass by which the
+    /// limit lies below the last model reached (the laws failed on the way, and the turning
+    /// point was extrapolated from the branch's approach to it,
+    /// [`crate::numerics::continuation::FoldLocation::Extrapolated`]).
+    pub extrapolated_by_msun: Option<f64>,
     /// Masses visited along the branch, M_sun, from the start down to the limit.
     pub branch_masses_msun: Vec<f64>,
 }
@@ -157,11 +201,16 @@ pub fn hydrogen_burning_limit(
             START_MASS_MSUN,
         ),
     })?;
-    let mass_msun = fold.point.lambda.exp();
-    let model = model_at(composition, physics, mass_msun, fold.point.u)?;
+    let model = model_at(composition, physics, fold.point.lambda.exp(), fold.point.u)?;
+    let mass_msun = fold.lambda.exp();
+    let extrapolated_by_msun = match fold.located {
+        FoldLocation::Reached => None,
+        FoldLocation::Extrapolated { .. } => Some(model.mass_msun() - mass_msun),
+    };
     Ok(HydrogenBurningLimit {
         mass_msun,
         model,
+        extrapolated_by_msun,
         branch_masses_msun: fold.branch.iter().map(|p| p.lambda.exp()).collect(),
     })
 }

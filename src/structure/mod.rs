@@ -79,6 +79,23 @@ impl ZamsSettings {
                 "a zero-age main-sequence star burns hydrogen: X must be above 0, e.g. 0.70",
             ));
         }
+        if *physics.spec() == crate::physics::Preset::Refined.spec() {
+            if let Some(limit) =
+                limits::tabulated_refined_limit_msun(composition.x(), composition.z())
+            {
+                if mass_msun < limit * (1.0 - limits::TABLE_MARGIN) {
+                    return Err(Error::invalid(
+                        "mass_msun",
+                        mass_msun,
+                        &format!(
+                            "no hydrogen-burning star of this mass exists for X = {}, Z = {}: the hydrogen-burning minimum mass of the refined physics is {limit:.4} M_sun there (built-in table; `starpoise limits` computes it, also for other laws)",
+                            composition.x(),
+                            composition.z()
+                        ),
+                    ));
+                }
+            }
+        }
         let preset = physics.spec().preset;
         if let Some(min) = preset.minimum_mass_msun() {
             if mass_msun < min {
@@ -242,8 +259,16 @@ pub(crate) fn leg_context<'a>(
     }
 }
 
+/// Luminosity factors of the restarts from the built-in guess when the first iteration fails.
+const RESTART_LUMINOSITY_FACTORS: [f64; 3] = [0.1, 0.3, 3.0];
+
 /// Solve for the ZAMS model. A model that does not converge is an [`Error::NoConvergence`]
 /// carrying its [`NotConverged`] report (reason, history, last unknowns).
+///
+/// From the built-in guess (no guess given), a failed iteration is restarted from the same guess
+/// with the luminosity scaled by each of [`RESTART_LUMINOSITY_FACTORS`] in turn (a set of laws
+/// far from its preset's can make stars several times fainter or brighter than the preset's
+/// table) before the failure of the first attempt is reported.
 pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
     let ctx = settings.context();
     let u0 = settings.guess.unwrap_or_else(|| {
@@ -256,7 +281,19 @@ pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
     let mut problem =
         shooting::ShootingProblem::new(ctx, settings.fit_mass_fraction, settings.tolerance)?;
     let u0 = repaired_guess(&mut problem, u0);
-    let report = newton::solve(&mut problem, u0, &settings.newton);
+    let mut report = newton::solve(&mut problem, u0, &settings.newton);
+    if !report.converged() && settings.guess.is_none() {
+        for l_factor in RESTART_LUMINOSITY_FACTORS {
+            let mut u = u0;
+            u[3] += l_factor.ln();
+            problem.runner.set_tolerance(ctx.tolerance);
+            let retry = newton::solve(&mut problem, u, &settings.newton);
+            if retry.converged() {
+                report = retry;
+                break;
+            }
+        }
+    }
     if !report.converged() {
         return Err(Error::NoConvergence(Box::new(NotConverged {
             mass_msun: settings.mass_msun,

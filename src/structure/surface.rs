@@ -1,15 +1,21 @@
 //! The outer boundary: photospheric pressure and temperature for a trial radius and luminosity.
 //!
-//! T_eff follows from L = 4 pi R^2 sigma T_eff^4. Two closures:
-//! - [`Atmosphere::Photosphere`]: T = T_eff and P = (2/3) G M / (R^2 kappa) at the photosphere,
-//!   with rho from the equation of state (the one-point Eddington closure, e.g. Kippenhahn &
-//!   Weigert 1990, §11.2; literally as written, without a radiation-pressure term).
-//! - [`Atmosphere::Grey`]: the grey Eddington atmosphere T^4 = (3/4) T_eff^4 (tau + 2/3), with
-//!   hydrostatic equilibrium dP/dtau = g / kappa integrated from tau0 = 1e-6 to tau = 2/3. At
-//!   tau0 the total pressure is P_rad(tau0) + tau0 (g / kappa - F / c), since in this atmosphere
-//!   dP_rad/dtau = F/c with F = sigma T_eff^4, and P_gas vanishes at tau = 0.
+//! T_eff follows from L = 4 pi R^2 sigma T_eff^4. Two kinds of closure:
+//! - [`crate::physics::AtmosphereSpec::Photosphere`]: T = T_eff and P = (2/3) G M / (R^2 kappa) at the
+//!   photosphere, with rho from the equation of state (the one-point Eddington closure, e.g.
+//!   Kippenhahn & Weigert 1990, §11.2; literally as written, without a radiation-pressure term).
+//! - A T(tau) relation T^4 = (3/4) T_eff^4 (tau + q(tau)) ([`crate::physics::atmosphere`]:
+//!   Eddington, Hopf, Krishna Swamy), with hydrostatic equilibrium dP/dtau = g / kappa integrated
+//!   (plane parallel, constant g) from tau0 = 1e-6 down to the fitting optical depth tau_ph where
+//!   T = T_eff (tau_ph + q(tau_ph) = 4/3). The interior begins there: the photosphere, where the
+//!   radius R is defined. The gas pressure is integrated with the radiative force of the grey
+//!   flux, dP_gas/dtau = g/kappa - F/c (F = sigma T_eff^4), from P_gas(tau0) = tau0 (g/kappa -
+//!   F/c) (P_gas vanishes at tau = 0), and the equation of state is taken at
+//!   P = P_gas + a T(tau)^4 / 3; for the Eddington relation this is the same as integrating the
+//!   total pressure, since there d(a T^4/3)/dtau = F/c. (Integrating the total pressure with
+//!   q' > 0 would push the gas with a force (1 + q') F/c and fail near the Eddington limit.)
 //!
-//! The mass above the photosphere, (P - P_rad(0)) 4 pi R^2 / g, starts the inward leg at
+//! The mass above the photosphere, (P_gas + tau_ph F/c) 4 pi R^2 / g, starts the inward leg at
 //! D0 = 1 - m/M; it is about 1e-11 of M for the Sun.
 
 use super::equations::{State, LN_P, LN_R, LN_T, LUM};
@@ -17,17 +23,17 @@ use super::error::{LegCause, LegError, LegName};
 use super::legs::{LegContext, LegResult};
 use crate::constants::{A_RAD_CGS, C_CM_S, G_CGS, SIGMA_SB_CGS};
 use crate::error::PhysicsError;
+use crate::numerics::ode::{Dop853, Dop853Settings, NoObserver, OdeError, OdeSystem, RhsFailure};
 use crate::numerics::scalar::newton_1d;
-use crate::physics::{AtmosphereSpec, EosState};
-use ode_solvers::dop853::Dop853;
-use ode_solvers::dop_shared::OutputType;
-use ode_solvers::{System, Vector2};
-use std::cell::{Cell, RefCell};
+use crate::physics::atmosphere::TauRelation;
+use crate::physics::EosState;
+use nalgebra::SVector;
+use std::cell::Cell;
 use std::f64::consts::PI;
 
-/// Optical depth of the photosphere.
+/// Optical depth of the photosphere of the one-point closure.
 pub const PHOTOSPHERE_TAU: f64 = 2.0 / 3.0;
-/// Optical depth where the grey atmosphere integration starts.
+/// Optical depth where the T(tau) integration starts.
 pub const ATMOSPHERE_TOP_TAU: f64 = 1e-6;
 
 /// The start of the inward leg.
@@ -108,46 +114,48 @@ fn column_pressure(
         })
 }
 
-struct GreyAtmosphere<'a> {
+/// The atmosphere's equation: x = ln tau, y = ln P_gas,
+/// dln P_gas / dln tau = tau (g / kappa - F/c) / P_gas, the equation of state taken at
+/// P = P_gas + a T(tau)^4 / 3.
+struct TauAtmosphere<'a> {
     ctx: LegContext<'a>,
+    relation: &'a dyn TauRelation,
     teff_k: f64,
     gravity: f64,
-    error: &'a RefCell<Option<PhysicsError>>,
+    /// The radiative force per unit optical depth, F/c = sigma T_eff^4 / c.
+    flux_over_c: f64,
     /// The previous equation-of-state result, to warm-start the next inversion.
-    last_eos: Cell<Option<EosState>>,
+    last_eos: Option<EosState>,
 }
 
-impl GreyAtmosphere<'_> {
+impl TauAtmosphere<'_> {
     fn temperature(&self, tau: f64) -> f64 {
-        (0.75 * self.teff_k.powi(4) * (tau + 2.0 / 3.0)).powf(0.25)
+        self.relation.temperature_k(self.teff_k, tau)
     }
 }
 
-impl System<f64, Vector2<f64>> for GreyAtmosphere<'_> {
-    /// x = ln tau, y = (ln P, ln tau): dln P / dln tau = tau g / (kappa P). ln tau is carried as
-    /// a state component because `Dop853` of ode_solvers 0.6.2 hands its twelfth stage the wrong
-    /// abscissa (see [`super::equations::X_COPY`]).
-    fn system(&self, _x: f64, y: &Vector2<f64>, dy: &mut Vector2<f64>) {
-        dy[1] = 1.0;
-        let tau = y[1].exp();
-        let p = y[0].exp();
+impl OdeSystem<1> for TauAtmosphere<'_> {
+    type Error = PhysicsError;
+
+    fn rhs(
+        &mut self,
+        x: f64,
+        y: &SVector<f64, 1>,
+        dy: &mut SVector<f64, 1>,
+    ) -> Result<(), PhysicsError> {
+        let tau = x.exp();
+        let p_gas = y[0].exp();
         let t = self.temperature(tau);
+        let p = p_gas + A_RAD_CGS * t.powi(4) / 3.0;
         let (physics, comp) = (self.ctx.physics, self.ctx.composition);
-        let eos = match self.last_eos.get() {
-            Some(near) => physics.eos().state_at_pressure_near(p, t, comp, &near),
-            None => physics.eos().state_at_pressure(p, t, comp),
+        let eos = match &self.last_eos {
+            Some(near) => physics.eos().state_at_pressure_near(p, t, comp, near)?,
+            None => physics.eos().state_at_pressure(p, t, comp)?,
         };
-        let kappa = eos.and_then(|s| {
-            self.last_eos.set(Some(s));
-            physics.opacity().kappa(s.density_g_cm3, t, comp)
-        });
-        match kappa {
-            Ok(k) => dy[0] = tau * self.gravity / (k * p),
-            Err(e) => {
-                *self.error.borrow_mut() = Some(e);
-                dy[0] = 1e30;
-            }
-        }
+        self.last_eos = Some(eos);
+        let kappa = physics.opacity().kappa(eos.density_g_cm3, t, comp)?;
+        dy[0] = tau * (self.gravity / kappa - self.flux_over_c) / p_gas;
+        Ok(())
     }
 }
 
@@ -157,23 +165,24 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
     let l = ln_l.exp();
     let teff = effective_temperature_k(r, l);
     let gravity = G_CGS * ctx.total_mass_g / (r * r);
-    let (pressure, column_g_cm2) = match ctx.physics.atmosphere() {
-        AtmosphereSpec::Photosphere => {
+    let atmosphere = ctx.physics.atmosphere();
+    let (pressure, column_g_cm2) = match atmosphere.relation() {
+        None => {
             let p = column_pressure(ctx, PHOTOSPHERE_TAU, teff, gravity, 0.0, 0.0)?;
             (p, p / gravity)
         }
-        AtmosphereSpec::Grey => {
+        Some(relation) => {
             let flux_over_c = SIGMA_SB_CGS * teff.powi(4) / C_CM_S;
-            let physics_error = RefCell::new(None);
-            let atmosphere = GreyAtmosphere {
+            let mut system = TauAtmosphere {
                 ctx: *ctx,
+                relation,
                 teff_k: teff,
                 gravity,
-                error: &physics_error,
-                last_eos: Cell::new(None),
+                flux_over_c,
+                last_eos: None,
             };
-            let p_rad = |tau: f64| A_RAD_CGS * atmosphere.temperature(tau).powi(4) / 3.0;
-            let t_top = atmosphere.temperature(ATMOSPHERE_TOP_TAU);
+            let p_rad = |tau: f64| A_RAD_CGS * system.temperature(tau).powi(4) / 3.0;
+            let t_top = system.temperature(ATMOSPHERE_TOP_TAU);
             let p_top = column_pressure(
                 ctx,
                 ATMOSPHERE_TOP_TAU,
@@ -182,39 +191,40 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
                 p_rad(ATMOSPHERE_TOP_TAU),
                 flux_over_c,
             )?;
-            let p_rad_zero = p_rad(0.0);
-            let x0 = ATMOSPHERE_TOP_TAU.ln();
-            let x1 = PHOTOSPHERE_TAU.ln();
-            let mut stepper = Dop853::new(
-                atmosphere,
-                x0,
-                x1,
-                x1 - x0,
-                Vector2::new(p_top.ln(), x0),
-                ctx.tolerance,
-                ctx.tolerance,
-            );
-            stepper.set_output(OutputType::Sparse);
-            let result = stepper.integrate();
-            let end = stepper.y_out().last().map(|v| v[0]);
-            let reached = stepper.y_out().last().map_or(x0, |v| v[1]);
-            match (result, end) {
-                (Ok(_), Some(ln_p)) if ln_p.is_finite() => {
-                    let p = ln_p.exp();
-                    (p, (p - p_rad_zero).max(0.0) / gravity)
-                }
-                (r, _) => {
-                    let physics = physics_error.borrow_mut().take();
-                    let cause = match (physics, r) {
-                        (Some(e), _) => LegCause::Physics(e),
-                        (None, Err(e)) => LegCause::Integrator(format!(
-                            "grey atmosphere at T_eff = {teff:.1} K: {e}"
+            let p_gas_top = p_top - p_rad(ATMOSPHERE_TOP_TAU);
+            let tau_ph = relation.photosphere_tau();
+            let p_rad_ph = p_rad(tau_ph);
+            let settings = Dop853Settings {
+                rtol: ctx.tolerance,
+                atol: ctx.tolerance,
+                on_rhs_failure: RhsFailure::RejectStep { shrink: 1.0 / 3.0 },
+                ..Dop853Settings::default()
+            };
+            let failed = |cause: LegCause, tau: f64| atmosphere_error(ctx, tau, cause);
+            let mut solver = Dop853::<1>::new(settings)
+                .map_err(|e| failed(LegCause::Integrator(e.to_string()), ATMOSPHERE_TOP_TAU))?;
+            let outcome = solver
+                .integrate(
+                    &mut system,
+                    ATMOSPHERE_TOP_TAU.ln(),
+                    &SVector::<f64, 1>::new(p_gas_top.ln()),
+                    tau_ph.ln(),
+                    &mut NoObserver,
+                )
+                .map_err(|e| {
+                    let tau = e.x().unwrap_or(ATMOSPHERE_TOP_TAU.ln()).exp();
+                    let cause = match e {
+                        OdeError::Rhs { source, .. } => LegCause::Physics(source),
+                        other => LegCause::Integrator(format!(
+                            "{} atmosphere at T_eff = {teff:.1} K: {other}",
+                            relation.name()
                         )),
-                        (None, Ok(_)) => LegCause::NonFinite,
                     };
-                    return Err(atmosphere_error(ctx, reached.exp(), cause));
-                }
-            }
+                    failed(cause, tau)
+                })?;
+            // Column mass: d P_gas = (g - kappa F/c) dm, so m g = P_gas + tau F/c.
+            let p_gas = outcome.y[0].exp();
+            (p_gas + p_rad_ph, (p_gas + tau_ph * flux_over_c) / gravity)
         }
     };
     let d0 = 4.0 * PI * r * r * column_g_cm2 / ctx.total_mass_g;

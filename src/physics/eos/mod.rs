@@ -8,15 +8,19 @@ use super::composition::Composition;
 use crate::constants::{A_RAD_CGS, K_B_ERG_K, M_U_G};
 use crate::error::PhysicsError;
 
+pub mod coulomb;
 pub mod degenerate;
 pub mod fermi_dirac;
+pub mod h2;
 pub mod ideal;
+pub mod molecular;
 pub mod plasma;
 pub mod refined;
 pub mod saha;
 
 pub use degenerate::DegenerateGas;
 pub use ideal::IdealGas;
+pub use molecular::MolecularEos;
 pub use refined::RefinedEos;
 pub use saha::SahaGas;
 

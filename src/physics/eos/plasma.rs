@@ -1,4 +1,5 @@
-//! The shared engine of the `saha`, `degenerate` and `refined` equations of state: a mixture of
+//! The shared engine of the `saha`, `degenerate`, `refined` and `molecular` equations of state
+//! (the last adds molecules, metals and a Coulomb term, see [`super::molecular`]): a mixture of
 //! hydrogen, helium and metals with (optionally) Saha ionisation of H and He and electrons of
 //! (optionally) arbitrary degeneracy, plus radiation. Each law is one switch setting of this
 //! engine; see [`super::SahaGas`], [`super::DegenerateGas`] and [`super::RefinedEos`].
@@ -45,7 +46,9 @@
 //! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho c_P / c_V
 //! (Kippenhahn & Weigert 1990, §13–14), evaluated in forms free of cancellation.
 
+use super::coulomb::{CoulombAtTemperature, CoulombTerm, Z53_HELIUM, Z53_METALS};
 use super::fermi_dirac::{inverse_guess, inverse_upper_bound, ln_fermi_dirac};
+use super::molecular::{MolecularAtTemperature, MolecularInputs};
 use super::EosState;
 use crate::constants::{A_RAD_CGS, EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
 use crate::error::PhysicsError;
@@ -71,6 +74,9 @@ pub enum Ionisation {
     Saha,
     /// Everything fully ionised.
     Full,
+    /// Saha equilibrium as [`Ionisation::Saha`], plus H2 molecules and partly ionised metals
+    /// (see [`super::molecular`]).
+    Molecular,
 }
 
 /// How the free electrons are described.
@@ -91,6 +97,8 @@ pub struct Plasma {
     pub ionisation: Ionisation,
     /// Electron treatment.
     pub electrons: Electrons,
+    /// Whether the ions carry the Coulomb correction of [`super::coulomb`].
+    pub coulomb: bool,
     /// Smallest and largest density accepted, g cm^-3.
     pub rho_range_g_cm3: (f64, f64),
     /// Smallest and largest temperature accepted, K.
@@ -112,36 +120,51 @@ struct Setup {
     rho: f64,
     t: f64,
     kt: f64,
-    /// Nuclei per m_u.
-    n_ion: f64,
-    /// Nuclei per cm^3.
-    n_nuc: f64,
     /// n_e = q F_1/2(psi).
     q: f64,
     ln_q_over_n: f64,
     psi_full: f64,
     psi_max: f64,
     inputs: StageInputs,
+    /// The Coulomb term (zero unless the law has it; pressure terms only).
+    coulomb: CoulombTerm,
+    /// The parts that depend on T alone.
+    per_t: PerTemperature,
+}
+
+/// The parts of a [`Setup`] that depend on T alone.
+#[derive(Debug, Clone, Copy)]
+struct PerTemperature {
+    molecular: Option<MolecularAtTemperature>,
+    coulomb: Option<CoulombAtTemperature>,
+    /// ln q, n_e = q F_1/2(psi).
+    ln_q: f64,
 }
 
 /// Derivatives of one quantity with respect to (psi, ln T, ln rho).
 #[derive(Debug, Clone, Copy, Default)]
-struct Grad {
-    psi: f64,
-    ln_t: f64,
-    ln_rho: f64,
+pub(super) struct Grad {
+    pub(super) psi: f64,
+    pub(super) ln_t: f64,
+    pub(super) ln_rho: f64,
 }
 
-/// Ionisation stages at one (psi, T, rho) with the derivatives of N_e and E_ion.
+/// Ionisation stages at one (psi, T, rho) with the derivatives of N_e, N_p and E_ion.
 #[derive(Debug, Clone, Copy)]
-struct Stages {
-    x_h: f64,
-    he1: f64,
-    he2: f64,
+pub(super) struct Stages {
+    pub(super) x_h: f64,
+    pub(super) he1: f64,
+    pub(super) he2: f64,
     /// Free electrons per m_u.
-    n_e: f64,
-    d_n_e: Grad,
-    d_e_ion: Grad,
+    pub(super) n_e: f64,
+    pub(super) d_n_e: Grad,
+    /// Heavy particles (atoms, ions, molecules) per m_u.
+    pub(super) n_p: f64,
+    pub(super) d_n_p: Grad,
+    /// Ionisation and dissociation energy (plus molecular internal energy) per m_u, erg,
+    /// counted from neutral atoms at rest.
+    pub(super) e_ion: f64,
+    pub(super) d_e_ion: Grad,
 }
 
 /// Electron quantities at one psi: ln F_1/2, its psi-slope, F_3/2 and its psi-slope.
@@ -228,6 +251,58 @@ impl Plasma {
 
     /// Everything at (rho, T) that does not depend on psi.
     fn setup(&self, rho: f64, t: f64, comp: &Composition) -> Result<Setup, PhysicsError> {
+        self.setup_with(rho, t, comp, &self.per_temperature(t, comp))
+    }
+
+    /// What this law computes from T alone (an inversion at fixed T does it once).
+    fn per_temperature(&self, t: f64, comp: &Composition) -> PerTemperature {
+        PerTemperature {
+            molecular: (self.ionisation == Ionisation::Molecular)
+                .then(|| MolecularAtTemperature::new(t)),
+            ln_q: (Self::electron_density_coefficient() * t * t.sqrt()).ln(),
+            coulomb: if self.coulomb {
+                CoulombAtTemperature::new(t, Self::electrons_fully_ionised(comp))
+            } else {
+                None
+            },
+        }
+    }
+
+    /// c_n in n_e = c_n T^(3/2) F_1/2(psi): (4 / sqrt(pi)) (2 pi m_e k / h^2)^(3/2), cgs.
+    fn electron_density_coefficient() -> f64 {
+        let thermal = 2.0 * std::f64::consts::PI * M_E_G * K_B_ERG_K / (H_ERG_S * H_ERG_S);
+        4.0 / SQRT_PI * thermal * thermal.sqrt()
+    }
+
+    /// Electrons per m_u of the fully ionised mixture, X + Y/2 + Z (1/2 - 1/16).
+    fn electrons_fully_ionised(comp: &Composition) -> f64 {
+        comp.x() + 0.5 * comp.y() + comp.z() * (0.5 - 1.0 / METAL_MEAN_MASS_NUMBER)
+    }
+
+    /// The Coulomb term at `rho` from its temperature parts `at_t` (zero if the law has none or
+    /// the switch is off); `energy` as in [`CoulombAtTemperature::term`].
+    fn coulomb_at(
+        rho: f64,
+        comp: &Composition,
+        at_t: Option<&CoulombAtTemperature>,
+        energy: bool,
+    ) -> CoulombTerm {
+        let ions = [
+            (comp.x(), 1.0),
+            (0.25 * comp.y(), Z53_HELIUM),
+            (comp.z() / METAL_MEAN_MASS_NUMBER, Z53_METALS),
+        ];
+        at_t.map_or_else(CoulombTerm::default, |c| c.term(rho, &ions, energy))
+    }
+
+    /// As [`Plasma::setup`], with the parts that depend on T alone given.
+    fn setup_with(
+        &self,
+        rho: f64,
+        t: f64,
+        comp: &Composition,
+        per_t: &PerTemperature,
+    ) -> Result<Setup, PhysicsError> {
         let kt = K_B_ERG_K * t;
         let x = comp.x();
         let y4 = 0.25 * comp.y();
@@ -236,38 +311,45 @@ impl Plasma {
         let n_ion = x + y4 + z_ion;
         let n_e_max = x + 2.0 * y4 + z_e;
         let n_nuc = rho / M_U_G * n_ion;
-        // n_e = c_n T^(3/2) F_1/2(psi), c_n = (4 / sqrt(pi)) (2 pi m_e k / h^2)^(3/2).
-        let thermal = 2.0 * std::f64::consts::PI * M_E_G * K_B_ERG_K / (H_ERG_S * H_ERG_S);
-        let c_n = 4.0 / SQRT_PI * thermal * thermal.sqrt();
-        let q = c_n * t * t.sqrt();
-        // ln q - ln(rho / m_u), one logarithm.
-        let ln_q_over_n = (q * M_U_G / rho).ln();
+        let q = Self::electron_density_coefficient() * t * t.sqrt();
+        let ln_n = (rho / M_U_G).ln();
+        let ln_q_over_n = per_t.ln_q - ln_n;
         // Fully ionised electron density: bounds the psi bracket from above.
         let (psi_full, psi_max) = self
             .psi_start((rho / M_U_G * n_e_max / q).max(f64::MIN_POSITIVE))
             .ok_or_else(|| self.error("electron density not representable", rho, t))?;
+        let s_h = pressure_volume(1.0) * n_nuc;
+        let w_h = occupation(s_h);
         let inputs = StageInputs {
             x,
             y4,
             z_e,
+            n_ion,
             a_h: CHI_H_EV * EV_ERG / kt,
             a_1: CHI_HE1_EV * EV_ERG / kt,
             a_2: CHI_HE2_EV * EV_ERG / kt,
-            w_h: occupation(pressure_volume(1.0) * n_nuc),
+            w_h,
             w_he1: occupation(pressure_volume(27.0 / 16.0) * n_nuc),
             w_he2: occupation(pressure_volume(2.0) * n_nuc),
+            mol: match &per_t.molecular {
+                Some(at_t) => {
+                    MolecularInputs::new(at_t, (z_ion, z_e), ln_n, w_h, occupation(2.0 * s_h))
+                }
+                None => MolecularInputs::default(),
+            },
         };
+        let coulomb = Self::coulomb_at(rho, comp, per_t.coulomb.as_ref(), false);
         Ok(Setup {
             rho,
             t,
             kt,
-            n_ion,
-            n_nuc,
             q,
             ln_q_over_n,
             psi_full,
             psi_max,
             inputs,
+            coulomb,
+            per_t: *per_t,
         })
     }
 
@@ -275,6 +357,7 @@ impl Plasma {
         match self.ionisation {
             Ionisation::Saha => inputs.saha(psi),
             Ionisation::Full => inputs.full(),
+            Ionisation::Molecular => inputs.molecular(psi),
         }
     }
 
@@ -292,26 +375,40 @@ impl Plasma {
             .filter(|g| g.is_finite())
             .unwrap_or(setup.psi_full);
         let (psi, stages, el) = self.solve_neutrality(&setup, guess)?;
-        self.finish(&setup, psi, &stages, &el)
+        self.finish(&setup, comp, psi, &stages, &el)
+    }
+
+    /// Specific internal energy at (rho, T), erg g^-1, counted from neutral atoms at rest:
+    /// u = (3/2)(P_ion + P_e)/rho + a T^4/rho + E_ion/m_u + U_C.
+    pub fn specific_energy(
+        &self,
+        rho: f64,
+        t: f64,
+        comp: &Composition,
+    ) -> Result<f64, PhysicsError> {
+        self.check(rho, t)?;
+        let setup = self.setup(rho, t, comp)?;
+        let (_, stages, el) = self.solve_neutrality(&setup, setup.psi_full)?;
+        let p_e = setup.q * setup.kt * (2.0 / 3.0) * el.f_three_halves;
+        let p_ion = rho / M_U_G * stages.n_p * setup.kt;
+        Ok(1.5 * (p_ion + p_e) / rho
+            + A_RAD_CGS * t.powi(4) / rho
+            + stages.e_ion / M_U_G
+            + Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true).energy)
     }
 
     /// The full state at a solved psi, with the analytic derivatives.
     fn finish(
         &self,
         setup: &Setup,
+        comp: &Composition,
         psi: f64,
         stages: &Stages,
         el: &ElectronIntegrals,
     ) -> Result<Solved, PhysicsError> {
-        let Setup {
-            rho,
-            t,
-            kt,
-            n_ion,
-            n_nuc,
-            q,
-            ..
-        } = *setup;
+        let Setup { rho, t, kt, q, .. } = *setup;
+        // The inversion carried the Coulomb pressure only; the energy terms are added here.
+        let coul = &Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true);
         // Implicit derivatives of psi from G = ln F_1/2 + ln q(T) - ln(rho/m_u) - ln N_e = 0.
         let dln_ne = Grad {
             psi: stages.d_n_e.psi / stages.n_e,
@@ -323,17 +420,22 @@ impl Plasma {
         let psi_rho = -(-1.0 - dln_ne.ln_rho) / g_psi;
 
         let p_e = q * kt * (2.0 / 3.0) * el.f_three_halves;
-        let p_ion = n_nuc * kt;
+        let p_ion = rho / M_U_G * stages.n_p * kt;
         let p_rad = A_RAD_CGS * t.powi(4) / 3.0;
-        let p = p_e + p_ion + p_rad;
+        let p_gas = p_e + p_ion + coul.pressure;
+        let p = p_e + p_ion + p_rad + coul.pressure;
         let dpe_t = 2.5 + el.slope_three_halves * psi_t;
         let dpe_rho = el.slope_three_halves * psi_rho;
-        let chi_rho = (p_ion + p_e * dpe_rho) / p;
-        let chi_t = (p_ion + p_e * dpe_t + 4.0 * p_rad) / p;
+        // d ln N_p along (ln T, ln rho) with psi following: 0 unless molecules form.
+        let dpi_t = 1.0 + (stages.d_n_p.ln_t + psi_t * stages.d_n_p.psi) / stages.n_p;
+        let dpi_rho = 1.0 + (stages.d_n_p.ln_rho + psi_rho * stages.d_n_p.psi) / stages.n_p;
+        let chi_rho = (p_ion * dpi_rho + p_e * dpe_rho + coul.dp_dln_rho) / p;
+        let chi_t = (p_ion * dpi_t + p_e * dpe_t + 4.0 * p_rad + coul.dp_dln_t) / p;
         let de_ion_t = stages.d_e_ion.ln_t + psi_t * stages.d_e_ion.psi;
-        let cv = (1.5 * (p_ion + p_e * dpe_t) / rho
+        let cv = (1.5 * (p_ion * dpi_t + p_e * dpe_t) / rho
             + 4.0 * A_RAD_CGS * t.powi(4) / rho
-            + de_ion_t / M_U_G)
+            + de_ion_t / M_U_G
+            + coul.de_dln_t)
             / t;
         // Forms without cancellation when chi_rho -> 0 (radiation-dominated gas):
         // c_P - c_V = P chi_T^2 / (rho T chi_rho), Gamma_1 = chi_rho + P chi_T^2 / (rho T c_V),
@@ -346,15 +448,15 @@ impl Plasma {
             density_g_cm3: rho,
             temperature_k: t,
             pressure_dyn_cm2: p,
-            gas_pressure_dyn_cm2: p_e + p_ion,
-            beta: (p_e + p_ion) / p,
+            gas_pressure_dyn_cm2: p_gas,
+            beta: p_gas / p,
             chi_rho,
             chi_t,
             nabla_ad,
             gamma1,
             cp_erg_g_k: cp,
             delta: chi_t / chi_rho,
-            mu: 1.0 / (n_ion + stages.n_e),
+            mu: 1.0 / (stages.n_p + stages.n_e),
             degeneracy_psi: psi,
             hydrogen_ionised: stages.x_h,
             helium_single: stages.he1,
@@ -364,7 +466,11 @@ impl Plasma {
             .iter()
             .all(|v| v.is_finite() && *v > 0.0);
         if !finite {
-            return Err(self.error("thermodynamic derivatives not finite", rho, t));
+            return Err(self.error(
+                "thermodynamic derivatives not finite and positive (unstable state)",
+                rho,
+                t,
+            ));
         }
         Ok(Solved {
             state,
@@ -561,21 +667,28 @@ impl Plasma {
         let mut ln_rho = ln_rho_start;
         let mut psi: Option<f64> = psi_start;
         let mut at_edge = 0;
+        let per_t = self.per_temperature(t, comp);
         for _ in 0..40 {
-            let setup = self.setup(ln_rho.exp().clamp(rlo, rhi), t, comp).ok()?;
+            let setup = self
+                .setup_with(ln_rho.exp().clamp(rlo, rhi), t, comp, &per_t)
+                .ok()?;
             let ps = psi.unwrap_or(setup.psi_full).min(setup.psi_max);
             let stages = self.stages(&setup.inputs, ps);
             let el = self.integrals(ps);
             let r2 = el.ln_f_half + setup.ln_q_over_n - stages.n_e.ln();
             let p_e = setup.q * setup.kt * (2.0 / 3.0) * el.f_three_halves;
-            let p_ion = setup.n_nuc * setup.kt;
-            let p_tot = p_e + p_ion + p_rad;
+            let p_ion = setup.rho / M_U_G * stages.n_p * setup.kt;
+            let p_tot = p_e + p_ion + p_rad + setup.coulomb.pressure;
             let r1 = p_tot.ln() - ln_p;
             if r1.abs() < 1e-12 && r2.abs() < 1e-12 {
-                return self.finish(&setup, ps, &stages, &el).ok().map(|s| s.state);
+                return self
+                    .finish(&setup, comp, ps, &stages, &el)
+                    .ok()
+                    .map(|s| s.state);
             }
-            let a11 = p_ion / p_tot;
-            let a12 = p_e * el.slope_three_halves / p_tot;
+            let a11 = (p_ion * (1.0 + stages.d_n_p.ln_rho / stages.n_p) + setup.coulomb.dp_dln_rho)
+                / p_tot;
+            let a12 = (p_e * el.slope_three_halves + p_ion * stages.d_n_p.psi / stages.n_p) / p_tot;
             let a21 = -1.0 - stages.d_n_e.ln_rho / stages.n_e;
             let a22 = el.slope_half - stages.d_n_e.psi / stages.n_e;
             let det = a11 * a22 - a12 * a21;
@@ -625,17 +738,32 @@ fn occupation(s: f64) -> (f64, f64) {
 
 /// Everything the ionisation balance needs apart from psi.
 #[derive(Debug, Clone, Copy)]
-struct StageInputs {
-    x: f64,
-    y4: f64,
-    z_e: f64,
-    a_h: f64,
-    a_1: f64,
-    a_2: f64,
+pub(super) struct StageInputs {
+    pub(super) x: f64,
+    pub(super) y4: f64,
+    pub(super) z_e: f64,
+    /// Nuclei per m_u.
+    pub(super) n_ion: f64,
+    pub(super) a_h: f64,
+    pub(super) a_1: f64,
+    pub(super) a_2: f64,
     /// (ln w, d ln w / d ln rho) of H I, He I, He II.
-    w_h: (f64, f64),
-    w_he1: (f64, f64),
-    w_he2: (f64, f64),
+    pub(super) w_h: (f64, f64),
+    pub(super) w_he1: (f64, f64),
+    pub(super) w_he2: (f64, f64),
+    /// Molecules and metals ([`Ionisation::Molecular`] only).
+    pub(super) mol: MolecularInputs,
+}
+
+/// Helium stages at one psi: fractions He II and He III, electrons per m_u and ionisation
+/// energy per m_u (erg) with their derivatives.
+pub(super) struct HeliumStages {
+    pub(super) he1: f64,
+    pub(super) he2: f64,
+    pub(super) n_e: f64,
+    pub(super) d_n_e: Grad,
+    pub(super) e_ion: f64,
+    pub(super) d_e_ion: Grad,
 }
 
 impl StageInputs {
@@ -646,23 +774,32 @@ impl StageInputs {
             he2: 1.0,
             n_e: self.x + 2.0 * self.y4 + self.z_e,
             d_n_e: Grad::default(),
+            n_p: self.n_ion,
+            d_n_p: Grad::default(),
+            e_ion: (self.x * CHI_H_EV + self.y4 * (CHI_HE1_EV + CHI_HE2_EV)) * EV_ERG,
             d_e_ion: Grad::default(),
         }
     }
 
-    /// Saha stages at `psi` with derivatives; stable for any size of the ln ratios.
-    fn saha(&self, psi: f64) -> Stages {
-        // ln(n_upper / n_lower) for H I -> II, He I -> II, He II -> III.
+    /// ln(n_(H II) / n_(H I)) at `psi` and its gradient.
+    pub(super) fn hydrogen_ratio(&self, psi: f64) -> (f64, Grad) {
+        (
+            -std::f64::consts::LN_2 - psi - self.a_h - self.w_h.0,
+            Grad {
+                psi: -1.0,
+                ln_t: self.a_h,
+                ln_rho: -self.w_h.1,
+            },
+        )
+    }
+
+    /// Helium stages at `psi` with derivatives; stable for any size of the ln ratios.
+    pub(super) fn helium(&self, psi: f64) -> HeliumStages {
         use std::f64::consts::LN_2;
-        let l_h = -LN_2 - psi - self.a_h - self.w_h.0;
+        // ln(n_upper / n_lower) for He I -> II, He II -> III.
         let l_1 = LN_2 - psi - self.a_1 - self.w_he1.0 + self.w_he2.0;
         let l_2 = -LN_2 - psi - self.a_2 - self.w_he2.0;
         // Derivatives of the ln ratios: d/dpsi = -1; d/dlnT = chi/kT; d/dln rho from the w terms.
-        let dl_h = Grad {
-            psi: -1.0,
-            ln_t: self.a_h,
-            ln_rho: -self.w_h.1,
-        };
         let dl_1 = Grad {
             psi: -1.0,
             ln_t: self.a_1,
@@ -673,8 +810,7 @@ impl StageInputs {
             ln_t: self.a_2,
             ln_rho: -self.w_he2.1,
         };
-        let x_h = 1.0 / (1.0 + (-l_h).exp());
-        // Helium: weights exp(L_k) with L_0 = 0, L_1 = l_1, L_2 = l_1 + l_2.
+        // Weights exp(L_k) with L_0 = 0, L_1 = l_1, L_2 = l_1 + l_2.
         let big_l2 = l_1 + l_2;
         let m = 0.0f64.max(l_1).max(big_l2);
         let w0 = (-m).exp();
@@ -682,40 +818,61 @@ impl StageInputs {
         let w2 = (big_l2 - m).exp();
         let sum = w0 + w1 + w2;
         let (f1, f2) = (w1 / sum, w2 / sum);
-        let chi_h = CHI_H_EV * EV_ERG;
         let chi_1 = CHI_HE1_EV * EV_ERG;
         let chi_12 = (CHI_HE1_EV + CHI_HE2_EV) * EV_ERG;
-        let n_he = f1 + 2.0 * f2;
         let grad = |sel: fn(&Grad) -> f64| {
-            let dh = sel(&dl_h);
             let d_l1 = sel(&dl_1);
             let d_l2 = d_l1 + sel(&dl_2);
             let mean = f1 * d_l1 + f2 * d_l2;
-            let dxh = x_h * (1.0 - x_h) * dh;
             let dn_he = f1 * (d_l1 - mean) + 2.0 * f2 * (d_l2 - mean);
             let de_he = f1 * chi_1 * (d_l1 - mean) + f2 * chi_12 * (d_l2 - mean);
-            (
-                self.x * dxh + self.y4 * dn_he,
-                self.x * chi_h * dxh + self.y4 * de_he,
-            )
+            (self.y4 * dn_he, self.y4 * de_he)
         };
         let (n_psi, e_psi) = grad(|g| g.psi);
         let (n_t, e_t) = grad(|g| g.ln_t);
         let (n_rho, e_rho) = grad(|g| g.ln_rho);
-        Stages {
-            x_h,
+        HeliumStages {
             he1: f1,
             he2: f2,
-            n_e: self.x * x_h + self.y4 * n_he + self.z_e,
+            n_e: self.y4 * (f1 + 2.0 * f2),
             d_n_e: Grad {
                 psi: n_psi,
                 ln_t: n_t,
                 ln_rho: n_rho,
             },
+            e_ion: self.y4 * (f1 * chi_1 + f2 * chi_12),
             d_e_ion: Grad {
                 psi: e_psi,
                 ln_t: e_t,
                 ln_rho: e_rho,
+            },
+        }
+    }
+
+    /// Saha stages at `psi` with derivatives; stable for any size of the ln ratios.
+    fn saha(&self, psi: f64) -> Stages {
+        let (l_h, dl_h) = self.hydrogen_ratio(psi);
+        let x_h = 1.0 / (1.0 + (-l_h).exp());
+        let he = self.helium(psi);
+        let chi_h = CHI_H_EV * EV_ERG;
+        let dxh = |d: f64| x_h * (1.0 - x_h) * d;
+        Stages {
+            x_h,
+            he1: he.he1,
+            he2: he.he2,
+            n_e: self.x * x_h + he.n_e + self.z_e,
+            d_n_e: Grad {
+                psi: self.x * dxh(dl_h.psi) + he.d_n_e.psi,
+                ln_t: self.x * dxh(dl_h.ln_t) + he.d_n_e.ln_t,
+                ln_rho: self.x * dxh(dl_h.ln_rho) + he.d_n_e.ln_rho,
+            },
+            n_p: self.n_ion,
+            d_n_p: Grad::default(),
+            e_ion: self.x * chi_h * x_h + he.e_ion,
+            d_e_ion: Grad {
+                psi: self.x * chi_h * dxh(dl_h.psi) + he.d_e_ion.psi,
+                ln_t: self.x * chi_h * dxh(dl_h.ln_t) + he.d_e_ion.ln_t,
+                ln_rho: self.x * chi_h * dxh(dl_h.ln_rho) + he.d_e_ion.ln_rho,
             },
         }
     }

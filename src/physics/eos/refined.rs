@@ -21,6 +21,7 @@ const ENGINE: Plasma = Plasma {
     law: "refined",
     ionisation: Ionisation::Saha,
     electrons: Electrons::FermiDirac,
+    coulomb: false,
     rho_range_g_cm3: (1e-15, 1e5),
     temperature_range_k: (1e3, 1e9),
 };

@@ -20,6 +20,7 @@ const ENGINE: Plasma = Plasma {
     law: "saha",
     ionisation: Ionisation::Saha,
     electrons: Electrons::Classical,
+    coulomb: false,
     rho_range_g_cm3: (1e-15, 1e3),
     temperature_range_k: (1e3, 1e9),
 };

@@ -4,6 +4,7 @@ use super::composition::Composition;
 use crate::error::PhysicsError;
 
 pub mod analytic;
+pub mod bell_lin;
 pub mod conductive;
 pub mod electron_scattering;
 pub mod h_minus;
@@ -12,6 +13,7 @@ pub mod refined;
 pub mod table;
 
 pub use analytic::AnalyticOpacity;
+pub use bell_lin::BellLin;
 pub use conductive::Conductive;
 pub use electron_scattering::ElectronScattering;
 pub use h_minus::HMinus;

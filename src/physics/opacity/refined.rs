@@ -1,5 +1,6 @@
 //! `refined`: the default opacity, a smooth combination of the analytic laws and conduction.
 
+use super::bell_lin::{molecular_kappa, BELL_LIN_Z};
 use super::conductive::{combine, Conductive};
 use super::electron_scattering::ElectronScattering;
 use super::h_minus::HMinus;
@@ -7,6 +8,7 @@ use super::kramers::Kramers;
 use super::{check_point, Opacity};
 use crate::constants::{EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
 use crate::error::{Error, PhysicsError, Result};
+use crate::numerics::smooth::switch_weight;
 use crate::physics::composition::Composition;
 
 /// Default guillotine factor of the `refined` opacity at rho = 1 g/cm^3, t_0 in
@@ -16,9 +18,12 @@ pub const DEFAULT_GUILLOTINE: f64 = 3.0;
 /// Default density exponent q of the guillotine factor t = max(1, t_0 rho^q).
 ///
 /// A calibration: (t_0, q) = (3, 0.5) was chosen from a scan of t_0 in 2–10 and q in 0.3–0.5 so
-/// that `refined` ZAMS models at X = 0.70, Z = 0.02 (mlt, alpha = 1.8) follow the ZAMS fits of
-/// Tout, Pols, Eggleton & Han (1996, MNRAS 281, 257) over 0.5–50 M_sun: luminosity within 0.12
-/// dex and radius within 0.083 dex (`cargo run --release --example tout_comparison`). Kramers
+/// that `refined` ZAMS models at X = 0.70, Z = 0.02 (then: `refined` equation of state, grey
+/// atmosphere, mlt with alpha = 1.8) follow the ZAMS fits of Tout, Pols, Eggleton & Han (1996,
+/// MNRAS 281, 257) over 0.5–50 M_sun: luminosity within 0.12 dex and radius within 0.083 dex
+/// (`cargo run --release --example tout_comparison`). Kept with the present `refined` set
+/// (`molecular` equation of state, Krishna Swamy atmosphere, alpha = 2.4, itself calibrated on
+/// the 1 M_sun radius of the same fits): within 0.082 and 0.083 dex over 0.5–50 M_sun. Kramers
 /// bound–free absorption with a guillotine factor that grows with density mimics the lower
 /// tabulated Rosseland means of the deep interior (t = 1 below rho = 0.11 g/cm^3, t ~ 37 at the
 /// solar centre).
@@ -30,6 +35,15 @@ pub const MOLECULAR_COEFFICIENT: f64 = 0.1;
 
 /// Metallicity floor of the H- term in the refined combination (hydrogen's own electrons).
 pub const H_MINUS_Z_FLOOR: f64 = 1e-4;
+
+/// The H- term is switched off below its fitted range (3000–6000 K, Hansen & Kawaler 1994):
+/// fully on above the second temperature, off below the first, K (molecules take over there).
+pub const H_MINUS_T_OFF_K: (f64, f64) = (2500.0, 3000.0);
+
+/// The molecular term of Bell & Lin (1994) is on below the first temperature and off above
+/// the second, K: it is the molecular regime of a fit whose next regime up is H-, which this
+/// opacity takes from Hansen & Kawaler instead.
+pub const MOLECULES_T_OFF_K: (f64, f64) = (4500.0, 5500.0);
 
 /// Smallest and largest temperature accepted, K.
 pub const REFINED_T_RANGE_K: (f64, f64) = (1.0e3, 1.0e10);
@@ -112,11 +126,30 @@ impl RefinedOpacity {
         let bf = 4.34e25 * comp.z() / self.guillotine_at(rho) * common;
         let kramers = ff + bf;
         // Floor Z in the H- term: hydrogen's own electrons keep some H- in metal-free gas.
-        let h_minus = HMinus::formula_with_z(rho, t, comp.z().max(H_MINUS_Z_FLOOR));
-        let absorption = combine(h_minus, kramers);
+        let h_minus = HMinus::formula_with_z(rho, t, comp.z().max(H_MINUS_Z_FLOOR))
+            * temperature_switch(t, H_MINUS_T_OFF_K);
+        let molecular_weight = 1.0 - temperature_switch(t, MOLECULES_T_OFF_K);
+        let molecules = if molecular_weight > 0.0 {
+            molecular_kappa(rho, t) * (comp.z() / BELL_LIN_Z) * molecular_weight
+        } else {
+            0.0
+        };
+        let absorption = combine(h_minus + molecules, kramers);
         hydrogen_ionised_fraction(rho, t, comp) * ElectronScattering::kappa_cm2_g(comp)
             + absorption
             + MOLECULAR_COEFFICIENT * comp.z()
+    }
+}
+
+/// Weight rising smoothly from 0 at `range.0` to 1 at `range.1` (K), twice differentiable
+/// ([`switch_weight`]).
+fn temperature_switch(t: f64, range: (f64, f64)) -> f64 {
+    if t >= range.1 {
+        1.0
+    } else if t <= range.0 {
+        0.0
+    } else {
+        switch_weight(t, (range.0 * range.1).sqrt(), (range.0 / range.1).sqrt()).0
     }
 }
 

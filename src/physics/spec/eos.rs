@@ -2,7 +2,9 @@
 
 use super::catalogue::{LawEntry, LawKind};
 use super::grammar::{law_spec_text, Arguments, LawSpec};
-use crate::physics::eos::{DegenerateGas, EquationOfState, IdealGas, RefinedEos, SahaGas};
+use crate::physics::eos::{
+    DegenerateGas, EquationOfState, IdealGas, MolecularEos, RefinedEos, SahaGas,
+};
 use std::sync::Arc;
 
 /// An equation of state, by name.
@@ -17,12 +19,14 @@ pub enum EosSpec {
     Degenerate,
     /// `refined`: Saha ionisation with Fermi–Dirac electrons.
     Refined,
+    /// `molecular`: `refined` with H2 dissociation, donor metals and the ions' Coulomb term.
+    Molecular,
     /// A law supplied through the library (printed `external:NAME`; not selectable by name).
     External(String),
 }
 
 /// The equation-of-state rows of the catalogue.
-pub const CATALOGUE: &[LawEntry; 4] = &[
+pub const CATALOGUE: &[LawEntry; 5] = &[
     LawEntry {
         name: "ideal",
         params: &[],
@@ -51,6 +55,13 @@ pub const CATALOGUE: &[LawEntry; 4] = &[
         help: "Saha ionisation of H and He with Fermi–Dirac electrons",
         source: "Cox & Giuli 1968, ch. 15 and 24; Hummer & Mihalas 1988",
     },
+    LawEntry {
+        name: "molecular",
+        params: &[],
+        reads_file: false,
+        help: "refined plus H2 dissociation, a low-ionisation metal donor, ion Coulomb term",
+        source: "Huber & Herzberg 1979 (H2); Potekhin & Chabrier 2000 (Coulomb)",
+    },
 ];
 
 impl LawSpec for EosSpec {
@@ -64,6 +75,7 @@ impl LawSpec for EosSpec {
             EosSpec::Saha => 1,
             EosSpec::Degenerate => 2,
             EosSpec::Refined => 3,
+            EosSpec::Molecular => 4,
             EosSpec::External(name) => return Err(name),
         };
         Ok((&CATALOGUE[row], Arguments::Numbers(Vec::new())))
@@ -73,6 +85,7 @@ impl LawSpec for EosSpec {
             "ideal" => EosSpec::Ideal,
             "saha" => EosSpec::Saha,
             "degenerate" => EosSpec::Degenerate,
+            "molecular" => EosSpec::Molecular,
             _ => EosSpec::Refined,
         }
     }
@@ -88,6 +101,7 @@ impl EosSpec {
             EosSpec::Saha => Arc::new(SahaGas),
             EosSpec::Degenerate => Arc::new(DegenerateGas),
             EosSpec::Refined => Arc::new(RefinedEos),
+            EosSpec::Molecular => Arc::new(MolecularEos),
             EosSpec::External(_) => return None,
         })
     }

@@ -59,15 +59,16 @@ pub struct PhysicsSpec {
 impl Preset {
     /// The complete choice this preset stands for.
     ///
-    /// - `refined`: eos `refined`, opacity `refined` (calibrated guillotine factor), rates
-    ///   `sfactor`, convection `mlt` (alpha 1.8), the grey atmosphere.
+    /// - `refined`: eos `molecular`, opacity `refined` (calibrated guillotine factor), rates
+    ///   `sfactor`, convection `mlt` (alpha 2.4, calibrated with this atmosphere), the
+    ///   `krishna-swamy` atmosphere.
     /// - `analytic`: ideal gas + radiation; kappa = 0.2(1+X) + (4.34e25 Z + 3.68e22 (1-Z))(1+X)
     ///   rho T^-3.5; the textbook pp and CNO rates without screening; adiabatic convection; the
     ///   one-point photosphere.
     pub fn spec(self) -> PhysicsSpec {
         let (eos, opacity, rates, convection, atmosphere) = match self {
             Preset::Refined => (
-                EosSpec::Refined,
+                EosSpec::Molecular,
                 OpacitySpec::Refined {
                     guillotine: refined::DEFAULT_GUILLOTINE,
                     exponent: refined::DEFAULT_DENSITY_EXPONENT,
@@ -76,7 +77,7 @@ impl Preset {
                 ConvectionSpec::MixingLength {
                     alpha: convection::ALPHA.default_value(),
                 },
-                AtmosphereSpec::Grey,
+                AtmosphereSpec::KrishnaSwamy,
             ),
             Preset::Analytic => (
                 EosSpec::Ideal,

@@ -4,7 +4,7 @@ use super::catalogue::{LawEntry, LawKind, Param, ParamDefault};
 use super::grammar::{law_spec_text, Arguments, LawSpec};
 use crate::error::Result;
 use crate::physics::opacity::{
-    refined, AnalyticOpacity, Conductive, ElectronScattering, HMinus, Kramers, Opacity,
+    refined, AnalyticOpacity, BellLin, Conductive, ElectronScattering, HMinus, Kramers, Opacity,
     RefinedOpacity, TableOpacity,
 };
 use std::path::Path;
@@ -23,6 +23,9 @@ pub enum OpacitySpec {
     },
     /// `h-minus`: the H-minus opacity.
     HMinus,
+    /// `bell-lin`: the piecewise power laws of Bell & Lin 1994 (grains, molecules, H-minus,
+    /// Kramers, electron scattering).
+    BellLin,
     /// `conductive`: electron conduction.
     Conductive,
     /// `analytic`: electron scattering plus unreduced Kramers.
@@ -55,7 +58,7 @@ const GUILLOTINE: Param = Param {
 };
 
 /// The opacity rows of the catalogue.
-pub const CATALOGUE: &[LawEntry; 8] = &[
+pub const CATALOGUE: &[LawEntry; 9] = &[
     LawEntry {
         name: "electron-scattering",
         params: &[],
@@ -76,6 +79,13 @@ pub const CATALOGUE: &[LawEntry; 8] = &[
         reads_file: false,
         help: "H-minus, 2.5e-31 (Z/0.02) rho^1/2 T^9",
         source: "Hansen & Kawaler 1994, ch. 4",
+    },
+    LawEntry {
+        name: "bell-lin",
+        params: &[],
+        reads_file: false,
+        help: "piecewise power laws from grains to electron scattering, 300 K to 1e6 K",
+        source: "Bell & Lin 1994, ApJ 427, 987",
     },
     LawEntry {
         name: "conductive",
@@ -112,7 +122,7 @@ pub const CATALOGUE: &[LawEntry; 8] = &[
             },
         ],
         reads_file: false,
-        help: "electron scattering, H-minus, reduced Kramers, molecular floor, conduction",
+        help: "electron scattering, H-minus, reduced Kramers, Bell & Lin molecules, conduction",
         source: "this project's combination; see src/physics/opacity/refined.rs",
     },
     LawEntry {
@@ -144,17 +154,18 @@ impl LawSpec for OpacitySpec {
                 (&CATALOGUE[1], Arguments::Numbers(vec![*guillotine]))
             }
             OpacitySpec::HMinus => (&CATALOGUE[2], none()),
-            OpacitySpec::Conductive => (&CATALOGUE[3], none()),
-            OpacitySpec::Analytic => (&CATALOGUE[4], none()),
+            OpacitySpec::BellLin => (&CATALOGUE[3], none()),
+            OpacitySpec::Conductive => (&CATALOGUE[4], none()),
+            OpacitySpec::Analytic => (&CATALOGUE[5], none()),
             OpacitySpec::Refined {
                 guillotine,
                 exponent,
             } => (
-                &CATALOGUE[5],
+                &CATALOGUE[6],
                 Arguments::Numbers(vec![*guillotine, *exponent]),
             ),
             OpacitySpec::Table { path, clamp } => (
-                &CATALOGUE[if *clamp { 7 } else { 6 }],
+                &CATALOGUE[if *clamp { 8 } else { 7 }],
                 Arguments::Path(path.clone()),
             ),
             OpacitySpec::External(name) => return Err(name),
@@ -165,6 +176,7 @@ impl LawSpec for OpacitySpec {
         match (entry.name, &arguments) {
             ("kramers", _) => OpacitySpec::Kramers { guillotine: v(0) },
             ("h-minus", _) => OpacitySpec::HMinus,
+            ("bell-lin", _) => OpacitySpec::BellLin,
             ("conductive", _) => OpacitySpec::Conductive,
             ("analytic", _) => OpacitySpec::Analytic,
             ("refined", _) => OpacitySpec::Refined {
@@ -189,6 +201,7 @@ impl OpacitySpec {
             OpacitySpec::ElectronScattering => Arc::new(ElectronScattering),
             OpacitySpec::Kramers { guillotine } => Arc::new(Kramers::new(*guillotine)?),
             OpacitySpec::HMinus => Arc::new(HMinus),
+            OpacitySpec::BellLin => Arc::new(BellLin),
             OpacitySpec::Conductive => Arc::new(Conductive),
             OpacitySpec::Analytic => Arc::new(AnalyticOpacity::default()),
             OpacitySpec::Refined {

@@ -19,7 +19,7 @@ pub const CATALOGUE: &[LawEntry; 2] = &[
         name: "refined",
         params: &[],
         reads_file: false,
-        help: "the default: eos refined, opacity refined, rates sfactor, mlt, grey atmosphere",
+        help: "the default: eos molecular, opacity refined, rates sfactor, mlt, krishna-swamy",
         source: "the laws' own sources",
     },
     LawEntry {

@@ -162,11 +162,13 @@ impl Error {
     }
 }
 
-/// `text` in exponent form if it is a number whose exponent form is at least two characters
-/// shorter (`1e300` for a 301-digit integer, `-1e-10`), else unchanged.
+/// `text` in exponent form if it is a number with a fraction or more than 15 digits whose
+/// exponent form is at least two characters shorter (`1e300` for a 301-digit integer,
+/// `-1e-10` for `-0.0000000001`), else unchanged (a count such as `1000000` stays as typed).
 fn compact_number(text: String) -> String {
+    let long = text.contains('.') || text.len() > 15;
     match text.parse::<f64>() {
-        Ok(v) if v.is_finite() => {
+        Ok(v) if v.is_finite() && long => {
             let exponent = format!("{v:e}");
             if exponent.len() + 2 <= text.len() {
                 exponent
@@ -197,5 +199,6 @@ mod tests {
         assert_eq!(shown(150.0), "150");
         assert_eq!(shown(0.001), "0.001");
         assert_eq!(shown(1.5e-7), "1.5e-7");
+        assert_eq!(shown(1e6), "1000000");
     }
 }

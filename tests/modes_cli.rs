@@ -138,14 +138,8 @@ fn bad_input_exits_2_and_touches_no_file() {
         (&["--polytrope", "5"], "--polytrope = 5"),
         (&["--polytrope", "-1"], "--polytrope = -1"),
         (&["--polytrope", "3", "--gamma1", "1.2"], "--gamma1 = 1.2"),
-        (
-            &["--polytrope", "3", "--max-order", "0"],
-            "'0' for '--max-order <MAX_ORDER>': 0 is out of range; give a whole number from 1 to 1000",
-        ),
-        (
-            &["--polytrope", "3", "--points", "10"],
-            "'10' for '--points <POINTS>': 10 is out of range; give a whole number from 50 to 100000",
-        ),
+        (&["--polytrope", "3", "--max-order", "0"], "--max-order = 0"),
+        (&["--polytrope", "3", "--points", "10"], "--points = 10"),
     ];
     for (args, message) in cases {
         let mut all = args.to_vec();

@@ -79,7 +79,7 @@ pub fn run(args: CompareArgs) -> Result<()> {
         &grid,
         &points,
         &RunSettings {
-            threads: args.threads,
+            threads: super::values::check_threads(args.threads)?,
             tolerance: None,
         },
         &|| {},

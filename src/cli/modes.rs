@@ -51,14 +51,16 @@ pub struct ModesArgs {
     points: usize,
 }
 
-/// A spherical degree of `--degrees`.
+/// A spherical degree of `--degrees` (the range is checked with the request).
 fn degree(text: &str) -> std::result::Result<u32, String> {
-    super::values::count_in(text, 0, MAX_DEGREE as usize).map(|n| n as u32)
+    super::values::count_in(text, 0, MAX_DEGREE as usize)
+        .map(|n| u32::try_from(n).unwrap_or(u32::MAX))
 }
 
-/// The highest order of `--max-order`.
+/// The highest order of `--max-order` (the range is checked with the request).
 fn max_order(text: &str) -> std::result::Result<u32, String> {
-    super::values::count_in(text, 1, MAX_ORDER as usize).map(|n| n as u32)
+    super::values::count_in(text, 1, MAX_ORDER as usize)
+        .map(|n| u32::try_from(n).unwrap_or(u32::MAX))
 }
 
 /// The Lane–Emden points of `--points`.

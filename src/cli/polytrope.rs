@@ -4,7 +4,7 @@ use super::io::Files;
 use super::Format;
 use clap::Args;
 use starpoise::error::{Error, Result};
-use starpoise::output::meta::{Meta, Provenance};
+use starpoise::output::meta::{Meta, Provenance, WithMeta};
 use starpoise::output::polytrope::{
     profile_meta, write_profile, PolytropeSummary, POLYTROPE_CONTENT,
 };
@@ -137,10 +137,7 @@ pub fn run(args: PolytropeArgs) -> Result<()> {
         Format::Text => channel.print(&summary.to_text()),
         Format::Json => {
             let meta = Meta::new(&provenance, "Lane-Emden polytrope summary");
-            let mut value = serde_json::to_value(&summary).unwrap_or_default();
-            if let serde_json::Value::Object(m) = &mut value {
-                m.insert("meta".into(), meta.to_json());
-            }
+            let value = WithMeta::new(&summary, &meta);
             let json = serde_json::to_string_pretty(&value).map_err(|e| Error::Io {
                 path: "stdout".to_string(),
                 reason: e.to_string(),

@@ -4,7 +4,7 @@ use super::common::ModelArgs;
 use super::io::out;
 use super::Format;
 use clap::Args;
-use starpoise::output::meta::{Meta, Provenance};
+use starpoise::output::meta::{Meta, Provenance, WithMeta};
 use starpoise::output::ProbeReport;
 use starpoise::{Error, Result};
 
@@ -67,10 +67,7 @@ pub fn run(args: ProbeArgs) -> Result<()> {
         Format::Text => out(&report.to_text()),
         Format::Json => {
             let meta = Meta::new(&Provenance::of_this_process(), "local physics at one point");
-            let mut value = serde_json::to_value(&report).unwrap_or_default();
-            if let serde_json::Value::Object(m) = &mut value {
-                m.insert("meta".into(), meta.to_json());
-            }
+            let value = WithMeta::new(&report, &meta);
             let text = serde_json::to_string_pretty(&value).map_err(|e| Error::Io {
                 path: "<stdout>".to_string(),
                 reason: e.to_string(),

@@ -120,7 +120,7 @@ pub fn run(args: SequenceArgs) -> Result<()> {
         &grid,
         &points,
         &RunSettings {
-            threads: args.threads,
+            threads: super::values::check_threads(args.threads)?,
             tolerance: None,
         },
         &tick,

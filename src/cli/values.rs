@@ -15,13 +15,24 @@ pub fn number(text: &str) -> Result<f64, String> {
     }
 }
 
-/// A whole number in `lo..=hi` (the message names the range).
+/// A whole number for a count whose range `lo..=hi` the library checks (so that the command
+/// line and the library give one message): a negative or non-whole number, or one beyond what
+/// the type holds, is refused here, naming the range.
 pub fn count_in(text: &str, lo: usize, hi: usize) -> Result<usize, String> {
-    let allowed = format!("give a whole number from {lo} to {hi}");
     match text.trim().parse::<i128>() {
-        Ok(v) if (lo as i128..=hi as i128).contains(&v) => Ok(v as usize),
-        Ok(_) => Err(format!("{text} is out of range; {allowed}")),
-        Err(_) => Err(format!("'{text}' is not a whole number; {allowed}")),
+        Ok(v) if v < 0 => Err(format!(
+            "{text} is negative; give a whole number from {lo} to {hi}"
+        )),
+        Ok(v) => usize::try_from(v)
+            .map_err(|_| format!("{text} is out of range; give a whole number from {lo} to {hi}")),
+        Err(_) if text.trim().chars().all(|c| c.is_ascii_digit()) && !text.trim().is_empty() => {
+            Err(format!(
+                "{text} is out of range; give a whole number from {lo} to {hi}"
+            ))
+        }
+        Err(_) => Err(format!(
+            "'{text}' is not a whole number; give one from {lo} to {hi}"
+        )),
     }
 }
 
@@ -43,6 +54,19 @@ pub const MAX_THREADS: usize = 256;
 /// Worker threads of `--threads` (0: one per core).
 pub fn threads(text: &str) -> Result<usize, String> {
     count_in(text, 0, MAX_THREADS)
+}
+
+/// Check a number of worker threads against [`MAX_THREADS`] (key `threads`).
+pub fn check_threads(n: usize) -> starpoise::Result<usize> {
+    if n <= MAX_THREADS {
+        Ok(n)
+    } else {
+        Err(starpoise::Error::invalid(
+            "threads",
+            n,
+            &format!("the number of worker threads must be in [0, {MAX_THREADS}] (0: one per core), e.g. 2"),
+        ))
+    }
 }
 
 /// Profile points of `polytrope --points`.
@@ -75,18 +99,21 @@ mod tests {
             if let Ok(v) = number(&text) {
                 proptest::prop_assert!(v.is_finite());
             }
-            if let Ok(n) = count_in(&text, 10, 100_000) {
-                proptest::prop_assert!((10..=100_000).contains(&n));
+            if count_in(&text, 10, 100_000).is_ok() {
+                proptest::prop_assert!(!text.trim().starts_with('-'));
             }
         }
     }
 
     #[test]
-    fn counts_name_their_range() {
+    fn counts_refuse_negatives_and_leave_ranges_to_the_library() {
         assert_eq!(count_in("400", 10, 100_000), Ok(400));
-        for bad in ["-5", "9", "100001", "18446744073709551616", "4.5", "x"] {
+        assert_eq!(count_in("5", 10, 100_000), Ok(5));
+        let huge = "1".repeat(60);
+        for bad in ["-5", "4.5", "x", "", "18446744073709551616", huge.as_str()] {
             let e = count_in(bad, 10, 100_000).unwrap_err();
             assert!(e.contains(bad) && e.contains("10 to 100000"), "{e}");
         }
+        assert!(check_threads(256).is_ok() && check_threads(257).is_err());
     }
 }

@@ -112,7 +112,6 @@ impl ZamsArgs {
             settings = settings.with_max_iterations(n)?;
         }
         if let Some(g) = &self.guess {
-            check_guess(g)?;
             settings = settings.with_guess(g[0], g[1], g[2], g[3])?;
         }
         let points = check_profile_points(
@@ -122,32 +121,6 @@ impl ZamsArgs {
         )?;
         Ok((settings, points))
     }
-}
-
-/// The four values of `--guess`, each named by its place on the command line.
-const GUESS_SLOTS: [(&str, &str); 4] = [
-    (
-        "--guess PC",
-        "the central pressure in dyn/cm^2, e.g. 1.5e17",
-    ),
-    ("--guess TC", "the central temperature in K, e.g. 1.3e7"),
-    ("--guess RSUN", "the radius in R_sun, e.g. 0.9"),
-    ("--guess LSUN", "the luminosity in L_sun, e.g. 0.7"),
-];
-
-/// Each starting guess must be positive; the error names its place in `--guess PC TC RSUN
-/// LSUN`.
-fn check_guess(values: &[f64]) -> Result<()> {
-    for ((slot, what), &v) in GUESS_SLOTS.iter().zip(values) {
-        if !(v.is_finite() && v > 0.0) {
-            return Err(Error::invalid(
-                slot,
-                v,
-                &format!("a starting guess must be a positive number: {what}"),
-            ));
-        }
-    }
-    Ok(())
 }
 
 /// Run `starpoise zams`.

@@ -184,14 +184,25 @@ pub fn compare_meta(base: &Meta, table: &CompareTable) -> Meta {
         .with("reference", &table.reference)
 }
 
+/// The table as one JSON object: its fields in order, then `meta`, then `units`.
+#[derive(Debug, serde::Serialize)]
+pub struct CompareJson<'a> {
+    /// The table's fields.
+    #[serde(flatten)]
+    pub table: &'a CompareTable,
+    /// The metadata ([`compare_meta`]).
+    pub meta: serde_json::Value,
+    /// Column name to unit.
+    pub units: serde_json::Value,
+}
+
 /// The table as one JSON object, with `meta` and `units`.
-pub fn table_json(table: &CompareTable, meta: &Meta) -> serde_json::Value {
-    let mut v = serde_json::to_value(table).unwrap_or(serde_json::Value::Null);
-    if let serde_json::Value::Object(m) = &mut v {
-        m.insert("meta".into(), compare_meta(meta, table).to_json());
-        m.insert("units".into(), units_json(&compare_columns()));
+pub fn table_json<'a>(table: &'a CompareTable, meta: &Meta) -> CompareJson<'a> {
+    CompareJson {
+        table,
+        meta: compare_meta(meta, table).to_json(),
+        units: units_json(&compare_columns()),
     }
-    v
 }
 
 /// Write the table to `path`: the records as CSV (metadata lines, units line, header, rows;

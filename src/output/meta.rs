@@ -194,6 +194,27 @@ impl Meta {
     }
 }
 
+/// A serialisable value followed by a `meta` member, keeping the value's own field order (for
+/// the JSON summaries and tables that are structs).
+#[derive(Debug, Serialize)]
+pub struct WithMeta<'a, T: Serialize> {
+    /// The value, its fields first.
+    #[serde(flatten)]
+    pub value: &'a T,
+    /// The metadata.
+    pub meta: Value,
+}
+
+impl<'a, T: Serialize> WithMeta<'a, T> {
+    /// `value` with `meta`.
+    pub fn new(value: &'a T, meta: &Meta) -> Self {
+        Self {
+            value,
+            meta: meta.to_json(),
+        }
+    }
+}
+
 fn one_line(text: &str) -> String {
     text.replace(['\n', '\r'], " ")
 }

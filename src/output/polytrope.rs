@@ -270,5 +270,5 @@ pub fn write_profile(
         len,
         row: &row,
     };
-    write_table_file(path, TableFormat::from_path(path), &table, None)
+    write_table_file(path, TableFormat::from_path(path), &table, None::<&()>)
 }

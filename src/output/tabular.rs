@@ -257,11 +257,11 @@ pub fn write_json(w: &mut dyn Write, t: &Tabular) -> std::io::Result<()> {
 /// Write `t` to `path` in `format`: CSV, ECSV, or JSON — `json` if given (an output with its
 /// own JSON shape), else the row-major table of [`write_json`]. `-` is standard output; a file
 /// is written atomically.
-pub fn write_table_file(
+pub fn write_table_file<J: serde::Serialize>(
     path: &std::path::Path,
     format: TableFormat,
     t: &Tabular,
-    json: Option<&Value>,
+    json: Option<&J>,
 ) -> crate::error::Result<()> {
     crate::output::write_output(path, |w| match (format, json) {
         (TableFormat::Csv, _) => write_csv(w, t),

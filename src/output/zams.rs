@@ -122,7 +122,7 @@ pub fn write_profile(
         len: rows.len(),
         row: &row,
     };
-    write_table_file(path, format, &table, None)
+    write_table_file(path, format, &table, None::<&()>)
 }
 
 /// The summary as aligned text with units.

@@ -19,8 +19,8 @@ use std::path::PathBuf;
 /// Arguments of `starpoise zams`.
 #[derive(Debug, Args)]
 pub struct ZamsArgs {
-    /// Stellar mass in solar masses (0.05–150).
-    #[arg(long, value_name = "MSUN", value_parser = values::number, allow_hyphen_values = true)]
+    /// Stellar mass in solar masses.
+    #[arg(long, value_name = "MSUN", help = mass_help(), value_parser = values::number, allow_hyphen_values = true)]
     mass: Option<f64>,
     #[command(flatten)]
     composition: CompositionFlags,
@@ -62,6 +62,15 @@ pub struct ZamsArgs {
     /// luminosity (L_sun); all four together.
     #[arg(long, value_names = ["PC", "TC", "RSUN", "LSUN"], num_args = 4, value_parser = values::number, allow_hyphen_values = true)]
     guess: Option<Vec<f64>>,
+}
+
+/// The help of `--mass`, from the library's bounds.
+fn mass_help() -> String {
+    let (lo, hi) = starpoise::structure::MASS_RANGE_MSUN;
+    let (vlo, vhi) = starpoise::structure::model::REFINED_VALIDATED_MASS_RANGE_MSUN;
+    format!(
+        "Stellar mass in solar masses ({lo}–{hi}; the refined set is compared with measured stars over {vlo}–{vhi} and refuses masses below its hydrogen-burning limit, about 0.07 at solar composition: see `starpoise limits`)"
+    )
 }
 
 /// Profile file format.
@@ -175,6 +184,9 @@ pub fn run(args: ZamsArgs) -> Result<()> {
             let abscissa = args.abscissa.map(Into::into).unwrap_or_default();
             starpoise::output::plot::profile_plot(path, &rows, &title, abscissa)?;
         }
+    }
+    for w in &model.warnings {
+        err(&format!("starpoise: warning: {w}\n"));
     }
     match args.format {
         Format::Json => channel.print(&format!(

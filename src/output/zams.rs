@@ -5,7 +5,8 @@
 //!
 //! JSON summary keys: `mass_msun`, `x`, `y`, `z`, `physics` (a model-file fragment: the keys of
 //! [`crate::physics::PhysicsSpec`]), `converged`, `iterations`, `fit_mismatch`,
-//! `fit_mass_fraction`, every key of [`ModelSummary::FIELDS`], `rhs_evaluations`. A model that
+//! `fit_mass_fraction`, every key of [`ModelSummary::FIELDS`], `rhs_evaluations`, `warnings`
+//! (an array of sentences: where the model leaves what its laws describe well). A model that
 //! did not converge has `converged: false`, `status` and `reason`, and every summary quantity
 //! `null`. The command line adds `meta` (the provenance, [`crate::output::meta`]).
 
@@ -49,6 +50,7 @@ pub fn summary_json(model: &ZamsModel) -> Value {
         m.insert(f.key.into(), finite(v));
     }
     m.insert("rhs_evaluations".into(), json!(model.stats.rhs_evaluations));
+    m.insert("warnings".into(), json!(model.warnings));
     Value::Object(m)
 }
 

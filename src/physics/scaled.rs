@@ -39,6 +39,10 @@ impl<L: Opacity + ?Sized> Opacity for Scaled<L> {
         format!("{}*{}", self.inner.name(), self.factor)
     }
 
+    fn caution(&self, rho: f64, t: f64, comp: &Composition) -> Option<&'static str> {
+        self.inner.caution(rho, t, comp)
+    }
+
     fn kappa(&self, rho: f64, t: f64, comp: &Composition) -> Result<f64, PhysicsError> {
         Ok(self.factor * self.inner.kappa(rho, t, comp)?)
     }

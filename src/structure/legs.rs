@@ -117,6 +117,84 @@ pub struct LegEnd {
     pub boundaries: Vec<f64>,
     /// Whether the leg met more boundaries than it locates (the list is then incomplete).
     pub boundary_limit_reached: bool,
+    /// The laws' cautions met at the leg's accepted steps.
+    pub cautions: Cautions,
+}
+
+/// One law's caution met along a model, with where it applied.
+#[derive(Debug, Clone, PartialEq)]
+pub struct CautionEntry {
+    /// The kind of law (`eos`, `opacity`).
+    pub kind: &'static str,
+    /// The caution.
+    pub text: &'static str,
+    /// Points (accepted integration steps, atmosphere ends) where it applied.
+    pub points: usize,
+    /// Lowest and highest temperature of those points, K.
+    pub temperature_k: (f64, f64),
+    /// Lowest and highest density of those points, g cm^-3.
+    pub density_g_cm3: (f64, f64),
+}
+
+/// The laws' cautions met along a model ([`crate::physics::EquationOfState::caution`],
+/// [`crate::physics::Opacity::caution`]).
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct Cautions {
+    /// One entry per distinct caution, in the order first met.
+    pub entries: Vec<CautionEntry>,
+}
+
+impl Cautions {
+    /// Ask every law of `ctx` about the point (`rho`, `t`) and note its cautions.
+    pub fn check(&mut self, ctx: &LegContext, rho: f64, t: f64) {
+        let comp = ctx.composition;
+        let eos = ctx.physics.eos().caution(rho, t, comp).map(|c| ("eos", c));
+        let opacity = ctx
+            .physics
+            .opacity()
+            .caution(rho, t, comp)
+            .map(|c| ("opacity", c));
+        for (kind, text) in eos.into_iter().chain(opacity) {
+            self.note(kind, text, rho, t);
+        }
+    }
+
+    fn note(&mut self, kind: &'static str, text: &'static str, rho: f64, t: f64) {
+        match self.entries.iter_mut().find(|e| e.text == text) {
+            Some(e) => {
+                e.points += 1;
+                e.temperature_k = (e.temperature_k.0.min(t), e.temperature_k.1.max(t));
+                e.density_g_cm3 = (e.density_g_cm3.0.min(rho), e.density_g_cm3.1.max(rho));
+            }
+            None => self.entries.push(CautionEntry {
+                kind,
+                text,
+                points: 1,
+                temperature_k: (t, t),
+                density_g_cm3: (rho, rho),
+            }),
+        }
+    }
+
+    /// The cautions of `other` added to these.
+    pub fn merge(&mut self, other: &Cautions) {
+        for e in &other.entries {
+            match self.entries.iter_mut().find(|f| f.text == e.text) {
+                Some(f) => {
+                    f.points += e.points;
+                    f.temperature_k = (
+                        f.temperature_k.0.min(e.temperature_k.0),
+                        f.temperature_k.1.max(e.temperature_k.1),
+                    );
+                    f.density_g_cm3 = (
+                        f.density_g_cm3.0.min(e.density_g_cm3.0),
+                        f.density_g_cm3.1.max(e.density_g_cm3.1),
+                    );
+                }
+                None => self.entries.push(e.clone()),
+            }
+        }
+    }
 }
 
 /// The last point at which the local physics was evaluated: its (x, y), the equation-of-state
@@ -198,6 +276,8 @@ struct LegObserver<'a, 'c, 'r> {
     steps: Option<&'r mut Vec<DenseStep>>,
     /// The start of the last accepted step.
     step_start: Option<(f64, State)>,
+    /// The laws' cautions at the accepted steps' ends.
+    cautions: Cautions,
 }
 
 /// One accepted step of a recorded leg: from `x_start` to `x_end` (the event's x where the
@@ -224,6 +304,17 @@ impl Observer<STATE_LEN, PhysicsError> for LegObserver<'_, '_, '_> {
     }
     fn on_step(&mut self, step: &AcceptedStep<'_, STATE_LEN>) -> Control {
         self.step_start = Some((step.x_old, *step.y_old));
+        // The right-hand side has just been evaluated at the step's end (unless the step
+        // stopped at an event): ask the laws about that point.
+        if let Some(p) = self
+            .system
+            .last
+            .get()
+            .filter(|p| p.x == step.x && p.y == *step.y)
+        {
+            self.cautions
+                .check(self.system.ctx, p.eos.density_g_cm3, p.eos.temperature_k);
+        }
         if let (Some(steps), Some(dense)) = (self.steps.as_deref_mut(), step.dense()) {
             steps.push(DenseStep {
                 x_start: step.x_old,
@@ -307,6 +398,7 @@ impl<'a> LegRunner<'a> {
             y,
             boundaries: Vec::new(),
             boundary_limit_reached: false,
+            cautions: Cautions::default(),
         };
         if x1 <= x0 {
             return Ok(end);
@@ -327,6 +419,7 @@ impl<'a> LegRunner<'a> {
                 watch_boundaries,
                 steps: steps.as_deref_mut(),
                 step_start: None,
+                cautions: Cautions::default(),
             };
             let mut system = LegSystem {
                 ctx: &self.ctx,
@@ -338,6 +431,7 @@ impl<'a> LegRunner<'a> {
                 .integrate(&mut system, x, &y, x1, &mut observer)
                 .map_err(|e| leg_error(leg, total_mass_g, x, e))?;
             let step_start = observer.step_start;
+            end.cautions.merge(&observer.cautions);
             y = outcome.y;
             x = outcome.x;
             match outcome.stop {
@@ -402,6 +496,7 @@ impl LegRunner<'_> {
                 watch_boundaries: false,
                 steps: steps.is_some().then_some(&mut recorded),
                 step_start: None,
+                cautions: Cautions::default(),
             };
             let mut system = LegSystem {
                 ctx: &self.ctx,

@@ -2,7 +2,7 @@
 //! statistics, and the profile on demand.
 
 use super::equations::{INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL};
-use super::legs::LegContext;
+use super::legs::{Cautions, LegContext};
 use super::profile::{self, ProfileRow};
 use super::shooting::{LegEnds, Unknowns};
 use super::summary::ModelSummary;
@@ -44,6 +44,50 @@ pub struct ZamsModel {
     pub unknowns: Unknowns,
     /// Newton history.
     pub history: Vec<IterationRecord>,
+    /// Where the model leaves what its laws describe well (each law's caution, with where it
+    /// applied) or the mass range its set of laws has been compared with measured stars on;
+    /// empty when neither.
+    pub warnings: Vec<String>,
+}
+
+/// The masses on which the `refined` set has been compared with measured stars and published
+/// ZAMS relations, M_sun (README's Accuracy section: low-mass eclipsing binaries and single M
+/// dwarfs from 0.12 M_sun, the ZAMS relations of Tout et al. 1996 to 30 M_sun; above, the
+/// radii are too small without an iron-bump opacity). Outside, a `refined` model carries a
+/// warning.
+pub const REFINED_VALIDATED_MASS_RANGE_MSUN: (f64, f64) = (0.1, 30.0);
+
+/// The warnings of a model of `settings` whose legs met `cautions`.
+fn warnings(settings: &ZamsSettings, cautions: &Cautions) -> Vec<String> {
+    let spec = settings.physics().spec();
+    let mut out: Vec<String> = cautions
+        .entries
+        .iter()
+        .map(|c| {
+            let law = match c.kind {
+                "eos" => spec.eos.to_string(),
+                _ => spec.opacity.to_string(),
+            };
+            format!(
+                "{} {law}: {} (at {} integration points, T {:.3e} to {:.3e} K, rho {:.3e} to {:.3e} g/cm^3)",
+                c.kind,
+                c.text,
+                c.points,
+                c.temperature_k.0,
+                c.temperature_k.1,
+                c.density_g_cm3.0,
+                c.density_g_cm3.1
+            )
+        })
+        .collect();
+    let (lo, hi) = REFINED_VALIDATED_MASS_RANGE_MSUN;
+    let m = settings.mass_msun();
+    if *spec == crate::physics::Preset::Refined.spec() && !(lo..=hi).contains(&m) {
+        out.push(format!(
+            "mass {m} M_sun is outside {lo}-{hi} M_sun, the range on which the refined set has been compared with measured stars"
+        ));
+    }
+    out
 }
 
 impl ZamsModel {
@@ -196,6 +240,7 @@ pub(crate) fn build(
         stats,
         unknowns: u,
         history,
+        warnings: warnings(settings, &legs.cautions),
     })
 }
 

@@ -5,7 +5,7 @@
 use super::centre;
 use super::equations::{State, LUM};
 use super::error::LegError;
-use super::legs::{Leg, LegContext, LegEnd, LegResult, LegRunner};
+use super::legs::{Cautions, Leg, LegContext, LegEnd, LegResult, LegRunner};
 use super::surface;
 use crate::numerics::newton::NewtonProblem;
 use nalgebra::{SMatrix, SVector};
@@ -26,6 +26,8 @@ pub struct LegEnds {
     pub boundaries: Vec<f64>,
     /// Whether a leg met more boundaries than it locates.
     pub boundary_limit_reached: bool,
+    /// The laws' cautions met on both legs and in the atmosphere.
+    pub cautions: Cautions,
 }
 
 /// The finest integrator tolerance `sharpen` goes to.
@@ -84,8 +86,11 @@ impl<'a> ShootingProblem<'a> {
         self.legs_integrated += 1;
         let start = surface::start(&self.runner.ctx, ln_r, ln_l)?;
         let x1 = (1.0 - self.fit_mass_fraction).ln();
-        self.runner
-            .integrate(Leg::Inward, start.x0, x1, start.y0, None)
+        let mut end = self
+            .runner
+            .integrate(Leg::Inward, start.x0, x1, start.y0, None)?;
+        end.cautions.merge(&start.cautions);
+        Ok(end)
     }
 
     /// Relative mismatch: differences of ln r, ln P, ln T, and (L_out - L_in) / L_out.
@@ -158,6 +163,8 @@ impl ShootingProblem<'_> {
         let inn = self.inward(u[2], u[3])?;
         let mut boundaries = out.boundaries;
         boundaries.extend(&inn.boundaries);
+        let mut cautions = out.cautions;
+        cautions.merge(&inn.cautions);
         let legs = LegEnds {
             u: *u,
             tolerance: self.ctx().tolerance,
@@ -165,6 +172,7 @@ impl ShootingProblem<'_> {
             inn: inn.y,
             boundaries,
             boundary_limit_reached: out.boundary_limit_reached || inn.boundary_limit_reached,
+            cautions,
         };
         self.last = Some(legs.clone());
         Ok(legs)

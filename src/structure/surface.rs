@@ -20,7 +20,7 @@
 
 use super::equations::{State, LN_P, LN_R, LN_T, LUM};
 use super::error::{LegCause, LegError, LegName};
-use super::legs::{LegContext, LegResult};
+use super::legs::{Cautions, LegContext, LegResult};
 use crate::constants::{A_RAD_CGS, C_CM_S, G_CGS, SIGMA_SB_CGS};
 use crate::error::PhysicsError;
 use crate::numerics::ode::{Dop853, Dop853Settings, NoObserver, OdeError, OdeSystem, RhsFailure};
@@ -37,7 +37,7 @@ pub const PHOTOSPHERE_TAU: f64 = 2.0 / 3.0;
 pub const ATMOSPHERE_TOP_TAU: f64 = 1e-6;
 
 /// The start of the inward leg.
-#[derive(Debug, Clone, Copy)]
+#[derive(Debug, Clone)]
 pub struct SurfaceStart {
     /// x0 = ln D0 = ln(1 - m_ph / M).
     pub x0: f64,
@@ -47,6 +47,9 @@ pub struct SurfaceStart {
     pub teff_k: f64,
     /// Photospheric pressure, dyn cm^-2.
     pub pressure_dyn_cm2: f64,
+    /// The laws' cautions at the top of the atmosphere and at the photosphere (its coolest and
+    /// its densest point).
+    pub cautions: Cautions,
 }
 
 /// An error of the atmosphere at optical depth `tau`.
@@ -166,9 +169,16 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
     let teff = effective_temperature_k(r, l);
     let gravity = G_CGS * ctx.total_mass_g / (r * r);
     let atmosphere = ctx.physics.atmosphere();
+    let mut cautions = Cautions::default();
+    let mut check = |p: f64, t: f64| {
+        if let Ok(s) = ctx.physics.eos().state_at_pressure(p, t, ctx.composition) {
+            cautions.check(ctx, s.density_g_cm3, t);
+        }
+    };
     let (pressure, column_g_cm2) = match atmosphere.relation() {
         None => {
             let p = column_pressure(ctx, PHOTOSPHERE_TAU, teff, gravity, 0.0, 0.0)?;
+            check(p, teff);
             (p, p / gravity)
         }
         Some(relation) => {
@@ -191,6 +201,7 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
                 p_rad(ATMOSPHERE_TOP_TAU),
                 flux_over_c,
             )?;
+            check(p_top, t_top);
             let p_gas_top = p_top - p_rad(ATMOSPHERE_TOP_TAU);
             let tau_ph = relation.photosphere_tau();
             let p_rad_ph = p_rad(tau_ph);
@@ -224,6 +235,7 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
                 })?;
             // Column mass: d P_gas = (g - kappa F/c) dm, so m g = P_gas + tau F/c.
             let p_gas = outcome.y[0].exp();
+            check(p_gas + p_rad_ph, teff);
             (p_gas + p_rad_ph, (p_gas + tau_ph * flux_over_c) / gravity)
         }
     };
@@ -249,5 +261,6 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
         y0,
         teff_k: teff,
         pressure_dyn_cm2: pressure,
+        cautions,
     })
 }

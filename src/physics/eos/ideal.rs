@@ -61,9 +61,19 @@ fn check_point(law: &str, rho: f64, t: f64) -> Result<(), PhysicsError> {
     }
 }
 
+/// Below this temperature hydrogen recombines (the Saha equation puts half of it ionised near
+/// 1e4 K in stellar photospheres; fact of the trade), which the fully ionised ideal gas ignores.
+pub const IDEAL_GAS_COOL_K: f64 = 1.0e4;
+
 impl EquationOfState for IdealGas {
     fn name(&self) -> &str {
         "ideal"
+    }
+
+    fn caution(&self, _rho: f64, t: f64, _comp: &Composition) -> Option<&'static str> {
+        (t < IDEAL_GAS_COOL_K).then_some(
+            "below 1e4 K, where hydrogen recombines: the ideal gas assumes full ionisation",
+        )
     }
 
     fn state(&self, rho: f64, t: f64, comp: &Composition) -> Result<EosState, PhysicsError> {

@@ -67,6 +67,18 @@ pub trait EquationOfState: Send + Sync + std::fmt::Debug {
     /// The law's name as a user selects it (e.g. `ideal`).
     fn name(&self) -> &str;
 
+    /// A caution when (rho, T) lies where the law still returns a value but is used beyond what
+    /// it describes well (an assumption that fails, a fit used outside its range); `None`
+    /// inside. A model that visits such points carries the caution as a warning.
+    fn caution(
+        &self,
+        _rho_g_cm3: f64,
+        _temperature_k: f64,
+        _comp: &Composition,
+    ) -> Option<&'static str> {
+        None
+    }
+
     /// The state at density `rho_g_cm3` and temperature `temperature_k`.
     ///
     /// Errors (never NaN) outside the law's domain.

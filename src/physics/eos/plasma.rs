@@ -105,6 +105,32 @@ pub struct Plasma {
     pub temperature_range_k: (f64, f64),
 }
 
+/// Electron coupling Gamma_e = e^2 / (a_e k T) above which the non-ideal terms matter: 1 (e.g.
+/// Chabrier & Potekhin 1998, PRE 58, 4941: the plasma is strongly coupled from Gamma ~ 1;
+/// docs/references.md §8.2). Gamma_e = 2.2747e5 (rho Y_e)^(1/3) / T (computed there).
+pub const STRONG_COUPLING_GAMMA_E: f64 = 1.0;
+
+impl Plasma {
+    /// Where this engine's laws are used beyond what they describe well: strong electron
+    /// coupling (Gamma_e > [`STRONG_COUPLING_GAMMA_E`]), which a law without the Coulomb term
+    /// neglects, and which the Coulomb term meets only in its switch-on range
+    /// ([`super::coulomb::COULOMB_T_OFF_K`] to [`super::coulomb::COULOMB_T_ON_K`]), where
+    /// `molecular` is least certain.
+    pub fn caution(&self, rho: f64, t: f64, comp: &Composition) -> Option<&'static str> {
+        let gamma_e = 2.2747e5 * (rho / comp.mu_e()).cbrt() / t;
+        if gamma_e <= STRONG_COUPLING_GAMMA_E {
+            return None;
+        }
+        if !self.coulomb {
+            Some("strongly coupled plasma (Gamma_e > 1): Coulomb (non-ideal) terms neglected")
+        } else if t > super::coulomb::COULOMB_T_OFF_K && t < super::coulomb::COULOMB_T_ON_K {
+            Some("strongly coupled plasma (Gamma_e > 1) where the Coulomb term is only partly switched on (1e5-2.5e6 K)")
+        } else {
+            None
+        }
+    }
+}
+
 /// A state together with d psi / d ln rho (used to warm-start the inversion).
 #[derive(Debug, Clone, Copy)]
 pub struct Solved {
@@ -886,6 +912,15 @@ macro_rules! plasma_law {
         impl $crate::physics::eos::EquationOfState for $law {
             fn name(&self) -> &str {
                 $engine.law
+            }
+
+            fn caution(
+                &self,
+                rho: f64,
+                t: f64,
+                comp: &$crate::physics::composition::Composition,
+            ) -> Option<&'static str> {
+                $engine.caution(rho, t, comp)
             }
 
             fn state(

@@ -26,6 +26,18 @@ pub trait Opacity: Send + Sync + std::fmt::Debug {
     /// The law's name as a user selects it, with its parameters (e.g. `kramers:guillotine=1`).
     fn name(&self) -> String;
 
+    /// A caution when (rho, T) lies where the law still returns a value but is used beyond what
+    /// it describes well (a fit outside its range, a table's edge value); `None` inside. A
+    /// model that visits such points carries the caution as a warning.
+    fn caution(
+        &self,
+        _rho_g_cm3: f64,
+        _temperature_k: f64,
+        _comp: &Composition,
+    ) -> Option<&'static str> {
+        None
+    }
+
     /// Rosseland-mean opacity kappa, cm^2 g^-1, at density `rho_g_cm3` and temperature
     /// `temperature_k`. Errors (never NaN) outside the law's domain.
     fn kappa(

@@ -166,7 +166,20 @@ pub fn hydrogen_ionised_fraction(rho: f64, t: f64, comp: &Composition) -> f64 {
     2.0 / (1.0 + (1.0 + 4.0 / s).sqrt())
 }
 
+/// The evaporation temperature of metal grains in the fit of Bell & Lin (1994),
+/// 2029.76 rho^(1/81) K (docs/references.md §8.3, computed): below it grains dominate the
+/// opacity, which this law does not include.
+pub fn grain_evaporation_k(rho: f64) -> f64 {
+    2029.76 * rho.powf(1.0 / 81.0)
+}
+
 impl Opacity for RefinedOpacity {
+    fn caution(&self, rho: f64, t: f64, _comp: &Composition) -> Option<&'static str> {
+        (t < grain_evaporation_k(rho)).then_some(
+            "below the evaporation temperature of metal grains (about 2000 K, Bell & Lin 1994): grain opacity not included",
+        )
+    }
+
     fn name(&self) -> String {
         if *self == Self::default() {
             "refined".to_string()

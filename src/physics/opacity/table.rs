@@ -323,6 +323,16 @@ fn steffen(x: &[f64], y: &[f64], i: usize, q: f64) -> f64 {
 }
 
 impl Opacity for TableOpacity {
+    fn caution(&self, rho: f64, t: f64, _comp: &Composition) -> Option<&'static str> {
+        let log_t = t.log10();
+        let log_r = rho.log10() - 3.0 * (log_t - 6.0);
+        let (t0, t1) = self.log10_t_range();
+        let (r0, r1) = self.log10_r_range();
+        let inside = (t0..=t1).contains(&log_t) && (r0..=r1).contains(&log_r);
+        (self.clamp && !inside)
+            .then_some("outside the opacity table: its nearest edge value is used")
+    }
+
     fn name(&self) -> String {
         if self.clamp {
             format!("table-clamped:{}", self.label)

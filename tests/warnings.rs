@@ -1,0 +1,70 @@
+//! Models say when they leave what their laws describe well (each law's caution) or the mass
+//! range their set has been compared with measured stars on.
+
+use starpoise::physics::eos::plasma::STRONG_COUPLING_GAMMA_E;
+use starpoise::physics::{Composition, EquationOfState, PhysicsOverrides, PhysicsSet};
+use starpoise::structure::{solve, ZamsSettings};
+
+fn model(mass: f64, overrides: &str) -> Vec<String> {
+    let mut o = PhysicsOverrides::default();
+    for item in overrides.split(';').filter(|s| !s.is_empty()) {
+        let (k, v) = item.split_once(':').unwrap();
+        o.set(k, v).unwrap();
+    }
+    let physics = PhysicsSet::from_spec(&o.resolve().unwrap()).unwrap();
+    let s = ZamsSettings::new(mass, Composition::new(0.70, 0.02).unwrap(), physics).unwrap();
+    solve(&s).unwrap().warnings
+}
+
+/// The Sun's model raises nothing; a 40 M_sun refined model is outside the compared range; the
+/// analytic set's fully ionised gas meets its photosphere below 1e4 K (hydrogen recombines
+/// there: fact of the trade); a clamped table used outside its range says so.
+#[test]
+fn warnings_name_the_law_and_where() {
+    assert!(model(1.0, "").is_empty(), "{:?}", model(1.0, ""));
+    let heavy = model(40.0, "");
+    assert!(
+        heavy.iter().any(|w| w.contains("outside 0.1-30 M_sun")),
+        "{heavy:?}"
+    );
+    let analytic = model(1.0, "preset:analytic");
+    assert!(
+        analytic
+            .iter()
+            .any(|w| w.starts_with("eos ideal") && w.contains("full ionisation")),
+        "{analytic:?}"
+    );
+    let table = concat!(env!("CARGO_MANIFEST_DIR"), "/models/demo-opacity.csv");
+    let clamped = model(1.0, &format!("opacity:table-clamped:{table}"));
+    assert!(
+        clamped
+            .iter()
+            .any(|w| w.contains("outside the opacity table")),
+        "{clamped:?}"
+    );
+}
+
+/// The electron coupling Gamma_e = 2.2747e5 (rho Y_e)^(1/3) / T (docs/references.md §8.2,
+/// computed): 0.067 at the solar centre (no caution), about 2.2 at rho = 1000 g/cm^3 and 1e6 K
+/// (strongly coupled: `refined` neglects the Coulomb terms there, `molecular` is in its
+/// switch-on range). A 0.1 M_sun star reaches such coupling (it is degenerate and cool inside).
+#[test]
+fn strong_coupling_is_flagged() {
+    use starpoise::physics::eos::{MolecularEos, RefinedEos};
+    let sun = Composition::new(0.34, 0.02).unwrap();
+    assert!(RefinedEos.caution(150.0, 1.57e7, &sun).is_none());
+    let c = Composition::new(0.70, 0.02).unwrap();
+    let gamma = 2.2747e5 * (1000.0 * (1.0 + 0.70) / 2.0f64).cbrt() / 1e6;
+    assert!(gamma > STRONG_COUPLING_GAMMA_E && (gamma - 2.15).abs() < 0.05);
+    assert!(RefinedEos
+        .caution(1000.0, 1e6, &c)
+        .is_some_and(|w| w.contains("neglected")));
+    assert!(MolecularEos
+        .caution(1000.0, 1e6, &c)
+        .is_some_and(|w| w.contains("partly switched on")));
+    let low = model(0.1, "");
+    assert!(
+        low.iter().any(|w| w.contains("strongly coupled")),
+        "{low:?}"
+    );
+}

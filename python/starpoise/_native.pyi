@@ -80,6 +80,8 @@ class Star:
     """Energy conservation residual |integral of eps dm / L - 1|."""
     rhs_evaluations: int
     """Right-hand-side evaluations spent on the solve."""
+    warnings: list[str]
+    """Cautions about the converged model (e.g. a law used outside its table), in words."""
 
     @property
     def meta(self) -> dict[str, Any]:

@@ -79,6 +79,7 @@ fn polytrope_profile(n: usize) -> Vec<ProfileRow> {
             brunt_n2_rad2_s2: 0.0,
             lamb_l1_rad_s: 0.0,
             lamb_l2_rad_s: 0.0,
+            ..ProfileRow::default()
         });
     }
     rows

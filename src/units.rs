@@ -12,7 +12,7 @@
 
 /// Name endings and their units. A key ends in at most one of these; the longest match wins
 /// (`_erg_g_s` before `_s`).
-pub const UNIT_SUFFIXES: [(&str, &str); 19] = [
+pub const UNIT_SUFFIXES: [(&str, &str); 22] = [
     ("_msun", "solMass"),
     ("_rsun", "solRad"),
     ("_lsun", "solLum"),
@@ -28,6 +28,9 @@ pub const UNIT_SUFFIXES: [(&str, &str); 19] = [
     ("_cm2_g", "cm2 / g"),
     ("_erg_g_s", "erg / (g s)"),
     ("_erg_g_k", "erg / (g K)"),
+    ("_erg_g", "erg / g"),
+    ("_cm_s", "cm / s"),
+    ("_cm_s2", "cm / s2"),
     ("_rad_s", "rad / s"),
     ("_rad2_s2", "rad2 / s2"),
     // log10 of a quantity in cm s^-2 (`log_g_cgs`): astropy's logarithmic unit.
@@ -55,7 +58,7 @@ mod tests {
     /// Every key of the profile, the summary and the sequence table that is a pure number or
     /// text by definition. A new key with a unit ending that [`UNIT_SUFFIXES`] lacks would get
     /// no unit silently; this list makes such a key fail the test instead.
-    const UNITLESS: [&str; 38] = [
+    const UNITLESS: [&str; 44] = [
         // profile
         "m_over_M",
         "r_over_R",
@@ -65,6 +68,12 @@ mod tests {
         "convective",
         "mu",
         "gamma1",
+        "chi_rho",
+        "chi_t",
+        "structure_v",
+        "structure_u",
+        "structure_c1",
+        "structure_a_star",
         // summary
         "central_degeneracy",
         "convective_core_mass_fraction",
@@ -131,5 +140,9 @@ mod tests {
         assert_eq!(unit_of("log_g_cgs"), "dex(cm / s2)");
         assert_eq!(unit_of("dlog_radius_dex"), "dex");
         assert_eq!(unit_of("nabla_ad"), "");
+        assert_eq!(unit_of("sound_speed_cm_s"), "cm / s");
+        assert_eq!(unit_of("gravity_cm_s2"), "cm / s2");
+        assert_eq!(unit_of("potential_erg_g"), "erg / g");
+        assert_eq!(unit_of("specific_entropy_erg_g_k"), "erg / (g K)");
     }
 }

@@ -97,6 +97,7 @@ fn polytrope_rows(n: usize) -> Vec<ProfileRow> {
                 brunt_n2_rad2_s2: 0.0,
                 lamb_l1_rad_s: 0.0,
                 lamb_l2_rad_s: 0.0,
+                ..ProfileRow::default()
             }
         })
         .collect()
@@ -518,11 +519,12 @@ fn bad_tables_name_file_and_line() {
         assert!(reason.contains(wanted), "{name}: {reason}");
     }
     // A profile row that does not parse.
-    let mut text = starpoise::structure::PROFILE_COLUMNS.join(",");
+    let columns = starpoise::structure::PROFILE_COLUMNS;
+    let mut text = columns.join(",");
     text.push('\n');
-    text.push_str(&["1"; 20].join(","));
+    text.push_str(&vec!["1"; columns.len()].join(","));
     text.push('\n');
-    text.push_str(&["x"; 20].join(","));
+    text.push_str(&vec!["x"; columns.len()].join(","));
     text.push('\n');
     let path = dir.join("broken-profile.csv");
     std::fs::write(&path, text).unwrap();

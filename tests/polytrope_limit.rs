@@ -47,6 +47,8 @@ impl Polytropic {
             hydrogen_ionised: 1.0,
             helium_single: 0.0,
             helium_double: 1.0,
+            // u = P / ((gamma - 1) rho), the energy of a gas of constant gamma.
+            specific_energy_erg_g: self.n * self.k * rho.powf(gamma - 1.0),
         }
     }
 }

@@ -81,7 +81,7 @@ class Star:
     rhs_evaluations: int
     """Right-hand-side evaluations spent on the solve."""
     warnings: list[str]
-    """Cautions about the converged model (e.g. a law used outside its table), in words."""
+    """Where the model leaves what its laws describe well (empty when nowhere)."""
 
     @property
     def meta(self) -> dict[str, Any]:
@@ -96,7 +96,8 @@ class Star:
     def summary(self) -> dict[str, Any]:
         """Every key of `starpoise zams --format json` with the same value."""
     def profile(self, points: int = 400) -> Table:
-        """The profile on `points` rows (10 to 100000), centre first."""
+        """The profile on `points` rows (10 to 100000): the centre (r = 0) first, the
+        photosphere last, on the balanced grid (see README, `--grid auto`)."""
     def __getattr__(self, name: str) -> Any: ...
 
 def zams(

@@ -11,8 +11,8 @@ use starpoise::output::zams::{
 };
 use starpoise::output::TableFormat;
 use starpoise::physics::PhysicsSet;
-use starpoise::structure::DEFAULT_PROFILE_POINTS;
 use starpoise::structure::{profile::check_profile_points, solve, ZamsSettings};
+use starpoise::structure::{ProfileGrid, DEFAULT_PROFILE_POINTS};
 use starpoise::{Error, Result};
 use std::path::PathBuf;
 
@@ -55,6 +55,11 @@ pub struct ZamsArgs {
     /// Number of profile rows [default: 400; range 10 to 100000].
     #[arg(long, value_name = "K", value_parser = values::profile_points, allow_hyphen_values = true)]
     points: Option<usize>,
+    /// Where the profile's rows go: auto (balanced between the integrator's steps, equal
+    /// radius and equal mass), radius (uniform in r) or mass (uniform in m); centre first,
+    /// photosphere last.
+    #[arg(long, value_enum, default_value_t = GridArg::Auto)]
+    grid: GridArg,
     /// Read the model's settings from this JSON model file; flags override it.
     #[arg(long, value_name = "FILE")]
     model: Option<PathBuf>,
@@ -82,6 +87,27 @@ pub enum ProfileFileFormat {
     Json,
     /// ECSV 1.0 (astropy's Enhanced CSV, with units and metadata).
     Ecsv,
+}
+
+/// The profile grid (see [`ProfileGrid`]).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum GridArg {
+    /// Balanced: a third each of equal steps in r/R, in m/M and in the integrator's steps.
+    Auto,
+    /// Uniform in radius, for codes on a radial grid.
+    Radius,
+    /// Uniform in mass, for particle codes.
+    Mass,
+}
+
+impl From<GridArg> for ProfileGrid {
+    fn from(g: GridArg) -> Self {
+        match g {
+            GridArg::Auto => ProfileGrid::Auto,
+            GridArg::Radius => ProfileGrid::Radius,
+            GridArg::Mass => ProfileGrid::Mass,
+        }
+    }
 }
 
 impl From<ProfileFileFormat> for TableFormat {
@@ -166,7 +192,7 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         Err(e) => return Err(e),
     };
     if args.profile.is_some() || args.plot.is_some() {
-        let rows = model.profile(points)?;
+        let rows = model.profile_on(args.grid.into(), points)?;
         if let Some(path) = &args.profile {
             let format = args
                 .profile_format

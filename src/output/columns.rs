@@ -85,7 +85,7 @@ pub fn units_json(columns: &[Column]) -> serde_json::Value {
 /// The columns of a ZAMS profile, in the order of [`crate::structure::PROFILE_COLUMNS`].
 pub fn profile_columns() -> Vec<Column> {
     use DataType::{Float64, UInt8};
-    let table: [(&str, DataType, &str); 20] = [
+    let table: [(&str, DataType, &str); 34] = [
         ("mass_g", Float64, "mass inside the shell"),
         ("m_over_M", Float64, "m / M"),
         ("radius_cm", Float64, "radius"),
@@ -126,6 +126,48 @@ pub fn profile_columns() -> Vec<Column> {
             Float64,
             "Lamb frequency S_2 = sqrt(6) c_s / r",
         ),
+        (
+            "sound_speed_cm_s",
+            Float64,
+            "adiabatic sound speed sqrt(Gamma_1 P / rho)",
+        ),
+        ("chi_rho", Float64, "(dln P / dln rho)_T"),
+        ("chi_t", Float64, "(dln P / dln T)_rho"),
+        (
+            "specific_energy_erg_g",
+            Float64,
+            "specific internal energy, counted from the fully ionised plasma at rest",
+        ),
+        (
+            "specific_entropy_erg_g_k",
+            Float64,
+            "specific entropy, absolute (Sackur-Tetrode species plus radiation)",
+        ),
+        ("gravity_cm_s2", Float64, "local gravity G m / r^2"),
+        (
+            "potential_erg_g",
+            Float64,
+            "gravitational potential, zero at infinity",
+        ),
+        (
+            "structure_v",
+            Float64,
+            "V = -dln P / dln r = G m rho / (r P)",
+        ),
+        (
+            "structure_u",
+            Float64,
+            "U = dln m / dln r = 4 pi r^3 rho / m",
+        ),
+        ("structure_c1", Float64, "c1 = (r/R)^3 / (m/M)"),
+        (
+            "structure_a_star",
+            Float64,
+            "A* = (1/Gamma_1) dln P/dln r - dln rho/dln r = r N^2 / g",
+        ),
+        ("x", Float64, "hydrogen mass fraction X"),
+        ("y", Float64, "helium mass fraction Y"),
+        ("z", Float64, "metal mass fraction Z"),
     ];
     table
         .iter()

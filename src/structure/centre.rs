@@ -30,6 +30,54 @@ pub struct CentreStart {
     pub y0: State,
     /// Local physics at the centre itself (P_c, T_c).
     pub centre: LocalPhysics,
+    /// ln P_c and ln T_c, cgs.
+    ln_pc: f64,
+    ln_tc: f64,
+}
+
+/// The structure by the centre series at one mass (see the module documentation).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SeriesPoint {
+    /// Radius, cm.
+    pub radius_cm: f64,
+    /// Pressure, dyn cm^-2.
+    pub pressure_dyn_cm2: f64,
+    /// Temperature, K.
+    pub temperature_k: f64,
+    /// Luminosity eps_c m, erg s^-1.
+    pub luminosity_erg_s: f64,
+}
+
+impl CentreStart {
+    /// Central pressure, dyn cm^-2.
+    pub fn pressure_dyn_cm2(&self) -> f64 {
+        self.ln_pc.exp()
+    }
+
+    /// Central temperature, K.
+    pub fn temperature_k(&self) -> f64 {
+        self.ln_tc.exp()
+    }
+
+    /// The series at mass `mass_g` (0 <= m <= m0, where its neglected terms stay below
+    /// 1e-13 relative; the centre itself at m = 0).
+    pub fn series(&self, mass_g: f64) -> SeriesPoint {
+        series(&self.centre, self.ln_pc, self.ln_tc, mass_g)
+    }
+}
+
+/// The series at mass `m` from the central values: r, P, ln T, L.
+fn series(centre: &LocalPhysics, ln_pc: f64, ln_tc: f64, m: f64) -> SeriesPoint {
+    let rho_c = centre.eos.density_g_cm3;
+    let pc = ln_pc.exp();
+    let p = pc
+        - 3.0 * G_CGS / (8.0 * PI) * (4.0 * PI * rho_c / 3.0).powf(4.0 / 3.0) * m.powf(2.0 / 3.0);
+    SeriesPoint {
+        radius_cm: (3.0 * m / (4.0 * PI * rho_c)).cbrt(),
+        pressure_dyn_cm2: p,
+        temperature_k: (ln_tc + centre.nabla * (p.ln() - ln_pc)).exp(),
+        luminosity_erg_s: centre.rate.total_erg_g_s() * m,
+    }
 }
 
 /// Series start at m0 = [`CENTRE_START_MASS_FRACTION`] M for central pressure e^`ln_pc` and
@@ -68,8 +116,7 @@ pub fn start(ctx: &LegContext, ln_pc: f64, ln_tc: f64) -> LegResult<CentreStart>
         near: Some(&eos),
     };
     let centre = local_physics(ctx.physics, ctx.composition, &point).map_err(physics)?;
-    let p0 = pc
-        - 3.0 * G_CGS / (8.0 * PI) * (4.0 * PI * rho_c / 3.0).powf(4.0 / 3.0) * m0.powf(2.0 / 3.0);
+    let p0 = series(&centre, ln_pc, ln_tc, m0).pressure_dyn_cm2;
     if p0 <= 0.0 || eps_c <= 0.0 {
         return Err(error(LegCause::InvalidStart(format!(
             "no valid centre for P_c = {pc:.4e}, T_c = {tc:.4e} (eps_c = {eps_c:.3e})"
@@ -89,5 +136,7 @@ pub fn start(ctx: &LegContext, ln_pc: f64, ln_tc: f64) -> LegResult<CentreStart>
         x0: CENTRE_START_MASS_FRACTION.ln(),
         y0,
         centre,
+        ln_pc,
+        ln_tc,
     })
 }

@@ -133,24 +133,31 @@ pub fn local_physics(
     comp: &Composition,
     point: &Point,
 ) -> Result<LocalPhysics, PhysicsError> {
+    let (p, t) = (point.pressure_dyn_cm2, point.temperature_k);
+    let eos = match point.near {
+        Some(n) => physics.eos().state_at_pressure_near(p, t, comp, n)?,
+        None => physics.eos().state_at_pressure(p, t, comp)?,
+    };
+    local_physics_with_eos(physics, comp, point, eos)
+}
+
+/// Evaluate every law at `point` whose equation-of-state result `eos` is known (at the
+/// point's P and T).
+#[inline]
+pub fn local_physics_with_eos(
+    physics: &PhysicsSet,
+    comp: &Composition,
+    point: &Point,
+    eos: EosState,
+) -> Result<LocalPhysics, PhysicsError> {
     let Point {
         mass_g,
         radius_cm,
         pressure_dyn_cm2,
         temperature_k,
         l_over_m,
-        near,
+        ..
     } = *point;
-    let eos = match near {
-        Some(n) => {
-            physics
-                .eos()
-                .state_at_pressure_near(pressure_dyn_cm2, temperature_k, comp, n)?
-        }
-        None => physics
-            .eos()
-            .state_at_pressure(pressure_dyn_cm2, temperature_k, comp)?,
-    };
     let rho = eos.density_g_cm3;
     let opacity = physics.opacity().kappa(rho, temperature_k, comp)?;
     let rate = physics.rates().rate(rho, temperature_k, comp)?;

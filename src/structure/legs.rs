@@ -562,6 +562,29 @@ impl LegSolution {
         xs
     }
 
+    /// Number of accepted steps.
+    pub fn step_count(&self) -> usize {
+        self.steps.len()
+    }
+
+    /// The index of the step that holds `x` (the first or last step outside the integrated
+    /// range); 0 for an empty solution.
+    pub fn step_of(&self, x: f64) -> usize {
+        self.steps
+            .partition_point(|s| s.x_end < x)
+            .min(self.steps.len().saturating_sub(1))
+    }
+
+    /// The interval (x_start, x_end) of step `i`.
+    pub fn step_interval(&self, i: usize) -> Option<(f64, f64)> {
+        self.steps.get(i).map(|s| (s.x_start, s.x_end))
+    }
+
+    /// The state at `x` by the dense output of step `i` (extrapolated outside its interval).
+    pub fn at_step(&self, i: usize, x: f64) -> Option<State> {
+        self.steps.get(i).map(|s| s.dense.evaluate(x))
+    }
+
     /// The state at `x` by the dense output of the step that holds it (the first or last step
     /// for a point outside the integrated range, which is then extrapolated).
     pub fn at(&self, x: f64) -> Option<State> {

@@ -12,6 +12,7 @@ pub mod legs;
 pub mod limits;
 pub mod model;
 pub mod profile;
+pub mod profile_mesh;
 pub mod shooting;
 pub mod summary;
 pub mod surface;
@@ -24,7 +25,7 @@ use equations::Scales;
 pub use error::{LegCause, LegError, LegName, NotConverged};
 use legs::LegContext;
 pub use model::{SolveStats, ZamsModel};
-pub use profile::{ProfileRow, DEFAULT_PROFILE_POINTS, PROFILE_COLUMNS};
+pub use profile::{ProfileGrid, ProfileRow, DEFAULT_PROFILE_POINTS, PROFILE_COLUMNS};
 pub use shooting::Unknowns;
 pub use summary::{ModelSummary, SummaryField};
 

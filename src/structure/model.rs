@@ -3,7 +3,7 @@
 
 use super::equations::{INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL};
 use super::legs::{Cautions, LegContext};
-use super::profile::{self, ProfileRow};
+use super::profile::{self, ProfileGrid, ProfileRow};
 use super::shooting::{LegEnds, Unknowns};
 use super::summary::ModelSummary;
 use super::{centre, surface, ZamsSettings};
@@ -112,10 +112,16 @@ impl ZamsModel {
         &self.settings
     }
 
-    /// The profile on `points` rows (see [`profile::check_profile_points`]), centre first,
-    /// spread like the integrator's steps; integrated at the tolerance the solve converged with,
-    /// so that the legs meet as well as the solution's did.
+    /// The profile on `points` rows (see [`profile::check_profile_points`]) on the balanced
+    /// grid ([`ProfileGrid::Auto`]): [`ZamsModel::profile_on`] with that grid.
     pub fn profile(&self, points: usize) -> Result<Vec<ProfileRow>> {
+        self.profile_on(ProfileGrid::Auto, points)
+    }
+
+    /// The profile on `points` rows (see [`profile::check_profile_points`]) placed by `grid`,
+    /// the centre (r = 0) first and the photosphere last; integrated at the tolerance the solve
+    /// converged with, so that the legs meet as well as the solution's did.
+    pub fn profile_on(&self, grid: ProfileGrid, points: usize) -> Result<Vec<ProfileRow>> {
         let points = profile::check_profile_points(points)?;
         let mut ctx = self.settings.context();
         ctx.tolerance = self.stats.tolerance;
@@ -123,6 +129,7 @@ impl ZamsModel {
             &ctx,
             &self.unknowns,
             self.fit_mass_fraction(),
+            grid,
             points,
         )?)
     }
@@ -190,6 +197,7 @@ pub(crate) fn build(
             ctx,
             &u,
             settings.fit_mass_fraction(),
+            ProfileGrid::Auto,
             profile::DEFAULT_PROFILE_POINTS,
         )?;
         profile::convective_extent(&rows)

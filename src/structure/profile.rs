@@ -1,16 +1,19 @@
-//! The profile of a converged model: rows on a mesh spread like the integrator's own steps
-//! (dense where the solution changes fast), centre first, photosphere last.
+//! The profile of a converged model: one row per place on the star, centre (r = 0) first,
+//! photosphere last, on a grid of the user's choice ([`ProfileGrid`]), each row a full
+//! evaluation of the local physics on the model's own fine solution
+//! ([`super::profile_mesh`]: both legs integrated once more with their dense output kept).
 
-use super::equations::{local_physics, Point, State, LN_P, LN_R, LN_T, LUM};
-use super::error::LegError;
-use super::legs::{Leg, LegContext, LegResult, LegRunner, LegSolution};
+use super::equations::{local_physics_with_eos, LocalPhysics, Point};
+use super::legs::{LegContext, LegResult};
 use super::model::{convective_zones, extent_from_zones};
+pub use super::profile_mesh::ProfileGrid;
+use super::profile_mesh::{FineSolution, Place, Structure};
 use super::shooting::Unknowns;
-use super::{centre, surface};
 use crate::constants::G_CGS;
 use crate::error::{Error, Result};
-use crate::physics::EosState;
+use crate::physics::{Composition, EosState};
 use serde::{Deserialize, Serialize};
+use std::f64::consts::PI;
 
 /// Default number of profile rows.
 pub const DEFAULT_PROFILE_POINTS: usize = 400;
@@ -31,8 +34,12 @@ pub fn check_profile_points(n: usize) -> Result<usize> {
     }
 }
 
-/// One row of a ZAMS profile, centre first. CSV columns appear in this order.
-#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+/// One row of a ZAMS profile, centre first. CSV columns appear in this order. The first row is
+/// the centre itself (m = r = L = 0, the central P, T, rho and the local physics there), the
+/// last the photosphere (r = R, T = T_eff). Unless said otherwise a column is the local value
+/// from the model's laws at the row's (P, T) (the structure variables are the model's fine
+/// solution read at that place).
+#[derive(Debug, Clone, Copy, PartialEq, Default, Serialize, Deserialize)]
 pub struct ProfileRow {
     /// Mass inside the shell, g.
     pub mass_g: f64,
@@ -48,7 +55,7 @@ pub struct ProfileRow {
     pub pressure_dyn_cm2: f64,
     /// Temperature, K.
     pub temperature_k: f64,
-    /// Density, g cm^-3.
+    /// Density, g cm^-3 (the equation of state at P, T).
     pub density_g_cm3: f64,
     /// Luminosity through the shell, erg s^-1.
     pub luminosity_erg_s: f64,
@@ -58,7 +65,7 @@ pub struct ProfileRow {
     pub eps_cno_erg_g_s: f64,
     /// Rosseland-mean opacity, cm^2 g^-1.
     pub opacity_cm2_g: f64,
-    /// Radiative gradient.
+    /// Radiative gradient (at the centre with L/m = eps_c).
     pub nabla_rad: f64,
     /// Adiabatic gradient.
     pub nabla_ad: f64,
@@ -68,19 +75,58 @@ pub struct ProfileRow {
     pub convective: u8,
     /// Mean molecular weight of the gas.
     pub mu: f64,
-    /// First adiabatic exponent.
+    /// First adiabatic exponent Gamma_1 = (dln P / dln rho)_s.
     pub gamma1: f64,
     /// Brunt–Väisälä frequency squared N^2 = g^2 rho delta (nabla_ad - nabla) / P, rad^2 s^-2
-    /// (homogeneous composition, so no composition-gradient term).
+    /// (homogeneous composition, so no composition-gradient term); 0 at the centre (g = 0).
     pub brunt_n2_rad2_s2: f64,
-    /// Lamb frequency S_1 = sqrt(2) c_s / r, rad s^-1, with c_s^2 = Gamma_1 P / rho.
+    /// Lamb frequency S_1 = sqrt(2) c_s / r, rad s^-1; infinite at the centre, written NaN
+    /// there (null in JSON).
     pub lamb_l1_rad_s: f64,
-    /// Lamb frequency S_2 = sqrt(6) c_s / r, rad s^-1.
+    /// Lamb frequency S_2 = sqrt(6) c_s / r, rad s^-1; NaN at the centre as S_1.
     pub lamb_l2_rad_s: f64,
+    /// Adiabatic sound speed c_s = sqrt(Gamma_1 P / rho), cm s^-1.
+    pub sound_speed_cm_s: f64,
+    /// chi_rho = (dln P / dln rho)_T, from the equation of state.
+    pub chi_rho: f64,
+    /// chi_T = (dln P / dln T)_rho, from the equation of state.
+    pub chi_t: f64,
+    /// Specific internal energy u, erg g^-1, from the equation of state
+    /// ([`EosState::specific_energy_erg_g`]): counted from the fully ionised plasma at rest, so
+    /// u = (3/2) P_gas/rho + a T^4/rho where ionisation is complete, and negative where enough
+    /// electrons are bound.
+    pub specific_energy_erg_g: f64,
+    /// Specific entropy s, erg g^-1 K^-1, from the equation of state
+    /// ([`crate::physics::EquationOfState::specific_entropy_erg_g_k`]): absolute (Sackur–Tetrode
+    /// species with the law's statistical weights, nuclear spin left out, plus radiation);
+    /// NaN (null in JSON) for a law that gives none (only laws supplied from outside).
+    pub specific_entropy_erg_g_k: f64,
+    /// Local gravity g = G m / r^2, cm s^-2; 0 at the centre.
+    pub gravity_cm_s2: f64,
+    /// Gravitational potential Phi, erg g^-1, zero at infinity: Phi = -G m/r - G int_m^M dm'/r,
+    /// so dPhi/dr = g and Phi = -G M / R at the photosphere (the ~1e-11 M above it taken at R);
+    /// integrated on the fine solution ([`super::profile_mesh`]).
+    pub potential_erg_g: f64,
+    /// V = -dln P / dln r = G m rho / (r P) (Unno et al. 1989, §18.1); 0 at the centre (as r^2).
+    pub structure_v: f64,
+    /// U = dln m / dln r = 4 pi r^3 rho / m; 3 at the centre.
+    pub structure_u: f64,
+    /// c1 = (r/R)^3 / (m/M); rho_mean / rho_c at the centre (rho_mean = 3M / (4 pi R^3)).
+    pub structure_c1: f64,
+    /// A* = (1/Gamma_1) dln P/dln r - dln rho/dln r = r N^2 / g, computed as
+    /// V delta (nabla_ad - nabla) (equal for a homogeneous star, by 1/chi_rho - 1/Gamma_1 =
+    /// delta nabla_ad); 0 at the centre (as r^2).
+    pub structure_a_star: f64,
+    /// Hydrogen mass fraction X (uniform in a ZAMS star).
+    pub x: f64,
+    /// Helium mass fraction Y.
+    pub y: f64,
+    /// Metal mass fraction Z.
+    pub z: f64,
 }
 
 /// CSV header of a profile: the fixed column names, in order.
-pub const PROFILE_COLUMNS: [&str; 20] = [
+pub const PROFILE_COLUMNS: [&str; 34] = [
     "mass_g",
     "m_over_M",
     "radius_cm",
@@ -101,74 +147,86 @@ pub const PROFILE_COLUMNS: [&str; 20] = [
     "brunt_n2_rad2_s2",
     "lamb_l1_rad_s",
     "lamb_l2_rad_s",
+    "sound_speed_cm_s",
+    "chi_rho",
+    "chi_t",
+    "specific_energy_erg_g",
+    "specific_entropy_erg_g_k",
+    "gravity_cm_s2",
+    "potential_erg_g",
+    "structure_v",
+    "structure_u",
+    "structure_c1",
+    "structure_a_star",
+    "x",
+    "y",
+    "z",
 ];
 
-/// Points at which to record a leg: `count` values of x spread like the integrator's own steps
-/// (dense where the solution changes fast), always including both ends.
-fn mesh_like_steps(steps: &[f64], count: usize) -> Vec<f64> {
-    let n = steps.len();
-    if n < 2 || count < 2 {
-        return steps.to_vec();
-    }
-    (0..count)
-        .map(|j| {
-            let s = j as f64 * (n - 1) as f64 / (count - 1) as f64;
-            let i = (s.floor() as usize).min(n - 2);
-            let f = s - i as f64;
-            steps[i] + f * (steps[i + 1] - steps[i])
-        })
-        .collect()
-}
-
+/// The row at `s` with the local physics `local` and the specific entropy `entropy` there.
 fn row(
     ctx: &LegContext,
-    leg: Leg,
-    x: f64,
-    y: &State,
-    radius_cm: f64,
-    near: Option<&EosState>,
-) -> LegResult<(ProfileRow, EosState)> {
-    let (m, _) = leg.mass_and_jacobian(x, ctx.total_mass_g);
-    let r = y[LN_R].exp();
-    let p = y[LN_P].exp();
-    let t = y[LN_T].exp();
-    let l = leg.luminosity_form(ctx).luminosity_erg_s(y[LUM]);
-    let point = Point {
-        mass_g: m,
-        radius_cm: r,
-        pressure_dyn_cm2: p,
-        temperature_k: t,
-        l_over_m: l / m,
-        near,
+    fine: &FineSolution,
+    s: &Structure,
+    local: &LocalPhysics,
+    entropy: Option<f64>,
+) -> ProfileRow {
+    let comp: &Composition = ctx.composition;
+    let eos = &local.eos;
+    let (m, r, p) = (s.mass_g, s.radius_cm, s.pressure_dyn_cm2);
+    let (m_total, radius) = (ctx.total_mass_g, fine.radius_cm);
+    let rho = eos.density_g_cm3;
+    let cs = (eos.gamma1 * p / rho).sqrt();
+    let superadiabatic = eos.delta * (eos.nabla_ad - local.nabla);
+    let centre = m <= 0.0 || r <= 0.0;
+    let (g, v, u, c1, lamb) = if centre {
+        let rho_mean = 3.0 * m_total / (4.0 * PI * radius.powi(3));
+        (0.0, 0.0, 3.0, rho_mean / rho, f64::NAN)
+    } else {
+        (
+            G_CGS * m / (r * r),
+            G_CGS * m * rho / (r * p),
+            4.0 * PI * r.powi(3) * rho / m,
+            (r / radius).powi(3) / (m / m_total),
+            cs / r,
+        )
     };
-    let local = local_physics(ctx.physics, ctx.composition, &point)
-        .map_err(|e| leg.error(x, ctx.total_mass_g, super::error::LegCause::Physics(e)))?;
-    let rho = local.eos.density_g_cm3;
-    let g = G_CGS * m / (r * r);
-    let cs = (local.eos.gamma1 * p / rho).sqrt();
-    let r_row = ProfileRow {
+    ProfileRow {
         mass_g: m,
-        m_over_m: m / ctx.total_mass_g,
+        m_over_m: m / m_total,
         radius_cm: r,
-        r_over_r: r / radius_cm,
+        r_over_r: r / radius,
         pressure_dyn_cm2: p,
-        temperature_k: t,
+        temperature_k: s.temperature_k,
         density_g_cm3: rho,
-        luminosity_erg_s: l,
+        luminosity_erg_s: s.luminosity_erg_s,
         eps_pp_erg_g_s: local.rate.eps_pp_erg_g_s,
         eps_cno_erg_g_s: local.rate.eps_cno_erg_g_s,
         opacity_cm2_g: local.opacity_cm2_g,
         nabla_rad: local.nabla_rad,
-        nabla_ad: local.eos.nabla_ad,
+        nabla_ad: eos.nabla_ad,
         nabla: local.nabla,
         convective: u8::from(local.convective()),
-        mu: local.eos.mu,
-        gamma1: local.eos.gamma1,
-        brunt_n2_rad2_s2: g * g * rho * local.eos.delta * (local.eos.nabla_ad - local.nabla) / p,
-        lamb_l1_rad_s: 2f64.sqrt() * cs / r,
-        lamb_l2_rad_s: 6f64.sqrt() * cs / r,
-    };
-    Ok((r_row, local.eos))
+        mu: eos.mu,
+        gamma1: eos.gamma1,
+        brunt_n2_rad2_s2: g * g * rho * superadiabatic / p,
+        lamb_l1_rad_s: 2f64.sqrt() * lamb,
+        lamb_l2_rad_s: 6f64.sqrt() * lamb,
+        sound_speed_cm_s: cs,
+        chi_rho: eos.chi_rho,
+        chi_t: eos.chi_t,
+        specific_energy_erg_g: eos.specific_energy_erg_g,
+        specific_entropy_erg_g_k: entropy.unwrap_or(f64::NAN),
+        gravity_cm_s2: g,
+        potential_erg_g: s.potential_erg_g,
+        structure_v: v,
+        structure_u: u,
+        structure_c1: c1,
+        structure_a_star: v * superadiabatic,
+        x: comp.x(),
+        y: comp.y(),
+        z: comp.z(),
+    }
 }
 
 /// Mass fractions of the convective core and of the convective envelope from the profile (used
@@ -192,61 +250,114 @@ pub fn convective_extent(profile: &[ProfileRow]) -> (f64, f64) {
 }
 
 /// The profile of the model with unknowns `u` fitted at mass fraction `q`, on `total` rows
-/// spread like the integrator's steps: each leg is integrated once more, keeping every accepted
-/// step's dense output, and the rows are read off that solution.
+/// placed by `grid`: each leg is integrated once more, keeping every accepted step's dense
+/// output, and the rows are read off that solution.
 pub(crate) fn profile(
     ctx: &LegContext,
     u: &Unknowns,
     q: f64,
+    grid: ProfileGrid,
     total: usize,
 ) -> LegResult<Vec<ProfileRow>> {
-    let mut runner = LegRunner::new(*ctx)?;
-    let start = centre::start(ctx, u[0], u[1])?;
-    let top = surface::start(ctx, u[2], u[3])?;
-    let mut out_steps = Vec::new();
-    let mut in_steps = Vec::new();
-    runner.integrate(
-        Leg::Outward,
-        start.x0,
-        q.ln(),
-        start.y0,
-        Some(&mut out_steps),
-    )?;
-    runner.integrate(
-        Leg::Inward,
-        top.x0,
-        (1.0 - q).ln(),
-        top.y0,
-        Some(&mut in_steps),
-    )?;
-    let (outward, inward) = (LegSolution::new(out_steps), LegSolution::new(in_steps));
-    let (steps_out, steps_in) = (outward.step_points(), inward.step_points());
-    let share = steps_out.len() as f64 / (steps_out.len() + steps_in.len()) as f64;
-    let n_out = ((total as f64 * share).round() as usize).clamp(3, total - 3);
-    // The fitting point appears once (from the outward leg), so the inward leg gets one extra.
-    let n_in = total - n_out + 1;
-    let xs_out = mesh_like_steps(&steps_out, n_out);
-    let xs_in = mesh_like_steps(&steps_in, n_in);
-    let radius_cm = u[2].exp();
-    let mut rows = Vec::with_capacity(total);
-    let mut near = None;
-    let mut add = |leg: Leg, solution: &LegSolution, x: f64, rows: &mut Vec<ProfileRow>| {
-        // The first point is the leg's start exactly; the others come from the dense output.
-        let y = match (leg, x) {
-            (Leg::Outward, x) if x == start.x0 => start.y0,
-            (Leg::Inward, x) if x == top.x0 => top.y0,
-            _ => solution.at(x).unwrap_or(start.y0),
+    let fine = FineSolution::new(ctx, u, q)?;
+    let places = fine.places(grid, total);
+    let mut rows = Vec::with_capacity(places.len());
+    let mut history = History::default();
+    for place in places {
+        let s = fine.structure_at(place);
+        let (p, t) = (s.pressure_dyn_cm2, s.temperature_k);
+        let (local, entropy) = if place == Place::Centre {
+            let centre = fine.start.centre;
+            let entropy = ctx
+                .physics
+                .eos()
+                .specific_entropy_erg_g_k(&centre.eos, ctx.composition);
+            (centre, entropy)
+        } else {
+            let near = history.start(p, t);
+            let point = Point {
+                mass_g: s.mass_g,
+                radius_cm: s.radius_cm,
+                pressure_dyn_cm2: p,
+                temperature_k: t,
+                l_over_m: s.l_over_m,
+                near: None,
+            };
+            ctx.physics
+                .eos()
+                .state_and_entropy_at_pressure(p, t, ctx.composition, near.as_ref())
+                .and_then(|(eos, entropy)| {
+                    local_physics_with_eos(ctx.physics, ctx.composition, &point, eos)
+                        .map(|local| (local, entropy))
+                })
+                .map_err(|e| fine.error(&s, e))?
         };
-        let (r, eos) = row(ctx, leg, x, &y, radius_cm, near.as_ref())?;
-        near = Some(eos);
-        rows.push(r);
-        Ok::<(), LegError>(())
-    };
-    for &x in &xs_out {
-        add(Leg::Outward, &outward, x, &mut rows)?;
-    }
-    for &x in xs_in.iter().rev().skip(1) {
-        add(Leg::Inward, &inward, x, &mut rows)?;
+        history.push(local.eos);
+        rows.push(row(ctx, &fine, &s, &local, entropy));
     }
     Ok(rows)
+}
+
+/// The equation-of-state results of the last three rows, to start the next row's inversion
+/// rho(P, T) close to its answer.
+#[derive(Debug, Default)]
+struct History {
+    states: [Option<EosState>; 3],
+}
+
+impl History {
+    fn push(&mut self, state: EosState) {
+        self.states = [Some(state), self.states[0], self.states[1]];
+    }
+
+    /// A start for the inversion at (`p`, `t`): the last row's state with ln rho and psi
+    /// extrapolated to ln P = ln p along the rows by the parabola through the last three (the
+    /// line through two, the last state alone at first), placed at (p, t). An inversion that
+    /// starts from a nearby state extrapolates from its (P, T) to the target with the state's
+    /// chi_rho and chi_T; placed at the target, the start is the extrapolated (rho, psi)
+    /// itself. The rows lie along the star, where ln rho and psi are smooth in ln P, so the
+    /// start is off by the cube of the rows' spacing and the inversion (Newton) needs one
+    /// or two steps instead of three or four; its answer does not depend on the start
+    /// ([`crate::physics::EquationOfState::state_at_pressure_near`]).
+    fn start(&self, p: f64, t: f64) -> Option<EosState> {
+        let last = self.states[0]?;
+        let x = p.ln();
+        let points: Vec<(f64, f64, f64)> = self
+            .states
+            .iter()
+            .flatten()
+            .map(|s| {
+                (
+                    s.pressure_dyn_cm2.ln(),
+                    s.density_g_cm3.ln(),
+                    s.degeneracy_psi,
+                )
+            })
+            .collect();
+        // Lagrange weights at x through the distinct abscissae.
+        let weights: Vec<f64> = (0..points.len())
+            .map(|i| {
+                (0..points.len())
+                    .filter(|&j| j != i)
+                    .map(|j| (x - points[j].0) / (points[i].0 - points[j].0))
+                    .product()
+            })
+            .collect();
+        if !weights.iter().all(|w| w.is_finite()) {
+            return Some(last);
+        }
+        let ln_rho: f64 = points.iter().zip(&weights).map(|(q, w)| w * q.1).sum();
+        let psi = if points.iter().all(|q| q.2.is_finite()) {
+            points.iter().zip(&weights).map(|(q, w)| w * q.2).sum()
+        } else {
+            last.degeneracy_psi
+        };
+        Some(EosState {
+            density_g_cm3: ln_rho.exp(),
+            pressure_dyn_cm2: p,
+            temperature_k: t,
+            degeneracy_psi: psi,
+            ..last
+        })
+    }
 }

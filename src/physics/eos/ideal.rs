@@ -11,6 +11,10 @@ use crate::physics::composition::Composition;
 /// §13.2–13.3): chi_rho = beta, chi_T = 4 - 3 beta, delta = chi_T / chi_rho,
 /// c_V = (3/2 P_gas + 12 P_rad) / (rho T), c_P = c_V + (P / (rho T)) chi_T^2 / chi_rho,
 /// nabla_ad = (8 - 6 beta) / (32 - 24 beta - 3 beta^2) and Gamma_1 = chi_rho / (1 - chi_T nabla_ad).
+/// Specific energy u = (3/2) P_gas / rho + 3 P_rad / rho (zero: the ionised plasma at rest, as
+/// for every law); entropy: Sackur–Tetrode for the bare nuclei (H, He and metals of mass
+/// numbers 1.00782503, 4 and 16) and the electrons (weight 2), plus radiation
+/// ([`super::entropy`]).
 /// Valid for any rho > 0, T > 0 (full ionisation is assumed, not checked).
 #[derive(Debug, Clone, Copy, Default)]
 pub struct IdealGas;
@@ -44,8 +48,27 @@ impl IdealGas {
             hydrogen_ionised: 1.0,
             helium_single: 0.0,
             helium_double: 1.0,
+            specific_energy_erg_g: (1.5 * p_gas + 3.0 * p_rad) / rho,
         }
     }
+}
+
+/// The entropy of fully ionised matter with classical electrons plus radiation, erg g^-1 K^-1,
+/// at (`rho`, `t`) for composition `comp` (bare nuclei of mass numbers 1.00782503, 4 and 16,
+/// electrons of weight 2).
+fn ionised_entropy(rho: f64, t: f64, comp: &Composition) -> f64 {
+    use super::entropy::{radiation, translational, K_PER_MU};
+    use crate::constants::M_E_G;
+    use crate::physics::composition::METAL_MEAN_MASS_NUMBER;
+    let ln_n_mu = (rho / M_U_G).ln();
+    let a_z = METAL_MEAN_MASS_NUMBER;
+    let nuclei = translational(comp.x(), super::h2::H_ATOM_MASS_U, ln_n_mu, t)
+        + translational(0.25 * comp.y(), 4.0, ln_n_mu, t)
+        + translational(comp.z() / a_z, a_z, ln_n_mu, t);
+    // Classical electrons: N_e [5/2 + ln(2 n_Q,e / n_e)].
+    let n_e = comp.x() + 0.5 * comp.y() + comp.z() * (0.5 - 1.0 / a_z);
+    let electrons = translational(n_e, M_E_G / M_U_G, ln_n_mu, t) + n_e * std::f64::consts::LN_2;
+    K_PER_MU * (nuclei + electrons) + radiation(rho, t)
 }
 
 fn check_point(law: &str, rho: f64, t: f64) -> Result<(), PhysicsError> {
@@ -74,6 +97,14 @@ impl EquationOfState for IdealGas {
         (t < IDEAL_GAS_COOL_K).then_some(
             "below 1e4 K, where hydrogen recombines: the ideal gas assumes full ionisation",
         )
+    }
+
+    fn specific_entropy_erg_g_k(&self, state: &EosState, comp: &Composition) -> Option<f64> {
+        Some(ionised_entropy(
+            state.density_g_cm3,
+            state.temperature_k,
+            comp,
+        ))
     }
 
     fn state(&self, rho: f64, t: f64, comp: &Composition) -> Result<EosState, PhysicsError> {

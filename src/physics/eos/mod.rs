@@ -10,6 +10,7 @@ use crate::error::PhysicsError;
 
 pub mod coulomb;
 pub mod degenerate;
+mod entropy;
 pub mod fermi_dirac;
 pub mod h2;
 pub mod ideal;
@@ -60,6 +61,16 @@ pub struct EosState {
     pub helium_single: f64,
     /// Fraction of helium doubly ionised (He III / He).
     pub helium_double: f64,
+    /// Specific internal energy u, erg g^-1: the kinetic energy of the gas particles, the
+    /// radiation a T^4 / rho, and, in the laws that have them, the energy of the electrons
+    /// still bound (minus the ionisation energies), of H2 (minus its binding energy, plus its
+    /// rotation and vibration) and the Coulomb term. Zero point (every law): the fully
+    /// ionised plasma at rest, so that u = (3/2) P_gas / rho + a T^4 / rho wherever ionisation
+    /// is complete and the gas is ideal (non-relativistic electrons of any degeneracy included),
+    /// and u < 0 where enough electrons are bound (cool envelopes and atmospheres, by up to
+    /// (X chi_H + (Y/4)(chi_HeI + chi_HeII)) / m_u = 1.5e13 erg g^-1 for X = 0.7, plus D0/2 per
+    /// hydrogen nucleus in H2). (du/dT)_rho = c_V for every law (tests/eos_energy.rs).
+    pub specific_energy_erg_g: f64,
 }
 
 /// An equation of state.
@@ -76,6 +87,22 @@ pub trait EquationOfState: Send + Sync + std::fmt::Debug {
         _temperature_k: f64,
         _comp: &Composition,
     ) -> Option<&'static str> {
+        None
+    }
+
+    /// Specific entropy s, erg g^-1 K^-1, of the state `state` that this law returned (at its
+    /// density, temperature and, where the law has one, degeneracy), or `None` for a law that
+    /// gives no entropy (the default; every built-in law gives one).
+    ///
+    /// Zero point: the statistical (absolute, Sackur–Tetrode) entropy S = k ln W of ideal
+    /// particles counted with the statistical weights the law uses (electron spin and the
+    /// ground states of atoms and ions; nuclear spin left out, as in the tables of
+    /// thermochemistry), particles of mass A m_u (A = 1.00782503 for hydrogen, 4 for helium,
+    /// 16 for the metals, as in the laws), plus radiation 4 a T^3 / (3 rho). Consistent with
+    /// u: (ds/dT)_rho = c_V / T (tests/eos_energy.rs); the ideal monatomic gas agrees with the
+    /// standard entropies of thermochemistry (docs/references.md §10).
+    fn specific_entropy_erg_g_k(&self, state: &EosState, comp: &Composition) -> Option<f64> {
+        let _ = (state, comp);
         None
     }
 
@@ -101,6 +128,26 @@ pub trait EquationOfState: Send + Sync + std::fmt::Debug {
         comp: &Composition,
     ) -> Result<EosState, PhysicsError> {
         invert_by_newton(self, pressure_dyn_cm2, temperature_k, comp, None)
+    }
+
+    /// The state at total pressure `pressure_dyn_cm2` and temperature `temperature_k`
+    /// ([`EquationOfState::state_at_pressure_near`] with `near`, else
+    /// [`EquationOfState::state_at_pressure`]) together with its specific entropy
+    /// ([`EquationOfState::specific_entropy_erg_g_k`]), which a law may compute on the
+    /// inversion's last evaluation (the plasma laws do: a profile row costs one evaluation less).
+    fn state_and_entropy_at_pressure(
+        &self,
+        pressure_dyn_cm2: f64,
+        temperature_k: f64,
+        comp: &Composition,
+        near: Option<&EosState>,
+    ) -> Result<(EosState, Option<f64>), PhysicsError> {
+        let state = match near {
+            Some(n) => self.state_at_pressure_near(pressure_dyn_cm2, temperature_k, comp, n)?,
+            None => self.state_at_pressure(pressure_dyn_cm2, temperature_k, comp)?,
+        };
+        let entropy = self.specific_entropy_erg_g_k(&state, comp);
+        Ok((state, entropy))
     }
 
     /// As [`EquationOfState::state_at_pressure`], knowing the state `near` of a nearby point

@@ -2,7 +2,7 @@
 //! hydrogen-burning limit up: the `refined` plasma plus H2 molecules, partly ionised metals and
 //! the Coulomb correction of the ions.
 
-use super::h2::{dissociation, Dissociation};
+use super::h2::{dissociation, Dissociation, H_ATOM_MASS_U};
 use super::plasma::CHI_H_EV;
 use super::plasma::{plasma_law, Electrons, Grad, Ionisation, Plasma, StageInputs, Stages};
 use crate::constants::{EV_ERG, K_B_ERG_K};
@@ -75,10 +75,11 @@ const ENGINE: Plasma = Plasma {
 plasma_law!(MolecularEos, ENGINE);
 
 impl MolecularEos {
-    /// Specific internal energy u, erg g^-1, counted from neutral atoms at rest (the zero of
-    /// the ionisation and dissociation energies): kinetic energy of ions and electrons,
-    /// radiation, ionisation, dissociation and rotation–vibration energy, and the Coulomb term.
-    /// With P it fixes every thermodynamic derivative; used to check them.
+    /// Specific internal energy u, erg g^-1, counted from the fully ionised plasma at rest (as
+    /// [`super::EosState::specific_energy_erg_g`]): kinetic energy of ions and electrons,
+    /// radiation, the energy of the bound electrons (minus their ionisation energies), of H2
+    /// (minus D0, plus rotation and vibration), and the Coulomb term. With P it fixes every
+    /// thermodynamic derivative; used to check them.
     pub fn specific_energy_erg_g(
         &self,
         rho_g_cm3: f64,
@@ -107,6 +108,11 @@ pub(super) struct MolecularInputs {
     hydrogenic_sites: f64,
     /// Metal nuclei per m_u.
     z_ion: f64,
+    /// ln w_H2, the occupation probability of H2.
+    ln_w_h2: f64,
+    /// ln Q_H2 and d ln Q_H2 / d ln T (for the entropy).
+    ln_q: f64,
+    dln_q: f64,
 }
 
 impl MolecularInputs {
@@ -132,7 +138,16 @@ impl MolecularInputs {
             donor_factor: at_t.donor_factor,
             hydrogenic_sites: (z_e - donors).max(0.0),
             z_ion,
+            ln_w_h2: w_h2.0,
+            ln_q: d.ln_q,
+            dln_q: d.internal_energy_kt,
         }
+    }
+
+    /// Ionisation energy per m_u, erg, of the metal electrons this law binds (donors and
+    /// hydrogen-like sites), all freed: their part of the zero of u.
+    pub(super) fn ionised_energy(&self) -> f64 {
+        (CHI_H_EV * self.hydrogenic_sites + DONOR_CHI_EV * self.donors) * EV_ERG
     }
 }
 
@@ -167,6 +182,29 @@ impl MolecularAtTemperature {
 }
 
 impl StageInputs {
+    /// The entropy, in k per m_u, of what the molecular law adds to the plasma at `stages`:
+    /// H2 molecules (mass 2 m_H, internal weight Q_H2 w_H2 and the term d ln Q / d ln T), the
+    /// metals' donor sites (neutral weight w_H, ion 2) and hydrogen-like sites (bound 2 w_H,
+    /// free 1); `ln_n_mu` = ln(rho / m_u). Zero in the other laws (no molecules, metals fully
+    /// ionised).
+    pub(super) fn molecular_entropy_k(&self, stages: &Stages, ln_n_mu: f64, t: f64) -> f64 {
+        use super::entropy::{stage_mixing, translational};
+        use std::f64::consts::LN_2;
+        let m = &self.mol;
+        let ln_w_h = self.w_h.0;
+        let x_2 = 0.5 * (self.x - stages.h_atoms);
+        let molecules = if x_2 > 0.0 {
+            translational(x_2, 2.0 * H_ATOM_MASS_U, ln_n_mu, t)
+                + x_2 * (m.ln_q + m.ln_w_h2 + m.dln_q)
+        } else {
+            0.0
+        };
+        let (s_d, sigma) = (stages.donor_ionised, stages.h_sigma);
+        molecules
+            + m.donors * stage_mixing(&[(1.0 - s_d, ln_w_h), (s_d, LN_2)])
+            + m.hydrogenic_sites * stage_mixing(&[(1.0 - sigma, LN_2 + ln_w_h), (sigma, 0.0)])
+    }
+
     /// H2 / H I / H II, He, donor metals and hydrogen-like metal electrons at `psi`.
     ///
     /// With sigma = n_H II / (n_H I + n_H II) and x_at = x_H I + x_H II (per m_u), hydrogen
@@ -228,6 +266,9 @@ impl StageInputs {
         let (ne_rho, np_rho, e_rho) = grad(d_x_at.ln_rho, dl_h.ln_rho, -self.w_h.1);
         Stages {
             x_h: if x > 0.0 { x_p / x } else { sigma },
+            h_atoms: x_at,
+            h_sigma: sigma,
+            donor_ionised: s_d,
             he1: he.he1,
             he2: he.he2,
             n_e: x_p + he.n_e + m.donors * s_d + m.hydrogenic_sites * sigma,

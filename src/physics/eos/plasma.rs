@@ -46,7 +46,9 @@
 //! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho c_P / c_V
 //! (Kippenhahn & Weigert 1990, §13–14), evaluated in forms free of cancellation.
 
-use super::coulomb::{CoulombAtTemperature, CoulombTerm, Z53_HELIUM, Z53_METALS};
+use super::coulomb::{
+    coulomb_free_energy, CoulombAtTemperature, CoulombTerm, IonSpecies, Z53_HELIUM, Z53_METALS,
+};
 use super::fermi_dirac::{inverse_guess, inverse_upper_bound, ln_fermi_dirac};
 use super::molecular::{MolecularAtTemperature, MolecularInputs};
 use super::EosState;
@@ -131,13 +133,16 @@ impl Plasma {
     }
 }
 
-/// A state together with d psi / d ln rho (used to warm-start the inversion).
+/// A state together with d psi / d ln rho (used to warm-start the inversion) and, when asked
+/// for, its specific entropy.
 #[derive(Debug, Clone, Copy)]
 pub struct Solved {
     /// The state.
     pub state: EosState,
     /// d psi / d ln rho at fixed T.
     pub dpsi_dlnrho: f64,
+    /// Specific entropy, erg g^-1 K^-1 ([`Plasma::specific_entropy`]), if asked for.
+    pub entropy_erg_g_k: Option<f64>,
 }
 
 /// Everything at one (rho, T) that does not depend on psi.
@@ -167,6 +172,26 @@ struct PerTemperature {
     ln_q: f64,
 }
 
+/// The balance evaluated at one psi: what the state and the entropy are read from.
+#[derive(Clone, Copy)]
+struct AtPsi<'a> {
+    setup: &'a Setup,
+    psi: f64,
+    stages: &'a Stages,
+    el: &'a ElectronIntegrals,
+}
+
+impl<'a> AtPsi<'a> {
+    fn new(setup: &'a Setup, psi: f64, stages: &'a Stages, el: &'a ElectronIntegrals) -> Self {
+        Self {
+            setup,
+            psi,
+            stages,
+            el,
+        }
+    }
+}
+
 /// Derivatives of one quantity with respect to (psi, ln T, ln rho).
 #[derive(Debug, Clone, Copy, Default)]
 pub(super) struct Grad {
@@ -178,7 +203,14 @@ pub(super) struct Grad {
 /// Ionisation stages at one (psi, T, rho) with the derivatives of N_e, N_p and E_ion.
 #[derive(Debug, Clone, Copy)]
 pub(super) struct Stages {
+    /// Fraction of all hydrogen nuclei that is H II.
     pub(super) x_h: f64,
+    /// Hydrogen nuclei per m_u in atoms and ions (X less those in H2).
+    pub(super) h_atoms: f64,
+    /// H II / (H I + H II).
+    pub(super) h_sigma: f64,
+    /// Fraction of the donor metals ionised ([`Ionisation::Molecular`] only; else 0).
+    pub(super) donor_ionised: f64,
     pub(super) he1: f64,
     pub(super) he2: f64,
     /// Free electrons per m_u.
@@ -313,12 +345,18 @@ impl Plasma {
         at_t: Option<&CoulombAtTemperature>,
         energy: bool,
     ) -> CoulombTerm {
-        let ions = [
+        at_t.map_or_else(CoulombTerm::default, |c| {
+            c.term(rho, &Self::coulomb_ions(comp), energy)
+        })
+    }
+
+    /// The ions of the Coulomb term: H+, He++ and metals of charge 7, per m_u, with Z^(5/3).
+    fn coulomb_ions(comp: &Composition) -> IonSpecies {
+        [
             (comp.x(), 1.0),
             (0.25 * comp.y(), Z53_HELIUM),
             (comp.z() / METAL_MEAN_MASS_NUMBER, Z53_METALS),
-        ];
-        at_t.map_or_else(CoulombTerm::default, |c| c.term(rho, &ions, energy))
+        ]
     }
 
     /// As [`Plasma::setup`], with the parts that depend on T alone given.
@@ -401,37 +439,102 @@ impl Plasma {
             .filter(|g| g.is_finite())
             .unwrap_or(setup.psi_full);
         let (psi, stages, el) = self.solve_neutrality(&setup, guess)?;
-        self.finish(&setup, comp, psi, &stages, &el)
+        self.finish(&AtPsi::new(&setup, psi, &stages, &el), comp, false)
     }
 
-    /// Specific internal energy at (rho, T), erg g^-1, counted from neutral atoms at rest:
-    /// u = (3/2)(P_ion + P_e)/rho + a T^4/rho + E_ion/m_u + U_C.
+    /// Specific internal energy at (rho, T), erg g^-1, counted from the fully ionised plasma at
+    /// rest (see [`EosState::specific_energy_erg_g`]):
+    /// u = (3/2)(P_ion + P_e)/rho + a T^4/rho + (E_ion - E_ionised)/m_u + U_C.
     pub fn specific_energy(
         &self,
         rho: f64,
         t: f64,
         comp: &Composition,
     ) -> Result<f64, PhysicsError> {
-        self.check(rho, t)?;
-        let setup = self.setup(rho, t, comp)?;
-        let (_, stages, el) = self.solve_neutrality(&setup, setup.psi_full)?;
-        let p_e = setup.q * setup.kt * (2.0 / 3.0) * el.f_three_halves;
-        let p_ion = rho / M_U_G * stages.n_p * setup.kt;
-        Ok(1.5 * (p_ion + p_e) / rho
-            + A_RAD_CGS * t.powi(4) / rho
-            + stages.e_ion / M_U_G
-            + Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true).energy)
+        Ok(self.solve(rho, t, comp, None)?.state.specific_energy_erg_g)
     }
 
-    /// The full state at a solved psi, with the analytic derivatives.
+    /// Specific entropy, erg g^-1 K^-1, of `state` (its rho, T and psi), with the zero of
+    /// [`super::EquationOfState::specific_entropy_erg_g_k`]: every species of this model as an
+    /// ideal gas ([`super::entropy`]), hydrogen atoms and ions (H I weight 2 w_H, H II 1), H2
+    /// (weight Q_H2 w_H2, plus its rotation–vibration term d ln Q / d ln T), helium (He I w_He I,
+    /// He II 2 w_He II, He III 1), the metal nuclei (with, in `molecular`, their donor and
+    /// hydrogen-like electrons as two-stage sites), the electrons, radiation, and the Coulomb
+    /// term (U_C - F_C)/T. These are the weights of the Saha and dissociation balances, so the
+    /// balances minimise the free energy this entropy belongs to and (ds/dT)_rho = c_V / T.
+    pub fn specific_entropy(
+        &self,
+        state: &EosState,
+        comp: &Composition,
+    ) -> Result<f64, PhysicsError> {
+        let (rho, t, psi) = (
+            state.density_g_cm3,
+            state.temperature_k,
+            state.degeneracy_psi,
+        );
+        self.check(rho, t)?;
+        let setup = self.setup(rho, t, comp)?;
+        let stages = self.stages(&setup.inputs, psi);
+        let el = self.integrals(psi);
+        let u_c = Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true).energy;
+        self.entropy_at(&AtPsi::new(&setup, psi, &stages, &el), comp, u_c)
+    }
+
+    /// The entropy ([`Plasma::specific_entropy`]) at a solved psi, with the Coulomb energy
+    /// `u_c` (erg g^-1) there.
+    fn entropy_at(&self, at: &AtPsi, comp: &Composition, u_c: f64) -> Result<f64, PhysicsError> {
+        let (setup, psi, stages, el) = (at.setup, at.psi, at.stages, at.el);
+        use super::entropy::{radiation, stage_mixing, translational, K_PER_MU};
+        use super::h2::H_ATOM_MASS_U;
+        use std::f64::consts::LN_2;
+        let (rho, t, inputs) = (setup.rho, setup.t, &setup.inputs);
+        let ln_n_mu = (rho / M_U_G).ln();
+        let z_ion = comp.z() / METAL_MEAN_MASS_NUMBER;
+        let (sigma, he_0) = (stages.h_sigma, (1.0 - stages.he1 - stages.he2).max(0.0));
+        let hydrogen = translational(stages.h_atoms, H_ATOM_MASS_U, ln_n_mu, t)
+            + stages.h_atoms * stage_mixing(&[(1.0 - sigma, LN_2 + inputs.w_h.0), (sigma, 0.0)]);
+        let helium = translational(inputs.y4, 4.0, ln_n_mu, t)
+            + inputs.y4
+                * stage_mixing(&[
+                    (he_0, inputs.w_he1.0),
+                    (stages.he1, LN_2 + inputs.w_he2.0),
+                    (stages.he2, 0.0),
+                ]);
+        let metals = translational(z_ion, METAL_MEAN_MASS_NUMBER, ln_n_mu, t);
+        let molecules = inputs.molecular_entropy_k(stages, ln_n_mu, t);
+        // T S_e = (5/2) P_e V - N_e k T psi, per m_u: P_e m_u / (rho k T) = (2/3) q F_3/2 m_u / rho.
+        let electrons =
+            2.5 * (2.0 / 3.0) * setup.q * el.f_three_halves * M_U_G / rho - stages.n_e * psi;
+        let coulomb = if setup.per_t.coulomb.is_some() {
+            let f_c = coulomb_free_energy(
+                rho,
+                t,
+                &Self::coulomb_ions(comp),
+                Self::electrons_fully_ionised(comp),
+            );
+            (u_c - f_c) / t
+        } else {
+            0.0
+        };
+        let s = K_PER_MU * (hydrogen + helium + metals + molecules + electrons)
+            + radiation(rho, t)
+            + coulomb;
+        if s.is_finite() {
+            Ok(s)
+        } else {
+            Err(self.error("entropy not finite", rho, t))
+        }
+    }
+
+    /// The full state at a solved psi, with the analytic derivatives, and the entropy if
+    /// `with_entropy`.
     fn finish(
         &self,
-        setup: &Setup,
+        at: &AtPsi,
         comp: &Composition,
-        psi: f64,
-        stages: &Stages,
-        el: &ElectronIntegrals,
+        with_entropy: bool,
     ) -> Result<Solved, PhysicsError> {
+        let (setup, psi, stages, el) = (at.setup, at.psi, at.stages, at.el);
         let Setup { rho, t, kt, q, .. } = *setup;
         // The inversion carried the Coulomb pressure only; the energy terms are added here.
         let coul = &Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true);
@@ -470,6 +573,11 @@ impl Plasma {
         let cp = cv + pt2 / (rho * t * chi_rho);
         let nabla_ad = p * chi_t / (rho * t * cv * chi_rho + pt2);
         let gamma1 = chi_rho + pt2 / (rho * t * cv);
+        // u counted from the fully ionised plasma at rest (see EosState).
+        let u = 1.5 * (p_ion + p_e) / rho
+            + A_RAD_CGS * t.powi(4) / rho
+            + (stages.e_ion - setup.inputs.ionised_energy()) / M_U_G
+            + coul.energy;
         let state = EosState {
             density_g_cm3: rho,
             temperature_k: t,
@@ -487,6 +595,7 @@ impl Plasma {
             hydrogen_ionised: stages.x_h,
             helium_single: stages.he1,
             helium_double: stages.he2,
+            specific_energy_erg_g: u,
         };
         let finite = [p, chi_rho, chi_t, cp, nabla_ad, gamma1]
             .iter()
@@ -498,9 +607,15 @@ impl Plasma {
                 t,
             ));
         }
+        let entropy_erg_g_k = if with_entropy {
+            self.entropy_at(at, comp, coul.energy).ok()
+        } else {
+            None
+        };
         Ok(Solved {
             state,
             dpsi_dlnrho: psi_rho,
+            entropy_erg_g_k,
         })
     }
 
@@ -560,7 +675,7 @@ impl Plasma {
         t: f64,
         comp: &Composition,
     ) -> Result<EosState, PhysicsError> {
-        self.at_pressure_from(p, t, comp, None)
+        Ok(self.at_pressure_from(p, t, comp, None, false)?.state)
     }
 
     /// As [`Plasma::at_pressure`], with the joint iteration started from the state `near` of a
@@ -574,27 +689,56 @@ impl Plasma {
         comp: &Composition,
         near: &EosState,
     ) -> Result<EosState, PhysicsError> {
-        let start = (near.density_g_cm3 > 0.0
-            && near.chi_rho > 0.0
-            && near.degeneracy_psi.is_finite())
-        .then(|| {
-            let ln_rho = near.density_g_cm3.ln()
-                + ((p / near.pressure_dyn_cm2).ln() - near.chi_t * (t / near.temperature_k).ln())
-                    / near.chi_rho;
-            (ln_rho, near.degeneracy_psi)
-        });
-        self.at_pressure_from(p, t, comp, start.filter(|(r, _)| r.is_finite()))
+        Ok(self
+            .at_pressure_from(p, t, comp, Self::start_near(p, t, near), false)?
+            .state)
+    }
+
+    /// As [`Plasma::at_pressure_near`] (from the fully ionised ideal gas without `near`),
+    /// together with the state's specific entropy ([`Plasma::specific_entropy`]; `None` if it
+    /// is not finite), computed on the inversion's last evaluation.
+    pub fn at_pressure_with_entropy(
+        &self,
+        p: f64,
+        t: f64,
+        comp: &Composition,
+        near: Option<&EosState>,
+    ) -> Result<(EosState, Option<f64>), PhysicsError> {
+        let start = near.and_then(|n| Self::start_near(p, t, n));
+        let solved = self.at_pressure_from(p, t, comp, start, true)?;
+        let entropy = solved
+            .entropy_erg_g_k
+            .or_else(|| self.specific_entropy(&solved.state, comp).ok());
+        Ok((solved.state, entropy))
+    }
+
+    /// The joint iteration's start from the state `near` of a nearby point: ln rho extrapolated
+    /// to (`p`, `t`) with its chi_rho and chi_T, and its psi.
+    fn start_near(p: f64, t: f64, near: &EosState) -> Option<(f64, f64)> {
+        (near.density_g_cm3 > 0.0 && near.chi_rho > 0.0 && near.degeneracy_psi.is_finite())
+            .then(|| {
+                let ln_rho = near.density_g_cm3.ln()
+                    + ((p / near.pressure_dyn_cm2).ln()
+                        - near.chi_t * (t / near.temperature_k).ln())
+                        / near.chi_rho;
+                (ln_rho, near.degeneracy_psi)
+            })
+            .filter(|(r, _)| r.is_finite())
     }
 
     /// The inversion, started at (ln rho, psi) = `start` if given, else from the fully ionised
-    /// ideal gas.
+    /// ideal gas; the entropy too if `with_entropy` (on the fast path; the caller computes it
+    /// after the bracketed fallback). Inlined: its callers keep only the parts of the result
+    /// they return, without copying the whole.
+    #[inline]
     fn at_pressure_from(
         &self,
         p: f64,
         t: f64,
         comp: &Composition,
         start: Option<(f64, f64)>,
-    ) -> Result<EosState, PhysicsError> {
+        with_entropy: bool,
+    ) -> Result<Solved, PhysicsError> {
         if !(p.is_finite() && p > 0.0) {
             return Err(self.error(
                 format!("pressure {p:e} dyn/cm^2 must be finite and positive"),
@@ -622,15 +766,15 @@ impl Plasma {
             .clamp(lo, hi);
         let ln_p = p.ln();
         if let Some((warm_rho, warm_psi)) = start {
-            if let Some(state) =
-                self.joint_newton(ln_p, p_rad, t, comp, warm_rho.clamp(lo, hi), Some(warm_psi))
-            {
-                return Ok(state);
+            let warm = (warm_rho.clamp(lo, hi), Some(warm_psi));
+            if let Some(solved) = self.joint_newton(ln_p, p_rad, t, comp, warm, with_entropy) {
+                return Ok(solved);
             }
         }
         let mut ln_rho = ideal;
-        if let Some(state) = self.joint_newton(ln_p, p_rad, t, comp, ln_rho, None) {
-            return Ok(state);
+        if let Some(solved) = self.joint_newton(ln_p, p_rad, t, comp, (ln_rho, None), with_entropy)
+        {
+            return Ok(solved);
         }
         // Fallback: nested iteration, slower but bracketed.
         let mut psi_guess = None;
@@ -639,7 +783,7 @@ impl Plasma {
             let s = solved.state;
             let f = s.pressure_dyn_cm2.ln() - ln_p;
             if f.abs() < 1e-12 {
-                return Ok(s);
+                return Ok(solved);
             }
             if f > 0.0 {
                 hi = ln_rho;
@@ -685,9 +829,9 @@ impl Plasma {
         p_rad: f64,
         t: f64,
         comp: &Composition,
-        ln_rho_start: f64,
-        psi_start: Option<f64>,
-    ) -> Option<EosState> {
+        (ln_rho_start, psi_start): (f64, Option<f64>),
+        with_entropy: bool,
+    ) -> Option<Solved> {
         let (rlo, rhi) = self.rho_range_g_cm3;
         let (llo, lhi) = (rlo.ln(), rhi.ln());
         let mut ln_rho = ln_rho_start;
@@ -708,9 +852,8 @@ impl Plasma {
             let r1 = p_tot.ln() - ln_p;
             if r1.abs() < 1e-12 && r2.abs() < 1e-12 {
                 return self
-                    .finish(&setup, comp, ps, &stages, &el)
-                    .ok()
-                    .map(|s| s.state);
+                    .finish(&AtPsi::new(&setup, ps, &stages, &el), comp, with_entropy)
+                    .ok();
             }
             let a11 = (p_ion * (1.0 + stages.d_n_p.ln_rho / stages.n_p) + setup.coulomb.dp_dln_rho)
                 / p_tot;
@@ -793,16 +936,26 @@ pub(super) struct HeliumStages {
 }
 
 impl StageInputs {
+    /// Ionisation energy per m_u, erg, of the fully ionised mixture (every electron this law
+    /// can bind, freed), counted like [`Stages::e_ion`] from neutral atoms: the zero of u.
+    pub(super) fn ionised_energy(&self) -> f64 {
+        (self.x * CHI_H_EV + self.y4 * (CHI_HE1_EV + CHI_HE2_EV)) * EV_ERG
+            + self.mol.ionised_energy()
+    }
+
     fn full(&self) -> Stages {
         Stages {
             x_h: 1.0,
+            h_atoms: self.x,
+            h_sigma: 1.0,
+            donor_ionised: 0.0,
             he1: 0.0,
             he2: 1.0,
             n_e: self.x + 2.0 * self.y4 + self.z_e,
             d_n_e: Grad::default(),
             n_p: self.n_ion,
             d_n_p: Grad::default(),
-            e_ion: (self.x * CHI_H_EV + self.y4 * (CHI_HE1_EV + CHI_HE2_EV)) * EV_ERG,
+            e_ion: self.ionised_energy(),
             d_e_ion: Grad::default(),
         }
     }
@@ -884,6 +1037,9 @@ impl StageInputs {
         let dxh = |d: f64| x_h * (1.0 - x_h) * d;
         Stages {
             x_h,
+            h_atoms: self.x,
+            h_sigma: x_h,
+            donor_ionised: 0.0,
             he1: he.he1,
             he2: he.he2,
             n_e: self.x * x_h + he.n_e + self.z_e,
@@ -930,6 +1086,25 @@ macro_rules! plasma_law {
                 comp: &$crate::physics::composition::Composition,
             ) -> Result<$crate::physics::eos::EosState, $crate::error::PhysicsError> {
                 Ok($engine.solve(rho, t, comp, None)?.state)
+            }
+
+            fn specific_entropy_erg_g_k(
+                &self,
+                state: &$crate::physics::eos::EosState,
+                comp: &$crate::physics::composition::Composition,
+            ) -> Option<f64> {
+                $engine.specific_entropy(state, comp).ok()
+            }
+
+            fn state_and_entropy_at_pressure(
+                &self,
+                p: f64,
+                t: f64,
+                comp: &$crate::physics::composition::Composition,
+                near: Option<&$crate::physics::eos::EosState>,
+            ) -> Result<($crate::physics::eos::EosState, Option<f64>), $crate::error::PhysicsError>
+            {
+                $engine.at_pressure_with_entropy(p, t, comp, near)
             }
 
             fn state_at_pressure(

@@ -1,6 +1,7 @@
 //! `starpoise limits`: the hydrogen-burning minimum mass for a composition and set of laws.
 
 use super::common::ModelArgs;
+use super::io::out;
 use super::Format;
 use clap::Args;
 use starpoise::output::limits::{limits_json, limits_text};
@@ -28,11 +29,10 @@ pub fn run(args: LimitsArgs) -> Result<()> {
     let physics = PhysicsSet::from_spec(&overrides.resolve()?)?;
     let limit = hydrogen_burning_limit(&comp, &physics)?;
     match args.format {
-        Format::Text => print!("{}", limits_text(&limit)),
-        Format::Json => println!(
-            "{}",
+        Format::Text => out(&limits_text(&limit)),
+        Format::Json => out(&format!(
+            "{}\n",
             to_json_text(&limits_json(&limit, &Provenance::of_this_process()))?
-        ),
+        )),
     }
-    Ok(())
 }

@@ -1,5 +1,6 @@
 //! `starpoise modes`: oscillation modes of a polytrope (dimensionless).
 
+use super::io::Files;
 use super::Format;
 use clap::Args;
 use starpoise::error::{Error, Result};
@@ -24,16 +25,16 @@ const SEPARATION_OFFSET: i32 = 3;
 #[derive(Debug, Args)]
 pub struct ModesArgs {
     /// Polytropic index n of the model, a number in [0, 5).
-    #[arg(long, allow_negative_numbers = true)]
+    #[arg(long, value_parser = super::values::number, allow_hyphen_values = true)]
     polytrope: f64,
     /// Adiabatic exponent Gamma_1, constant through the model (above 4/3).
-    #[arg(long, default_value_t = 5.0 / 3.0, allow_negative_numbers = true)]
+    #[arg(long, default_value_t = 5.0 / 3.0, value_parser = super::values::number, allow_hyphen_values = true)]
     gamma1: f64,
-    /// Spherical degrees, comma-separated.
-    #[arg(long, value_delimiter = ',', default_value = "0,1,2,3")]
+    /// Spherical degrees, comma-separated (each 0 to 1000).
+    #[arg(long, value_delimiter = ',', default_value = "0,1,2,3", value_parser = degree, allow_hyphen_values = true)]
     degrees: Vec<u32>,
-    /// Highest order: radial and p modes up to n = K, g modes down to n = -K.
-    #[arg(long, default_value_t = 25)]
+    /// Highest order: radial and p modes up to n = K, g modes down to n = -K (1 to 1000).
+    #[arg(long, default_value_t = 25, value_parser = max_order, allow_hyphen_values = true)]
     max_order: u32,
     /// Neglect the perturbation of the gravitational potential for l >= 1 (Cowling).
     #[arg(long)]
@@ -41,12 +42,30 @@ pub struct ModesArgs {
     /// Output format on stdout.
     #[arg(long, value_enum, default_value_t)]
     format: Format,
-    /// Also write every mode's eigenfunctions to this CSV file (written atomically).
-    #[arg(long, value_name = "FILE.csv")]
+    /// Also write every mode's eigenfunctions to this CSV file (written atomically; `-` for
+    /// standard output).
+    #[arg(long, value_name = "FILE.csv", allow_hyphen_values = true)]
     eigenfunctions: Option<PathBuf>,
     /// Lane–Emden profile points of the model (50 to 100000).
-    #[arg(long, default_value_t = 500)]
+    #[arg(long, default_value_t = 500, value_parser = points, allow_hyphen_values = true)]
     points: usize,
+}
+
+/// A spherical degree of `--degrees` (the range is checked with the request).
+fn degree(text: &str) -> std::result::Result<u32, String> {
+    super::values::count_in(text, 0, MAX_DEGREE as usize)
+        .map(|n| u32::try_from(n).unwrap_or(u32::MAX))
+}
+
+/// The highest order of `--max-order` (the range is checked with the request).
+fn max_order(text: &str) -> std::result::Result<u32, String> {
+    super::values::count_in(text, 1, MAX_ORDER as usize)
+        .map(|n| u32::try_from(n).unwrap_or(u32::MAX))
+}
+
+/// The Lane–Emden points of `--points`.
+fn points(text: &str) -> std::result::Result<usize, String> {
+    super::values::count_in(text, MIN_POINTS, MAX_POINTS)
 }
 
 /// A checked `modes` request.
@@ -120,9 +139,9 @@ impl TryFrom<ModesArgs> for ModesRequest {
 /// if asked, print the report.
 pub fn run(args: ModesArgs) -> Result<()> {
     let request = ModesRequest::try_from(args)?;
-    if let Some(path) = &request.eigenfunctions {
-        starpoise::output::check_output_path("--eigenfunctions", path)?;
-    }
+    let channel = Files::default()
+        .text("--eigenfunctions", request.eigenfunctions.as_deref())
+        .check()?;
     let solution = solve_lane_emden(
         request.index,
         &LaneEmdenSettings::default().with_points(request.points)?,
@@ -152,16 +171,15 @@ pub fn run(args: ModesArgs) -> Result<()> {
     };
     let report = ModesReport::new(meta, &modes, &seismic);
     match request.format {
-        Format::Text => print!("{}", report.to_text()),
+        Format::Text => channel.print(&report.to_text()),
         Format::Json => {
             let json = serde_json::to_string_pretty(&report).map_err(|e| Error::Io {
                 path: "stdout".to_string(),
                 reason: e.to_string(),
             })?;
-            println!("{json}");
+            channel.print(&format!("{json}\n"))
         }
     }
-    Ok(())
 }
 
 /// The cyclic frequency of the radial mode of order max_order - 3 (the highest radial mode if

@@ -6,7 +6,7 @@ use super::polytrope::number;
 use crate::error::Result;
 use crate::oscillation::{Mode, SeismicSummary};
 use crate::output::meta::Provenance;
-use crate::output::write_atomically;
+use crate::output::write_output;
 use serde::Serialize;
 use std::fmt::Write as _;
 use std::path::Path;
@@ -201,7 +201,7 @@ pub fn write_eigenfunctions_csv(
     modes: &[Mode],
     provenance: &Provenance,
 ) -> Result<()> {
-    write_atomically(path, |w| {
+    write_output(path, |w| {
         for line in provenance.comment_lines() {
             writeln!(w, "{line}")?;
         }

@@ -120,6 +120,14 @@ pub enum Error {
         /// How many checks failed.
         failed: usize,
     },
+    /// The reader of standard output (or of a FIFO) went away before everything was written
+    /// (e.g. `starpoise zams | head -c 5`). The command line ends quietly, as a filter ended by
+    /// SIGPIPE does.
+    #[error("{path}: the reader closed it")]
+    OutputClosed {
+        /// The output.
+        path: String,
+    },
     /// Writing an output failed.
     #[error("cannot write {path}: {reason}")]
     Io {
@@ -131,11 +139,13 @@ pub enum Error {
 }
 
 impl Error {
-    /// Shorthand for [`Error::InvalidInput`].
+    /// Shorthand for [`Error::InvalidInput`]. A number is shown in the shorter of its plain
+    /// and exponent forms (`1e-10`, not `0.0000000001`), so that the message shows the value
+    /// as a user would write it.
     pub fn invalid(name: &str, value: impl std::fmt::Display, allowed: &str) -> Self {
         Error::InvalidInput {
             name: name.to_string(),
-            value: value.to_string(),
+            value: compact_number(value.to_string()),
             allowed: allowed.to_string(),
         }
     }
@@ -152,5 +162,43 @@ impl Error {
     }
 }
 
+/// `text` in exponent form if it is a number with a fraction or more than 15 digits whose
+/// exponent form is at least two characters shorter (`1e300` for a 301-digit integer,
+/// `-1e-10` for `-0.0000000001`), else unchanged (a count such as `1000000` stays as typed).
+fn compact_number(text: String) -> String {
+    let long = text.contains('.') || text.len() > 15;
+    match text.parse::<f64>() {
+        Ok(v) if v.is_finite() && long => {
+            let exponent = format!("{v:e}");
+            if exponent.len() + 2 <= text.len() {
+                exponent
+            } else {
+                text
+            }
+        }
+        _ => text,
+    }
+}
+
 /// Result with the library's error.
 pub type Result<T, E = Error> = std::result::Result<T, E>;
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn numbers_in_messages_are_compact() {
+        let shown = |v: f64| match Error::invalid("k", v, "") {
+            Error::InvalidInput { value, .. } => value,
+            _ => unreachable!(),
+        };
+        assert_eq!(shown(-1e-10), "-1e-10");
+        assert_eq!(shown(1e300), "1e300");
+        assert_eq!(shown(0.02), "0.02");
+        assert_eq!(shown(150.0), "150");
+        assert_eq!(shown(0.001), "0.001");
+        assert_eq!(shown(1.5e-7), "1.5e-7");
+        assert_eq!(shown(1e6), "1000000");
+    }
+}

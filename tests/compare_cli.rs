@@ -210,10 +210,16 @@ fn writes_csv_and_json() {
     );
     assert!(out.status.success(), "{}", stderr(&out));
     let text = std::fs::read_to_string(&csv).unwrap();
-    let mut lines = text.lines();
+    // Metadata lines first (provenance, composition, reference, units), then a plain header.
+    assert!(text.starts_with("# program: starpoise\n"), "{text}");
+    for line in ["# x: 0.7\n", "# reference: base\n", "# units: {"] {
+        assert!(text.contains(line), "{line} missing in {text}");
+    }
+    let mut lines = text.lines().skip_while(|l| l.starts_with('#'));
     let header = lines.next().unwrap_or("");
     assert!(
-        header.starts_with("mass_msun,x,z,variant,spec,reference,status,reason,luminosity_lsun")
+        header.starts_with("mass_msun,x,y,z,variant,spec,reference,status,reason,luminosity_lsun"),
+        "{header}"
     );
     assert!(header.contains("sensitivity_central_density"));
     assert_eq!(lines.count(), 4);
@@ -225,6 +231,9 @@ fn writes_csv_and_json() {
     assert!(out.status.success(), "{}", stderr(&out));
     let doc: Value = serde_json::from_str(&std::fs::read_to_string(&js).unwrap()).unwrap();
     assert_eq!(doc["records"].as_array().map(Vec::len), Some(4));
+    assert_eq!(doc["meta"]["program"], "starpoise");
+    assert_eq!(doc["units"]["luminosity_lsun"], "solLum");
+    assert_eq!(doc["records"][0]["y"].as_f64(), Some(1.0 - 0.7 - 0.02));
     let _ = std::fs::remove_dir_all(&dir);
 }
 

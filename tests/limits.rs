@@ -38,6 +38,18 @@ fn the_limit_is_a_degenerate_turning_point_and_rises_at_low_metallicity() {
         at_solar.mass_msun
     );
     for limit in [&at_solar, &at_poor] {
+        // Either the turning point was reached, or the laws failed just before it: then the
+        // limit is the lowest mass reached, and the turning point extrapolated lies within 1.5
+        // per cent below it (the branch is flat there: dM/ds had fallen below a fifth).
+        match (&limit.stopped_by, limit.turning_point_estimate_msun) {
+            (None, estimate) => assert!(estimate.is_none()),
+            (Some(why), estimate) => {
+                assert!(!why.is_empty());
+                if let Some(m) = estimate {
+                    assert!(m < limit.mass_msun && m > 0.985 * limit.mass_msun, "{m}");
+                }
+            }
+        }
         let psi = limit.model.summary.central_degeneracy;
         assert!(psi >= 4.0, "psi_c {psi} at {} M_sun", limit.mass_msun);
         // The branch came down to the limit from above.
@@ -88,6 +100,11 @@ fn below_the_limit_is_bad_input_and_limits_prints_it() {
     let m = v["hydrogen_burning_minimum_mass_msun"].as_f64().unwrap();
     assert!((m / tabulated_refined_limit_msun(0.70, 0.02).unwrap() - 1.0).abs() < 1e-5);
     assert!(v["limiting_model"]["central_degeneracy"].as_f64().unwrap() >= 4.0);
+    assert!(
+        (v["limiting_model"]["mass_msun"].as_f64().unwrap() / m - 1.0).abs() < 1e-12,
+        "the limiting model is the model at the limit"
+    );
+    assert!(v.get("turning_point_estimate_msun").is_some() && v.get("stopped_by").is_some());
     assert_eq!(v["physics"]["eos"], "molecular");
     let out = starpoise(&["limits", "--preset", "analytic"]);
     assert_eq!(out.status.code(), Some(2));

@@ -308,8 +308,10 @@ fn hr_file_is_written_and_bad_input_leaves_none() {
     // Only the good file and no temporary left behind.
     assert_eq!(std::fs::read_dir(&dir).unwrap().count(), 1);
 
+    // A folder that does not exist is refused before drawing, as bad input.
     let err = hr_diagram(&dir.join("missing/hr.svg"), &demo_series(), "").unwrap_err();
-    assert!(matches!(err, Error::Io { .. }), "{err}");
+    assert!(matches!(err, Error::InvalidInput { .. }), "{err}");
+    assert!(err.to_string().contains("does not exist"), "{err}");
     std::fs::remove_dir_all(&dir).unwrap();
 }
 

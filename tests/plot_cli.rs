@@ -214,3 +214,29 @@ fn unknown_figure_extensions_are_refused_before_any_work() {
     assert!(!gif.exists() && !png.exists());
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+/// A profile written as ECSV (its centre row has empty Lamb frequencies) is redrawn like the
+/// CSV one.
+#[test]
+fn an_ecsv_profile_is_redrawn() {
+    let dir = scratch_dir("plot-ecsv");
+    let table = dir.join("star.ecsv");
+    let figure = dir.join("star.svg");
+    run_ok(&[
+        "zams",
+        "--mass",
+        "2",
+        "--physics",
+        "analytic",
+        "--profile",
+        table.to_str().unwrap(),
+    ]);
+    run_ok(&[
+        "plot",
+        table.to_str().unwrap(),
+        "--out",
+        figure.to_str().unwrap(),
+    ]);
+    is_svg_with(&figure, &["r / R", "nabla_ad"]);
+    let _ = std::fs::remove_dir_all(&dir);
+}

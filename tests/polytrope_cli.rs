@@ -211,7 +211,10 @@ fn profile_csv_header_and_rows() {
     ]);
     assert!(out.status.success());
     let text = std::fs::read_to_string(&file).unwrap();
-    let mut lines = text.lines();
+    // Metadata lines (provenance, index, units), then the header and the rows.
+    assert!(text.starts_with("# program: starpoise\n"), "{text}");
+    assert!(text.contains("\n# index: 3.0\n"), "{text}");
+    let mut lines = text.lines().skip_while(|l| l.starts_with('#'));
     assert_eq!(lines.next(), Some("xi,theta,dtheta_dxi"));
     assert_eq!(lines.count(), 57);
 
@@ -229,7 +232,10 @@ fn profile_csv_header_and_rows() {
     ]);
     assert!(out.status.success());
     let summary: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
-    let mut reader = csv::Reader::from_path(&file).unwrap();
+    let mut reader = csv::ReaderBuilder::new()
+        .comment(Some(b'#'))
+        .from_path(&file)
+        .unwrap();
     let header: Vec<String> = reader
         .headers()
         .unwrap()

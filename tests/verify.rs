@@ -134,7 +134,9 @@ fn command_prints_json_with_every_key() {
     let out = starpoise(&["verify", "--format", "json"]);
     assert_eq!(out.status.code(), Some(0));
     let v = json(&out);
-    let rows = v.as_array().expect("a JSON array");
+    assert_eq!(v["meta"]["program"], "starpoise");
+    assert_eq!(v["meta"]["version"], env!("CARGO_PKG_VERSION"));
+    let rows = v["checks"].as_array().expect("a JSON array of checks");
     assert_eq!(rows.len(), checks().len());
     for row in rows {
         for key in [

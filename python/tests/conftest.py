@@ -47,10 +47,14 @@ def run_cli(*args: str, cwd: Path | None = None) -> subprocess.CompletedProcess[
 
 
 def cli_json(*args: str) -> Any:
-    """The JSON the program prints for `args` (which must include --format json)."""
+    """The JSON the program prints for `args` (which must include --format json), without its
+    `meta` (the provenance, which records the command line)."""
     done = run_cli(*args)
     assert done.stdout, f"no output from {args}: {done.stderr}"
-    return json.loads(done.stdout)
+    value = json.loads(done.stdout)
+    if isinstance(value, dict):
+        value.pop("meta", None)
+    return value
 
 
 def cli_error(*args: str) -> str:

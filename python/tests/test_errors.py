@@ -34,7 +34,7 @@ INPUT_ERRORS = [
      "--rates-factor", "rates_factor"),
     (lambda: starpoise.zams(1, guess=(-1, 1e7, 1, 1)),
      ["zams", "--mass", "1", "--guess", "-1", "1e7", "1", "1"],
-     "guess central pressure (dyn/cm^2)", "guess central pressure (dyn/cm^2)"),
+     "--guess PC", "guess central pressure (dyn/cm^2)"),
     (lambda: starpoise.zams(1).profile(points=5), ["zams", "--mass", "1", "--points", "5"],
      "--points", "points"),
     (lambda: starpoise.polytrope(7), ["polytrope", "--index", "7"], "--index", "n"),

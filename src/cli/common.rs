@@ -12,10 +12,10 @@ use starpoise::Result;
 #[derive(Debug, Clone, Default, Args)]
 pub struct CompositionFlags {
     /// Hydrogen mass fraction X [default: 0.70].
-    #[arg(long, value_name = "X")]
+    #[arg(long, value_name = "X", value_parser = super::values::number, allow_hyphen_values = true)]
     pub x: Option<f64>,
     /// Metal mass fraction Z [default: 0.02].
-    #[arg(long, value_name = "Z")]
+    #[arg(long, value_name = "Z", value_parser = super::values::number, allow_hyphen_values = true)]
     pub z: Option<f64>,
 }
 
@@ -39,31 +39,31 @@ impl CompositionFlags {
 #[derive(Debug, Clone, Default, Args)]
 pub struct PhysicsFlags {
     /// Physics preset [default: refined].
-    #[arg(long, visible_alias = "physics", value_name = "SET", help = help(LawKind::Preset))]
+    #[arg(long, visible_alias = "physics", value_name = "SET", allow_hyphen_values = true, help = help(LawKind::Preset))]
     pub preset: Option<Preset>,
     /// Equation of state.
-    #[arg(long, value_name = "LAW", help = help(LawKind::Eos))]
+    #[arg(long, value_name = "LAW", allow_hyphen_values = true, help = help(LawKind::Eos))]
     pub eos: Option<EosSpec>,
     /// Opacity law.
-    #[arg(long, value_name = "LAW", help = help(LawKind::Opacity))]
+    #[arg(long, value_name = "LAW", allow_hyphen_values = true, help = help(LawKind::Opacity))]
     pub opacity: Option<OpacitySpec>,
     /// Energy generation law.
-    #[arg(long, value_name = "LAW", help = help(LawKind::Rates))]
+    #[arg(long, value_name = "LAW", allow_hyphen_values = true, help = help(LawKind::Rates))]
     pub rates: Option<RatesSpec>,
     /// Convection law.
-    #[arg(long, value_name = "LAW", help = help(LawKind::Convection))]
+    #[arg(long, value_name = "LAW", allow_hyphen_values = true, help = help(LawKind::Convection))]
     pub convection: Option<ConvectionSpec>,
     /// Mixing-length parameter alpha of mlt [default: 2.4; range 0.1-10].
-    #[arg(long, value_name = "A")]
+    #[arg(long, value_name = "A", value_parser = super::values::number, allow_hyphen_values = true)]
     pub alpha: Option<f64>,
     /// Factor multiplying the opacity [default: 1; range 1e-6-1e6].
-    #[arg(long, value_name = "F")]
+    #[arg(long, value_name = "F", value_parser = super::values::number, allow_hyphen_values = true)]
     pub opacity_factor: Option<f64>,
     /// Factor multiplying the nuclear energy generation rate [default: 1; range 1e-6-1e6].
-    #[arg(long, value_name = "F")]
+    #[arg(long, value_name = "F", value_parser = super::values::number, allow_hyphen_values = true)]
     pub rates_factor: Option<f64>,
     /// Outer boundary [default: the preset's].
-    #[arg(long, value_name = "KIND", help = help(LawKind::Atmosphere))]
+    #[arg(long, value_name = "KIND", allow_hyphen_values = true, help = help(LawKind::Atmosphere))]
     pub atmosphere: Option<AtmosphereSpec>,
 }
 

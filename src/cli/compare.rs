@@ -2,12 +2,16 @@
 //! against the first variant and the sensitivities to a varied scale factor.
 
 use super::common::{CompositionFlags, PhysicsFlags};
+use super::io::Files;
 use super::sequence::parse_variants;
 use super::Format;
 use clap::Args;
 use starpoise::grid::run::{solve_points, RunSettings};
 use starpoise::grid::{parse_value_list, Grid};
-use starpoise::output::compare::{write_table, CompareRecord, CompareTable};
+use starpoise::output::compare::{
+    table_json, write_table, CompareRecord, CompareTable, COMPARE_CONTENT,
+};
+use starpoise::output::meta::{Meta, Provenance};
 use starpoise::structure::DEFAULT_FIT_MASS_FRACTION;
 use starpoise::{Error, Result};
 use std::path::PathBuf;
@@ -19,11 +23,11 @@ const EXAMPLE: &str =
 #[derive(Debug, Args)]
 pub struct CompareArgs {
     /// Masses in M_sun: a list `1,10` or a range `FROM:TO:COUNT[:log|lin]`.
-    #[arg(long, value_name = "LIST")]
+    #[arg(long, value_name = "LIST", allow_hyphen_values = true)]
     mass: String,
     /// A physics variant NAME=SPEC (at least two; the first is the reference), e.g. base= (the
     /// base set unchanged), hot=opacity-factor:2, mlt15=alpha:1.5.
-    #[arg(long = "variant", value_name = "NAME=SPEC")]
+    #[arg(long = "variant", value_name = "NAME=SPEC", allow_hyphen_values = true)]
     variants: Vec<String>,
     /// Composition.
     #[command(flatten)]
@@ -34,11 +38,12 @@ pub struct CompareArgs {
     /// Output on stdout.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     format: Format,
-    /// Also write the records here: CSV, or JSON if the name ends in .json (atomically).
-    #[arg(long, value_name = "FILE")]
+    /// Also write the records here: CSV; JSON if the name ends in .json; ECSV if it ends in
+    /// .ecsv (atomically; `-` for standard output, as CSV).
+    #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     out: Option<PathBuf>,
-    /// Worker threads [default: one per core].
-    #[arg(long, value_name = "T", default_value_t = 0)]
+    /// Worker threads [default: 0, one per core; at most 256].
+    #[arg(long, value_name = "T", default_value_t = 0, value_parser = super::values::threads, allow_hyphen_values = true)]
     threads: usize,
 }
 
@@ -54,9 +59,6 @@ pub fn run(args: CompareArgs) -> Result<()> {
     }
     let variants = parse_variants(&args.variants)?;
     let composition = args.composition.composition(None, None)?;
-    if let Some(path) = &args.out {
-        starpoise::output::check_output_path("--out", path)?;
-    }
     let base = args.physics.overrides();
     let grid = Grid::product(
         &base,
@@ -66,29 +68,36 @@ pub fn run(args: CompareArgs) -> Result<()> {
         &[composition.z()],
         DEFAULT_FIT_MASS_FRACTION,
     )?;
+    let tables = grid.input_files();
+    let mut files = Files::default();
+    for table in &tables {
+        files.input("an opacity table of a variant", table);
+    }
+    let channel = files.text("--out", args.out.as_deref()).check()?;
     let points = grid.select(None);
     let results = solve_points(
         &grid,
         &points,
         &RunSettings {
-            threads: args.threads,
+            threads: super::values::check_threads(args.threads)?,
             tolerance: None,
         },
         &|| {},
     )?;
     let table = CompareTable::new(&grid, &masses, &results);
+    let meta = Meta::new(&Provenance::of_this_process(), COMPARE_CONTENT);
     if let Some(path) = &args.out {
-        write_table(path, &table)?;
+        write_table(path, &table, &meta)?;
     }
     match args.format {
-        Format::Text => print!("{}", text_table(&grid, &table)),
-        Format::Json => println!(
-            "{}",
-            serde_json::to_string_pretty(&table).map_err(|e| Error::Io {
+        Format::Text => channel.print(&text_table(&grid, &table))?,
+        Format::Json => channel.print(&format!(
+            "{}\n",
+            serde_json::to_string_pretty(&table_json(&table, &meta)).map_err(|e| Error::Io {
                 path: "stdout".to_string(),
                 reason: e.to_string(),
             })?
-        ),
+        ))?,
     }
     let failed = table.records.iter().filter(|r| !r.converged()).count();
     if failed > 0 {

@@ -26,13 +26,9 @@ pub fn script(shell: Shell) -> Vec<u8> {
 
 /// Run `starpoise completions`.
 pub fn run(args: &CompletionsArgs) -> Result<()> {
-    use std::io::Write;
-    let mut stdout = std::io::stdout().lock();
-    stdout
-        .write_all(&script(args.shell))
-        .and_then(|()| stdout.flush())
-        .map_err(|e| Error::Io {
-            path: "standard output".to_string(),
-            reason: e.to_string(),
-        })
+    let script = String::from_utf8(script(args.shell)).map_err(|e| Error::Io {
+        path: "standard output".to_string(),
+        reason: format!("the completion script is not UTF-8: {e}"),
+    })?;
+    super::io::out(&script)
 }

@@ -2,6 +2,7 @@
 //! for a composition and set of laws.
 
 use super::common::ModelArgs;
+use super::io::out;
 use super::Format;
 use clap::Args;
 use starpoise::oscillation::pulsational_instability_mass;
@@ -33,15 +34,14 @@ pub fn run(args: LimitsArgs) -> Result<()> {
     let limit = hydrogen_burning_limit(&comp, &physics)?;
     let pulsation = pulsational_instability_mass(&comp, &physics)?;
     match args.format {
-        Format::Text => print!("{}", limits_text(&limit, &pulsation)),
-        Format::Json => println!(
-            "{}",
+        Format::Text => out(&limits_text(&limit, &pulsation)),
+        Format::Json => out(&format!(
+            "{}\n",
             to_json_text(&limits_json(
                 &limit,
                 &pulsation,
                 &Provenance::of_this_process()
             ))?
-        ),
+        )),
     }
-    Ok(())
 }

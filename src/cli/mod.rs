@@ -5,6 +5,7 @@ mod common;
 mod compare;
 mod completions;
 mod figure;
+mod io;
 mod limits;
 mod model_file;
 mod modes;
@@ -12,6 +13,7 @@ mod plot;
 mod polytrope;
 mod probe;
 mod sequence;
+mod values;
 mod verify;
 mod zams;
 
@@ -99,6 +101,11 @@ fn flag_of(sequence: bool, compare: bool, key: &str) -> Option<&'static str> {
         "shard" => "--shard",
         "masses" if compare => "--mass",
         "files" => "FILES",
+        "guess central pressure (dyn/cm^2)" => "--guess PC",
+        "guess central temperature (K)" => "--guess TC",
+        "guess radius (R_sun)" => "--guess RSUN",
+        "guess luminosity (L_sun)" => "--guess LSUN",
+        "grid size" => "--masses x --x x --z x --variant",
         "gamma1" => "--gamma1",
         "degree" => "--degrees",
         "max_order" => "--max-order",

@@ -20,11 +20,9 @@ use std::path::Path;
 /// A model file's contents.
 #[derive(Debug, Default, Deserialize)]
 pub struct ModelFile {
-    /// Free-text name of the star (accepted so that files can label themselves).
-    #[allow(dead_code)]
+    /// Free-text name of the star (recorded in the outputs' provenance as `model_name`).
     pub name: Option<String>,
-    /// Free-text note.
-    #[allow(dead_code)]
+    /// Free-text note (recorded as `model_note`).
     pub note: Option<String>,
     /// Mass, M_sun.
     pub mass_msun: Option<f64>,
@@ -106,7 +104,16 @@ impl ModelFile {
         };
         let text = std::fs::read_to_string(path)
             .map_err(|e| bad(format!("cannot read the model file: {e}")))?;
-        let object: UniqueObject = serde_json::from_str(&text).map_err(|e| {
+        Self::from_text(&text, path)
+    }
+
+    /// Parse and check the text of a model file read from `path` (which names it in errors).
+    pub fn from_text(text: &str, path: &Path) -> Result<Self> {
+        let bad = |reason: String| Error::BadFile {
+            path: path.display().to_string(),
+            reason,
+        };
+        let object: UniqueObject = serde_json::from_str(text).map_err(|e| {
             bad(format!(
                 "not a valid model file (a JSON object with keys such as mass_msun, x, z, preset): {e}"
             ))
@@ -171,5 +178,43 @@ impl ModelFile {
             check_profile_points(n)?;
         }
         Ok(())
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use proptest::prelude::*;
+
+    #[test]
+    fn repeated_and_unknown_keys_are_refused() {
+        let p = Path::new("m.json");
+        for (text, needle) in [
+            (r#"{"mass_msun": 1, "mass_msun": 2}"#, "given twice"),
+            (r#"{"colour": 1}"#, "unknown key"),
+            (r#"{"mass_msun": -1}"#, "between"),
+            ("[]", "a JSON object"),
+        ] {
+            let e = ModelFile::from_text(text, p).unwrap_err().to_string();
+            assert!(e.contains(needle) && e.contains("m.json"), "{e}");
+        }
+        let ok = ModelFile::from_text(r#"{"name": "Lantern-T", "mass_msun": 1}"#, p).unwrap();
+        assert_eq!(ok.name.as_deref(), Some("Lantern-T"));
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(2000))]
+        /// Arbitrary text, and arbitrary values under the real keys, never panic.
+        #[test]
+        fn model_files_never_panic(
+            text in "\\PC{0,120}",
+            key in 0usize..8,
+            value in "[-0-9eE.a-z:=,\"\\[\\]{}]{0,20}",
+        ) {
+            let _ = ModelFile::from_text(&text, Path::new("m.json"));
+            let keys = ["mass_msun", "x", "z", "points", "tolerance", "opacity", "alpha", "preset"];
+            let json = format!("{{\"{}\": {value}}}", keys[key]);
+            let _ = ModelFile::from_text(&json, Path::new("m.json"));
+        }
     }
 }

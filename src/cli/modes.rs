@@ -2,6 +2,7 @@
 //! in uHz, with the quasi-adiabatic growth rates of its radial modes).
 
 use super::common::{CompositionFlags, PhysicsFlags};
+use super::io::Files;
 use super::model_file::ModelFile;
 use super::Format;
 use clap::{ArgGroup, Args};
@@ -44,15 +45,15 @@ const SEPARATION_OFFSET: i32 = 3;
 pub struct ModesArgs {
     /// Polytropic index n of a polytrope to oscillate, a number in [0, 5) (dimensionless
     /// frequencies).
-    #[arg(long, allow_negative_numbers = true, conflicts_with_all = ["mass", "model"])]
+    #[arg(long, value_parser = super::values::number, allow_hyphen_values = true, conflicts_with_all = ["mass", "model"])]
     polytrope: Option<f64>,
     /// Adiabatic exponent Gamma_1 of the polytrope, constant through it (above 4/3)
     /// [default: 5/3].
-    #[arg(long, allow_negative_numbers = true)]
+    #[arg(long, value_parser = super::values::number, allow_hyphen_values = true)]
     gamma1: Option<f64>,
     /// Mass in solar masses of a ZAMS model to oscillate, built with the composition and physics
     /// flags (frequencies also in uHz, growth rates of the radial modes).
-    #[arg(long, value_name = "MSUN")]
+    #[arg(long, value_name = "MSUN", value_parser = super::values::number, allow_hyphen_values = true)]
     mass: Option<f64>,
     #[command(flatten)]
     composition: CompositionFlags,
@@ -62,11 +63,11 @@ pub struct ModesArgs {
     /// override it.
     #[arg(long, value_name = "FILE")]
     model: Option<PathBuf>,
-    /// Spherical degrees, comma-separated.
-    #[arg(long, value_delimiter = ',', default_value = "0,1,2,3")]
+    /// Spherical degrees, comma-separated (each 0 to 1000).
+    #[arg(long, value_delimiter = ',', default_value = "0,1,2,3", value_parser = degree, allow_hyphen_values = true)]
     degrees: Vec<u32>,
-    /// Highest order: radial and p modes up to n = K, g modes down to n = -K.
-    #[arg(long, default_value_t = 25)]
+    /// Highest order: radial and p modes up to n = K, g modes down to n = -K (1 to 1000).
+    #[arg(long, default_value_t = 25, value_parser = max_order, allow_hyphen_values = true)]
     max_order: u32,
     /// Neglect the perturbation of the gravitational potential for l >= 1 (Cowling).
     #[arg(long)]
@@ -74,12 +75,13 @@ pub struct ModesArgs {
     /// Output format on stdout.
     #[arg(long, value_enum, default_value_t)]
     format: Format,
-    /// Also write every mode's eigenfunctions to this CSV file (written atomically).
-    #[arg(long, value_name = "FILE.csv")]
+    /// Also write every mode's eigenfunctions to this CSV file (written atomically; `-` for
+    /// standard output).
+    #[arg(long, value_name = "FILE.csv", allow_hyphen_values = true)]
     eigenfunctions: Option<PathBuf>,
     /// Profile points of the model: Lane–Emden points of a polytrope (50 to 100000, default
     /// 500) or profile rows of a ZAMS model (10 to 100000, default 2000).
-    #[arg(long)]
+    #[arg(long, value_parser = points, allow_hyphen_values = true)]
     points: Option<usize>,
 }
 
@@ -88,6 +90,25 @@ pub struct ModesArgs {
 enum ModelKind {
     Polytrope { index: f64, gamma1: f64 },
     Zams(Box<ZamsSettings>),
+}
+
+/// A spherical degree of `--degrees` (the range is checked with the request).
+fn degree(text: &str) -> std::result::Result<u32, String> {
+    super::values::count_in(text, 0, MAX_DEGREE as usize)
+        .map(|n| u32::try_from(n).unwrap_or(u32::MAX))
+}
+
+/// The highest order of `--max-order` (the range is checked with the request).
+fn max_order(text: &str) -> std::result::Result<u32, String> {
+    super::values::count_in(text, 1, MAX_ORDER as usize)
+        .map(|n| u32::try_from(n).unwrap_or(u32::MAX))
+}
+
+/// The points of `--points` (the range of each kind of model is checked with the request).
+fn points(text: &str) -> std::result::Result<usize, String> {
+    super::values::count_in(text, starpoise::oscillation::zams::MIN_ROWS, MAX_POINTS).map_err(|e| {
+        format!("{e} (a polytrope takes 50 to 100000 Lane–Emden points, a ZAMS model 10 to 100000 profile rows)")
+    })
 }
 
 /// A checked `modes` request.
@@ -100,6 +121,8 @@ struct ModesRequest {
     points: usize,
     format: Format,
     eigenfunctions: Option<PathBuf>,
+    /// The model file read (an input no output may replace).
+    model_file: Option<PathBuf>,
     provenance: Provenance,
 }
 
@@ -190,6 +213,7 @@ impl TryFrom<ModesArgs> for ModesRequest {
             points,
             format: args.format,
             eigenfunctions: args.eigenfunctions,
+            model_file: args.model,
             provenance,
         })
     }
@@ -199,24 +223,27 @@ impl TryFrom<ModesArgs> for ModesRequest {
 /// growth rates of its radial modes), write the eigenfunctions if asked, print the report.
 pub fn run(args: ModesArgs) -> Result<()> {
     let request = ModesRequest::try_from(args)?;
-    if let Some(path) = &request.eigenfunctions {
-        starpoise::output::check_output_path("--eigenfunctions", path)?;
+    let mut files = Files::default();
+    if let Some(path) = &request.model_file {
+        files.input("the model file (--model)", path);
     }
+    let channel = files
+        .text("--eigenfunctions", request.eigenfunctions.as_deref())
+        .check()?;
     let report = match &request.equilibrium {
         ModelKind::Polytrope { index, gamma1 } => polytrope_report(&request, *index, *gamma1)?,
         ModelKind::Zams(settings) => zams_report(&request, settings)?,
     };
     match request.format {
-        Format::Text => print!("{}", report.to_text()),
+        Format::Text => channel.print(&report.to_text()),
         Format::Json => {
             let json = serde_json::to_string_pretty(&report).map_err(|e| Error::Io {
                 path: "stdout".to_string(),
                 reason: e.to_string(),
             })?;
-            println!("{json}");
+            channel.print(&format!("{json}\n"))
         }
     }
-    Ok(())
 }
 
 /// The meta object shared by both kinds of model.

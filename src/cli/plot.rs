@@ -1,8 +1,9 @@
 //! `starpoise plot FILE.csv`: redraw a figure from a saved profile or sequence table.
 
 use super::figure::AbscissaArg;
+use super::io::{err, Files};
 use clap::Args;
-use starpoise::output::plot::{check_figure_path, hr_diagram, profile_plot, read_table, PlotInput};
+use starpoise::output::plot::{hr_diagram, profile_plot, read_table, PlotInput};
 use starpoise::{Error, Result};
 use std::path::PathBuf;
 
@@ -13,7 +14,7 @@ pub struct PlotArgs {
     #[arg(value_name = "FILE.csv")]
     input: PathBuf,
     /// The figure to write, SVG or PNG by its extension [default: the input's name with .svg].
-    #[arg(long, value_name = "FILE.svg|FILE.png")]
+    #[arg(long, value_name = "FILE.svg|FILE.png", allow_hyphen_values = true)]
     out: Option<PathBuf>,
     /// Figure title [default: the input's file name].
     #[arg(long)]
@@ -29,7 +30,10 @@ pub fn run(args: PlotArgs) -> Result<()> {
         .out
         .clone()
         .unwrap_or_else(|| args.input.with_extension("svg"));
-    check_figure_path("--out", &out)?;
+    Files::default()
+        .input("the table to draw", &args.input)
+        .figure("--out", Some(&out))
+        .check()?;
     let title = args.title.clone().unwrap_or_else(|| {
         args.input
             .file_name()
@@ -54,6 +58,6 @@ pub fn run(args: PlotArgs) -> Result<()> {
             hr_diagram(&out, &series, &title)?;
         }
     }
-    eprintln!("starpoise: wrote {}", out.display());
+    err(&format!("starpoise: wrote {}\n", out.display()));
     Ok(())
 }

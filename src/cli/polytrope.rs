@@ -1,9 +1,13 @@
 //! `starpoise polytrope`: a Lane–Emden polytrope, optionally scaled to a star.
 
+use super::io::Files;
 use super::Format;
 use clap::Args;
 use starpoise::error::{Error, Result};
-use starpoise::output::polytrope::{write_profile_csv, PolytropeSummary};
+use starpoise::output::meta::{Meta, Provenance, WithMeta};
+use starpoise::output::polytrope::{
+    profile_meta, write_profile, PolytropeSummary, POLYTROPE_CONTENT,
+};
 use starpoise::polytrope::{
     scale_to_star, solve_lane_emden, validate_index, validate_scaling, LaneEmdenSettings,
     StarParameters, DEFAULT_MU,
@@ -14,17 +18,17 @@ use std::path::PathBuf;
 #[derive(Debug, Args)]
 pub struct PolytropeArgs {
     /// Polytropic index n, a number in [0, 5].
-    #[arg(long, allow_negative_numbers = true)]
+    #[arg(long, value_parser = super::values::number, allow_hyphen_values = true)]
     index: f64,
     /// Scale to a star of this mass, in solar masses (needs --radius).
-    #[arg(long, requires = "radius", allow_negative_numbers = true)]
+    #[arg(long, requires = "radius", value_parser = super::values::number, allow_hyphen_values = true)]
     mass: Option<f64>,
     /// Radius of the star, in nominal solar radii (needs --mass).
-    #[arg(long, requires = "mass", allow_negative_numbers = true)]
+    #[arg(long, requires = "mass", value_parser = super::values::number, allow_hyphen_values = true)]
     radius: Option<f64>,
     /// Mean molecular weight for the central temperature [default: 0.61, fully ionised gas of
     /// roughly solar composition] (needs --mass and --radius).
-    #[arg(long, requires = "mass", allow_negative_numbers = true)]
+    #[arg(long, requires = "mass", value_parser = super::values::number, allow_hyphen_values = true)]
     mu: Option<f64>,
     /// Eddington's standard model: include radiation pressure with constant
     /// beta = P_gas/P (n = 3 only; needs --mass and --radius).
@@ -33,11 +37,12 @@ pub struct PolytropeArgs {
     /// Output format of the summary on stdout.
     #[arg(long, value_enum, default_value_t)]
     format: Format,
-    /// Also write the profile as CSV to this file (written atomically).
-    #[arg(long, value_name = "FILE.csv")]
+    /// Also write the profile to this file: CSV; JSON if it ends in .json; ECSV if in .ecsv
+    /// (written atomically; `-` for standard output, as CSV).
+    #[arg(long, value_name = "FILE.csv", allow_hyphen_values = true)]
     profile: Option<PathBuf>,
     /// Number of profile points from the centre to the surface inclusive (2 to 1000000).
-    #[arg(long, default_value_t = 200)]
+    #[arg(long, default_value_t = 200, value_parser = super::values::polytrope_points, allow_hyphen_values = true)]
     points: usize,
 }
 
@@ -105,27 +110,39 @@ impl TryFrom<PolytropeArgs> for PolytropeRequest {
 /// Run `starpoise polytrope`: validate, solve, write the profile if asked, print the summary.
 pub fn run(args: PolytropeArgs) -> Result<()> {
     let request = PolytropeRequest::try_from(args)?;
-    if let Some(path) = &request.profile {
-        starpoise::output::check_output_path("--profile", path)?;
-    }
+    let channel = Files::default()
+        .text("--profile", request.profile.as_deref())
+        .check()?;
     let solution = solve_lane_emden(request.index, &request.settings)?;
     let scaled = match &request.star {
         Some(star) => Some(scale_to_star(&solution, star, request.radiation)?),
         None => None,
     };
-    if let Some(path) = &request.profile {
-        write_profile_csv(path, &solution, scaled.as_ref())?;
-    }
     let summary = PolytropeSummary::new(&solution, scaled.as_ref());
+    if let (Some((key, what)), Some(star)) = (summary.non_finite(), &request.star) {
+        return Err(Error::invalid(
+            "--mass/--radius",
+            format!("{:e} M_sun, {:e} R_sun", star.mass_msun(), star.radius_rsun()),
+            &format!(
+                "{what} ({key}) of this star is not a finite number in cgs units (overflow or underflow); give a mass and radius of stellar size, e.g. --mass 1 --radius 1"
+            ),
+        ));
+    }
+    let provenance = Provenance::of_this_process();
+    if let Some(path) = &request.profile {
+        let meta = profile_meta(&Meta::new(&provenance, POLYTROPE_CONTENT), &summary);
+        write_profile(path, &solution, scaled.as_ref(), &meta)?;
+    }
     match request.format {
-        Format::Text => print!("{}", summary.to_text()),
+        Format::Text => channel.print(&summary.to_text()),
         Format::Json => {
-            let json = serde_json::to_string_pretty(&summary).map_err(|e| Error::Io {
+            let meta = Meta::new(&provenance, "Lane-Emden polytrope summary");
+            let value = WithMeta::new(&summary, &meta);
+            let json = serde_json::to_string_pretty(&value).map_err(|e| Error::Io {
                 path: "stdout".to_string(),
                 reason: e.to_string(),
             })?;
-            println!("{json}");
+            channel.print(&format!("{json}\n"))
         }
     }
-    Ok(())
 }

@@ -1,8 +1,10 @@
 //! `starpoise probe`: every local physics quantity at one (rho, T).
 
 use super::common::ModelArgs;
+use super::io::out;
 use super::Format;
 use clap::Args;
+use starpoise::output::meta::{Meta, Provenance, WithMeta};
 use starpoise::output::ProbeReport;
 use starpoise::{Error, Result};
 
@@ -11,10 +13,10 @@ use starpoise::{Error, Result};
 #[derive(Debug, Clone, Args)]
 pub struct ProbeArgs {
     /// Density rho, g/cm^3.
-    #[arg(long, value_name = "RHO")]
+    #[arg(long, value_name = "RHO", value_parser = super::values::number, allow_hyphen_values = true)]
     pub density: f64,
     /// Temperature T, K.
-    #[arg(long, value_name = "T")]
+    #[arg(long, value_name = "T", value_parser = super::values::number, allow_hyphen_values = true)]
     pub temperature: f64,
     /// Composition and physics.
     #[command(flatten)]
@@ -52,15 +54,25 @@ pub fn run(args: ProbeArgs) -> Result<()> {
         ),
         other => other,
     })?;
+    if let Some(name) = report.non_finite() {
+        return Err(Error::invalid(
+            "--density/--temperature",
+            format!("{rho:e} g/cm^3, {t:e} K"),
+            &format!(
+                "outside the domain of the chosen physics: {name} is not a finite number there"
+            ),
+        ));
+    }
     match args.format {
-        Format::Text => print!("{}", report.to_text()),
+        Format::Text => out(&report.to_text()),
         Format::Json => {
-            let text = serde_json::to_string_pretty(&report).map_err(|e| Error::Io {
+            let meta = Meta::new(&Provenance::of_this_process(), "local physics at one point");
+            let value = WithMeta::new(&report, &meta);
+            let text = serde_json::to_string_pretty(&value).map_err(|e| Error::Io {
                 path: "<stdout>".to_string(),
                 reason: e.to_string(),
             })?;
-            println!("{text}");
+            out(&format!("{text}\n"))
         }
     }
-    Ok(())
 }

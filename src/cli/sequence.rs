@@ -2,14 +2,16 @@
 //! optionally one deterministic shard of it; and `starpoise merge` for the shards.
 
 use super::common::PhysicsFlags;
+use super::io::{err, Files};
 use clap::Args;
 use indicatif::{ProgressBar, ProgressStyle};
 use starpoise::grid::fits::{fit_groups, parse_ranges, DEFAULT_FIT_RANGES};
 use starpoise::grid::merge::merge_shards;
 use starpoise::grid::run::{solve_points, RunSettings};
 use starpoise::grid::{parse_value_list, Grid, GridRow, GridTable, Shard, Variant};
+use starpoise::output::meta::{Meta, Provenance};
 use starpoise::output::plot::{hr_diagram, series_from_rows};
-use starpoise::output::sequence::{read_table, write_table};
+use starpoise::output::sequence::{read_table, write_table, SEQUENCE_CONTENT};
 use starpoise::structure::DEFAULT_FIT_MASS_FRACTION;
 use starpoise::{Error, Result};
 use std::io::IsTerminal;
@@ -18,39 +20,41 @@ use std::path::PathBuf;
 /// Arguments of `starpoise sequence`.
 #[derive(Debug, Args)]
 pub struct SequenceArgs {
-    /// Masses in M_sun: a list `0.5,1,2` or a range `FROM:TO:COUNT[:log|lin]`.
-    #[arg(long, value_name = "LIST")]
+    /// Masses in M_sun: a list `0.5,1,2` or a range `FROM:TO:COUNT[:log|lin]` (at most
+    /// 100000 values).
+    #[arg(long, value_name = "LIST", allow_hyphen_values = true)]
     masses: String,
     /// Hydrogen mass fractions (list or range) [default: 0.70].
-    #[arg(long, value_name = "LIST")]
+    #[arg(long, value_name = "LIST", allow_hyphen_values = true)]
     x: Option<String>,
     /// Metal mass fractions (list or range) [default: 0.02].
-    #[arg(long, value_name = "LIST")]
+    #[arg(long, value_name = "LIST", allow_hyphen_values = true)]
     z: Option<String>,
     #[command(flatten)]
     physics: PhysicsFlags,
     /// A physics variant NAME=SPEC (repeatable), e.g. hot=opacity-factor:2. Without any, the
     /// base set alone, named `base`.
-    #[arg(long = "variant", value_name = "NAME=SPEC")]
+    #[arg(long = "variant", value_name = "NAME=SPEC", allow_hyphen_values = true)]
     variants: Vec<String>,
     /// Fitting mass as a fraction of M [default: 0.4].
-    #[arg(long, value_name = "FRACTION")]
+    #[arg(long, value_name = "FRACTION", value_parser = super::values::number, allow_hyphen_values = true)]
     fit_mass: Option<f64>,
-    /// Write the table here: CSV, or JSON if the name ends in .json (atomically).
-    #[arg(long, value_name = "FILE")]
+    /// Write the table here: CSV; JSON if the name ends in .json; ECSV if it ends in .ecsv
+    /// (atomically; `-` for standard output, as CSV).
+    #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     out: Option<PathBuf>,
     /// Draw the HR diagram of the converged models to this figure, SVG or PNG by its
     /// extension (atomically).
     #[arg(long, value_name = "FILE.svg|FILE.png")]
     plot: Option<PathBuf>,
     /// Run only the K-th of N deterministic slices of the grid.
-    #[arg(long, value_name = "K/N")]
+    #[arg(long, value_name = "K/N", allow_hyphen_values = true)]
     shard: Option<String>,
-    /// Worker threads [default: one per core].
-    #[arg(long, value_name = "T", default_value_t = 0)]
+    /// Worker threads [default: 0, one per core; at most 256].
+    #[arg(long, value_name = "T", default_value_t = 0, value_parser = super::values::threads, allow_hyphen_values = true)]
     threads: usize,
     /// Mass ranges of the power-law fits [default: 0.1-0.5,0.5-2,2-20,20-100].
-    #[arg(long, value_name = "RANGES")]
+    #[arg(long, value_name = "RANGES", allow_hyphen_values = true)]
     fit_ranges: Option<String>,
     /// No progress bar.
     #[arg(long)]
@@ -99,13 +103,16 @@ pub fn run(args: SequenceArgs) -> Result<()> {
         None => DEFAULT_FIT_RANGES.to_vec(),
     };
     let fit = args.fit_mass.unwrap_or(DEFAULT_FIT_MASS_FRACTION);
-    if let Some(path) = &args.out {
-        starpoise::output::check_output_path("--out", path)?;
-    }
-    if let Some(path) = &args.plot {
-        starpoise::output::plot::check_figure_path("--plot", path)?;
-    }
     let grid = Grid::product(&args.physics.overrides(), variants, &masses, &xs, &zs, fit)?;
+    let tables = grid.input_files();
+    let mut files = Files::default();
+    for table in &tables {
+        files.input("an opacity table of the grid", table);
+    }
+    let channel = files
+        .text("--out", args.out.as_deref())
+        .figure("--plot", args.plot.as_deref())
+        .check()?;
     let points = grid.select(shard);
     let bar = progress(points.len(), args.quiet);
     let tick = || bar.inc(1);
@@ -113,7 +120,7 @@ pub fn run(args: SequenceArgs) -> Result<()> {
         &grid,
         &points,
         &RunSettings {
-            threads: args.threads,
+            threads: super::values::check_threads(args.threads)?,
             tolerance: None,
         },
         &tick,
@@ -137,13 +144,14 @@ pub fn run(args: SequenceArgs) -> Result<()> {
         rows,
     };
     if let Some(path) = &args.out {
-        write_table(path, &table)?;
+        let meta = Meta::new(&Provenance::of_this_process(), SEQUENCE_CONTENT);
+        write_table(path, &table, &meta)?;
     }
     if let Some(path) = &args.plot {
         let series = series_from_rows(&table.rows);
         hr_diagram(path, &series, "Zero-age main sequence")?;
     }
-    print!("{}", text_table(&table));
+    channel.print(&text_table(&table))?;
     let failed = table.rows.iter().filter(|r| !r.converged()).count();
     if failed > 0 {
         return Err(Error::Incomplete {
@@ -213,17 +221,22 @@ pub fn text_table(t: &GridTable) -> String {
 /// Arguments of `starpoise merge`.
 #[derive(Debug, Args)]
 pub struct MergeArgs {
-    /// Shard outputs of one grid (CSV or JSON, by extension).
+    /// Shard outputs of one grid (CSV, ECSV or JSON, as `sequence --out` wrote them).
     #[arg(required = true, value_name = "FILES")]
     files: Vec<PathBuf>,
-    /// The merged table (CSV, or JSON if it ends in .json), written atomically.
-    #[arg(long, value_name = "FILE")]
+    /// The merged table (CSV; JSON if it ends in .json; ECSV if it ends in .ecsv), written
+    /// atomically (`-` for standard output, as CSV).
+    #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     out: PathBuf,
 }
 
 /// Run `starpoise merge`.
 pub fn run_merge(args: MergeArgs) -> Result<()> {
-    starpoise::output::check_output_path("--out", &args.out)?;
+    let mut files = Files::default();
+    for f in &args.files {
+        files.input(format!("the shard file {}", f.display()), f);
+    }
+    files.text("--out", Some(args.out.as_path())).check()?;
     let tables = args
         .files
         .iter()
@@ -261,12 +274,13 @@ pub fn run_merge(args: MergeArgs) -> Result<()> {
         fits,
         rows,
     };
-    write_table(&args.out, &table)?;
-    eprintln!(
-        "starpoise: merged {} grid points from {} files into {}",
+    let meta = Meta::new(&Provenance::of_this_process(), SEQUENCE_CONTENT);
+    write_table(&args.out, &table, &meta)?;
+    err(&format!(
+        "starpoise: merged {} grid points from {} files into {}\n",
         table.rows.len(),
         args.files.len(),
         args.out.display()
-    );
+    ));
     Ok(())
 }

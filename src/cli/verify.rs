@@ -1,7 +1,9 @@
 //! `starpoise verify`: run the built-in published checks and report them.
 
+use super::io::{err, out};
 use super::Format;
 use clap::Args;
+use starpoise::output::meta::{Meta, Provenance};
 use starpoise::verify::{checks, run_all, CheckReport, Summary};
 use starpoise::{Error, Result};
 
@@ -9,7 +11,8 @@ use starpoise::{Error, Result};
 /// ZAMS figures) against its published value; exit code 1 if any fails.
 #[derive(Debug, Clone, Args)]
 pub struct VerifyArgs {
-    /// Output format: an aligned table (text) or a JSON array with one object per check.
+    /// Output format: an aligned table (text) or a JSON object {meta, checks} with one object
+    /// per check.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     pub format: Format,
 }
@@ -23,14 +26,16 @@ pub fn run(args: VerifyArgs) -> Result<()> {
         .collect();
     let summary = Summary::of(&reports);
     match args.format {
-        Format::Text => print!("{}", starpoise::verify::report::to_text(&reports)),
+        Format::Text => out(&starpoise::verify::report::to_text(&reports))?,
         Format::Json => {
-            let text = serde_json::to_string_pretty(&reports).map_err(|e| Error::Io {
+            let meta = Meta::new(&Provenance::of_this_process(), "built-in published checks");
+            let value = serde_json::json!({ "meta": meta.to_json(), "checks": reports });
+            let text = serde_json::to_string_pretty(&value).map_err(|e| Error::Io {
                 path: "<stdout>".to_string(),
                 reason: e.to_string(),
             })?;
-            println!("{text}");
-            eprintln!("{}", summary.line());
+            out(&format!("{text}\n"))?;
+            err(&format!("{}\n", summary.line()));
         }
     }
     if summary.failed > 0 {

@@ -1,13 +1,15 @@
 //! `starpoise zams`: one zero-age main-sequence model.
 
 use super::common::{CompositionFlags, PhysicsFlags};
+use super::io::{err, Files};
 use super::model_file::ModelFile;
-use super::Format;
+use super::{values, Format};
 use clap::{Args, ValueEnum};
-use starpoise::output::check_output_path;
+use starpoise::output::meta::{Meta, Provenance};
 use starpoise::output::zams::{
-    failure_json, summary_json, text_summary, to_json_text, write_profile, ProfileFormat,
+    failure_json, profile_meta, summary_json, text_summary, to_json_text, with_meta, write_profile,
 };
+use starpoise::output::TableFormat;
 use starpoise::structure::{profile::check_profile_points, solve, ZamsSettings};
 use starpoise::structure::{ProfileGrid, DEFAULT_PROFILE_POINTS};
 use starpoise::{Error, Result};
@@ -17,30 +19,31 @@ use std::path::PathBuf;
 #[derive(Debug, Args)]
 pub struct ZamsArgs {
     /// Stellar mass in solar masses.
-    #[arg(long, value_name = "MSUN", help = mass_help())]
+    #[arg(long, value_name = "MSUN", help = mass_help(), value_parser = values::number, allow_hyphen_values = true)]
     mass: Option<f64>,
     #[command(flatten)]
     composition: CompositionFlags,
     #[command(flatten)]
     physics: PhysicsFlags,
     /// Fitting mass as a fraction of M [default: 0.4].
-    #[arg(long, value_name = "FRACTION")]
+    #[arg(long, value_name = "FRACTION", value_parser = values::number, allow_hyphen_values = true)]
     fit_mass: Option<f64>,
-    /// Finest integrator tolerance [default: 1e-11].
-    #[arg(long, value_name = "TOL")]
+    /// Finest integrator tolerance [default: 1e-11; range 1e-13 to 1e-6].
+    #[arg(long, value_name = "TOL", value_parser = values::number, allow_hyphen_values = true)]
     tolerance: Option<f64>,
-    /// Maximum Newton iterations [default: 60].
-    #[arg(long, value_name = "N")]
+    /// Maximum Newton iterations [default: 60; range 1 to 500].
+    #[arg(long, value_name = "N", value_parser = values::max_iterations, allow_hyphen_values = true)]
     max_iterations: Option<usize>,
     /// Output format of the summary.
     #[arg(long, value_enum, default_value_t = Format::Text)]
     format: Format,
-    /// Write the profile to this file (atomically).
-    #[arg(long, value_name = "FILE")]
+    /// Write the profile to this file (atomically; `-` for standard output).
+    #[arg(long, value_name = "FILE", allow_hyphen_values = true)]
     profile: Option<PathBuf>,
-    /// Format of the profile file.
-    #[arg(long, value_enum, default_value_t = ProfileFileFormat::Csv)]
-    profile_format: ProfileFileFormat,
+    /// Format of the profile file [default: by the extension: .json JSON, .ecsv ECSV, else
+    /// CSV].
+    #[arg(long, value_enum)]
+    profile_format: Option<ProfileFileFormat>,
     /// Draw the profile (T, rho, P, L, m and the gradients against r/R, m/M or log P) to this
     /// figure, SVG or PNG by its extension.
     #[arg(long, value_name = "FILE.svg|FILE.png")]
@@ -48,8 +51,8 @@ pub struct ZamsArgs {
     /// The x axis of the --plot figure [default: radius].
     #[arg(long, value_enum, requires = "plot")]
     abscissa: Option<super::figure::AbscissaArg>,
-    /// Number of profile rows [default: 400].
-    #[arg(long, value_name = "K")]
+    /// Number of profile rows [default: 400; range 10 to 100000].
+    #[arg(long, value_name = "K", value_parser = values::profile_points, allow_hyphen_values = true)]
     points: Option<usize>,
     /// Where the profile's rows go: auto (balanced between the integrator's steps, equal
     /// radius and equal mass), radius (uniform in r) or mass (uniform in m); centre first,
@@ -61,7 +64,7 @@ pub struct ZamsArgs {
     model: Option<PathBuf>,
     /// Starting guesses: central pressure (dyn/cm^2), central temperature (K), radius (R_sun),
     /// luminosity (L_sun); all four together.
-    #[arg(long, value_names = ["PC", "TC", "RSUN", "LSUN"], num_args = 4)]
+    #[arg(long, value_names = ["PC", "TC", "RSUN", "LSUN"], num_args = 4, value_parser = values::number, allow_hyphen_values = true)]
     guess: Option<Vec<f64>>,
 }
 
@@ -77,10 +80,12 @@ fn mass_help() -> String {
 /// Profile file format.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
 pub enum ProfileFileFormat {
-    /// Comma-separated values with a header row.
+    /// Comma-separated values: `#` metadata lines, then a header row.
     Csv,
-    /// A JSON array of row objects.
+    /// One JSON object {meta, columns, units, rows}.
     Json,
+    /// ECSV 1.0 (astropy's Enhanced CSV, with units and metadata).
+    Ecsv,
 }
 
 /// The profile grid (see [`ProfileGrid`]).
@@ -104,11 +109,12 @@ impl From<GridArg> for ProfileGrid {
     }
 }
 
-impl From<ProfileFileFormat> for ProfileFormat {
+impl From<ProfileFileFormat> for TableFormat {
     fn from(f: ProfileFileFormat) -> Self {
         match f {
-            ProfileFileFormat::Csv => ProfileFormat::Csv,
-            ProfileFileFormat::Json => ProfileFormat::Json,
+            ProfileFileFormat::Csv => TableFormat::Csv,
+            ProfileFileFormat::Json => TableFormat::Json,
+            ProfileFileFormat::Ecsv => TableFormat::Ecsv,
         }
     }
 }
@@ -145,18 +151,27 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         None => ModelFile::default(),
     };
     let (settings, points) = args.settings(&file)?;
-    if let Some(p) = &args.profile {
-        check_output_path("--profile", p)?;
+    let spec = settings.physics().spec().clone();
+    let mut files = Files::default();
+    if let Some(p) = &args.model {
+        files.input("the model file (--model)", p);
     }
-    if let Some(p) = &args.plot {
-        starpoise::output::plot::check_figure_path("--plot", p)?;
+    for table in spec.input_files() {
+        files.input("the opacity table", table);
     }
+    let channel = files
+        .text("--profile", args.profile.as_deref())
+        .figure("--plot", args.plot.as_deref())
+        .check()?;
+    let provenance = Provenance::of_this_process().with_model(file.name.clone(), file.note.clone());
+    let summary_meta = Meta::new(&provenance, "ZAMS model summary");
     let model = match solve(&settings) {
         Ok(m) => m,
         Err(Error::NoConvergence(failure)) => {
-            eprint!("{}", starpoise::output::zams::failure_text(&failure));
+            err(&starpoise::output::zams::failure_text(&failure));
             if args.format == Format::Json {
-                println!("{}", to_json_text(&failure_json(&settings, &failure))?);
+                let json = with_meta(failure_json(&settings, &failure), &summary_meta);
+                channel.print(&format!("{}\n", to_json_text(&json)?))?;
             }
             return Err(Error::NoConvergence(failure));
         }
@@ -165,7 +180,10 @@ pub fn run(args: ZamsArgs) -> Result<()> {
     if args.profile.is_some() || args.plot.is_some() {
         let rows = model.profile_on(args.grid.into(), points)?;
         if let Some(path) = &args.profile {
-            write_profile(path, &rows, args.profile_format.into())?;
+            let format = args
+                .profile_format
+                .map_or_else(|| TableFormat::from_path(path), Into::into);
+            write_profile(path, &rows, format, &profile_meta(&provenance, &model))?;
         }
         if let Some(path) = &args.plot {
             let c = model.composition();
@@ -180,11 +198,13 @@ pub fn run(args: ZamsArgs) -> Result<()> {
         }
     }
     for w in &model.warnings {
-        eprintln!("starpoise: warning: {w}");
+        err(&format!("starpoise: warning: {w}\n"));
     }
     match args.format {
-        Format::Json => println!("{}", to_json_text(&summary_json(&model))?),
-        Format::Text => print!("{}", text_summary(&model)),
+        Format::Json => channel.print(&format!(
+            "{}\n",
+            to_json_text(&with_meta(summary_json(&model), &summary_meta))?
+        )),
+        Format::Text => channel.print(&text_summary(&model)),
     }
-    Ok(())
 }

@@ -2,9 +2,14 @@
 
 use crate::error::{Error, Result};
 
+/// The most values one list may hold (a list or a range's COUNT), checked before anything is
+/// allocated.
+pub const MAX_LIST_VALUES: usize = 100_000;
+
 /// Parse a list for flag `flag`: comma-separated numbers (`0.5,1,2`) or a range
-/// `FROM:TO:COUNT[:log|lin]` (log spacing by default, both ends included). Every value must be
-/// finite; duplicates are refused.
+/// `FROM:TO:COUNT[:log|lin]` (log spacing by default, both ends included exactly: the first
+/// value is FROM and the last TO, to the bit). Every value must be finite; duplicates are
+/// refused; at most [`MAX_LIST_VALUES`] values.
 pub fn parse_value_list(flag: &str, text: &str) -> Result<Vec<f64>> {
     let example = "e.g. 0.5,1,2 or 0.1:100:40:log";
     let bad = |why: &str| Error::invalid(flag, text, &format!("{why}; {example}"));
@@ -27,17 +32,20 @@ pub fn parse_value_list(flag: &str, text: &str) -> Result<Vec<f64>> {
             .trim()
             .parse()
             .map_err(|_| bad("TO is not a number"))?;
-        let count: usize = parts[2]
-            .trim()
-            .parse()
-            .map_err(|_| bad("COUNT is not a whole number"))?;
+        let count: usize = parts[2].trim().parse().map_err(|_| {
+            bad(&format!(
+                "COUNT must be a whole number from 1 to {MAX_LIST_VALUES}"
+            ))
+        })?;
         let log = match parts.get(3).map(|s| s.trim()) {
             None | Some("log") => true,
             Some("lin") => false,
             Some(_) => return Err(bad("the spacing must be log or lin")),
         };
-        if count == 0 {
-            return Err(bad("COUNT must be at least 1"));
+        if count == 0 || count > MAX_LIST_VALUES {
+            return Err(bad(&format!(
+                "COUNT must be a whole number from 1 to {MAX_LIST_VALUES}"
+            )));
         }
         if !(from.is_finite() && to.is_finite()) || from > to {
             return Err(bad("FROM must not exceed TO"));
@@ -51,10 +59,16 @@ pub fn parse_value_list(flag: &str, text: &str) -> Result<Vec<f64>> {
             }
             vec![from]
         } else {
+            // The ends are FROM and TO themselves, not exp(ln(FROM)) (which may differ in the
+            // last bit).
             (0..count)
                 .map(|i| {
                     let f = i as f64 / (count - 1) as f64;
-                    if log {
+                    if i == 0 {
+                        from
+                    } else if i == count - 1 {
+                        to
+                    } else if log {
                         (from.ln() + f * (to.ln() - from.ln())).exp()
                     } else {
                         from + f * (to - from)
@@ -63,6 +77,12 @@ pub fn parse_value_list(flag: &str, text: &str) -> Result<Vec<f64>> {
                 .collect()
         }
     } else {
+        let count = text.split(',').count();
+        if count > MAX_LIST_VALUES {
+            return Err(bad(&format!(
+                "at most {MAX_LIST_VALUES} values, not {count}"
+            )));
+        }
         text.split(',')
             .map(|s| {
                 s.trim()
@@ -102,6 +122,38 @@ mod tests {
         assert_eq!(
             parse_value_list("--z", "0:0.04:3:lin").unwrap(),
             vec![0.0, 0.02, 0.04]
+        );
+    }
+
+    /// Both ends of a range are the numbers given, to the bit (0.08:120:60:log once gave
+    /// 0.07999999999999999 and 119.99999999999997).
+    #[test]
+    fn ranges_hit_their_ends_exactly() {
+        for (text, from, to) in [
+            ("0.08:120:60:log", 0.08, 120.0),
+            ("0.1:100:7", 0.1, 100.0),
+            ("0.0005:0.04:25:log", 0.0005, 0.04),
+            ("0.3:0.9:7:lin", 0.3, 0.9),
+        ] {
+            let v = parse_value_list("--masses", text).unwrap();
+            assert_eq!(v.first().copied(), Some(from), "{text}");
+            assert_eq!(v.last().copied(), Some(to), "{text}");
+        }
+    }
+
+    #[test]
+    fn refuses_huge_counts_before_allocating() {
+        for text in [
+            "1:2:18446744073709551615",
+            "1:2:1000000000000",
+            "1:2:100001",
+        ] {
+            let e = parse_value_list("--masses", text).unwrap_err();
+            assert!(e.to_string().contains("100000"), "{e}");
+        }
+        assert_eq!(
+            parse_value_list("--masses", "1:2:100000").unwrap().len(),
+            100_000
         );
     }
 

@@ -10,9 +10,13 @@ pub mod run;
 pub mod shard;
 pub mod variant;
 
-use crate::error::Result;
+use crate::error::{Error, Result};
+
+/// The most points one grid may hold (variants x Z x X x masses), checked before anything is
+/// allocated.
+pub const MAX_GRID_POINTS: usize = 1_000_000;
 use crate::physics::{Composition, PhysicsOverrides, PhysicsSet};
-pub use masses::parse_value_list;
+pub use masses::{parse_value_list, MAX_LIST_VALUES};
 pub use row::{GridRow, GridTable, RowStatus};
 pub use shard::Shard;
 pub use variant::Variant;
@@ -59,7 +63,8 @@ pub struct Grid {
 impl Grid {
     /// The product grid variants x Z x X x masses, in that nesting order. Builds every variant's
     /// physics (so that a bad law name is reported before any model is solved) and every
-    /// composition.
+    /// composition. Errors: more than [`MAX_GRID_POINTS`] points (key `grid size`), and the
+    /// errors of the laws and compositions.
     pub fn product(
         base: &PhysicsOverrides,
         variants: Vec<Variant>,
@@ -68,9 +73,47 @@ impl Grid {
         zs: &[f64],
         fit_mass_fraction: f64,
     ) -> Result<Self> {
+        let size = [variants.len(), zs.len(), xs.len(), masses.len()]
+            .iter()
+            .try_fold(1usize, |a, &b| a.checked_mul(b))
+            .filter(|&n| n <= MAX_GRID_POINTS);
+        if size.is_none() {
+            return Err(Error::invalid(
+                "grid size",
+                format!(
+                    "{} variants x {} Z x {} X x {} masses",
+                    variants.len(),
+                    zs.len(),
+                    xs.len(),
+                    masses.len()
+                ),
+                &format!(
+                    "a grid holds at most {MAX_GRID_POINTS} points; split it into several runs"
+                ),
+            ));
+        }
+        // The base flags on their own first, so that their errors name the flags; then each
+        // variant over them, whose errors name the variant.
+        PhysicsSet::from_spec(&base.resolve()?)?;
         let physics = variants
             .iter()
-            .map(|v| PhysicsSet::from_spec(&base.overridden_by(&v.overrides).resolve()?))
+            .map(|v| {
+                base.overridden_by(&v.overrides)
+                    .resolve()
+                    .and_then(|spec| PhysicsSet::from_spec(&spec))
+                    .map_err(|e| match e {
+                        Error::InvalidInput {
+                            name,
+                            value,
+                            allowed,
+                        } => Error::invalid(
+                            "variant",
+                            format!("{}={}", v.name, v.spec),
+                            &format!("{name} = {value}: {allowed}"),
+                        ),
+                        other => other,
+                    })
+            })
             .collect::<Result<Vec<_>>>()?;
         let mut points = Vec::new();
         for v in 0..variants.len() {
@@ -109,6 +152,19 @@ impl Grid {
             text.push(';');
         }
         format!("{:016x}", shard::fnv1a(text.as_bytes()))
+    }
+
+    /// Every file the grid's laws read (opacity tables), once each.
+    pub fn input_files(&self) -> Vec<std::path::PathBuf> {
+        let mut files: Vec<std::path::PathBuf> = Vec::new();
+        for p in &self.physics {
+            for f in p.spec().input_files() {
+                if !files.iter().any(|g| g == f) {
+                    files.push(f.to_path_buf());
+                }
+            }
+        }
+        files
     }
 
     /// The points of shard `shard` (all points if `None`).

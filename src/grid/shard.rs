@@ -14,8 +14,14 @@ pub struct Shard {
 impl Shard {
     /// Parse `K/N` with 1 <= K <= N.
     pub fn parse(text: &str) -> Result<Self> {
-        let bad = |why: &str| Error::invalid("shard", text, &format!("{why}; e.g. 2/8"));
-        let (k, n) = text.split_once('/').ok_or_else(|| bad("a shard is K/N"))?;
+        let bad = |why: &str| {
+            Error::invalid(
+                "shard",
+                text,
+                &format!("{why}; a shard is K/N with whole numbers 1 <= K <= N, e.g. 2/8"),
+            )
+        };
+        let (k, n) = text.split_once('/').ok_or_else(|| bad("no '/'"))?;
         let k: usize = k
             .trim()
             .parse()
@@ -25,7 +31,7 @@ impl Shard {
             .parse()
             .map_err(|_| bad("N is not a whole number"))?;
         if n == 0 || k == 0 || k > n {
-            return Err(bad("K must be in 1..=N"));
+            return Err(bad("K or N is out of range"));
         }
         Ok(Self { k, n })
     }

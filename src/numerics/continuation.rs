@@ -117,7 +117,7 @@ pub struct Fold<const N: usize> {
     /// The turning point (its tangent's lambda part is within the tolerance of 0), or, when the
     /// branch could not be followed to it, the last point reached.
     pub point: BranchPoint<N>,
-    /// The parameter at the fold: `point.lambda` when the fold was reached, else extrapolated.
+    /// `point.lambda`.
     pub lambda: f64,
     /// How the fold was found.
     pub located: FoldLocation,
@@ -131,13 +131,15 @@ pub enum FoldLocation {
     /// Reached: the tangent's lambda part changed sign between two branch points and the fold
     /// was located between them.
     Reached,
-    /// Extrapolated: the corrector could not step further (F undefined beyond, e.g. a law's
-    /// domain), but the branch was approaching a turn: its tangent's lambda part had fallen
-    /// below a fifth of its value at the start, and lambda, a parabola in the leading unknown
-    /// near a simple fold, has its vertex just ahead (see `extrapolate_fold`).
-    Extrapolated {
-        /// |lambda* - lambda_last|: how far the last point reached lies from the fold.
-        distance: f64,
+    /// Stalled: the corrector could not step further (F undefined beyond, e.g. a law's
+    /// domain) while the branch was approaching a turn: its tangent's lambda part had fallen
+    /// below a fifth of its value at the start. The fold lies beyond the last point reached.
+    Stalled {
+        /// The fold's lambda extrapolated from the approach (lambda, a parabola in the leading
+        /// unknown near a simple fold, has its vertex just ahead; see `extrapolate_fold`), or
+        /// `None` if the last points do not give a vertex ahead. An estimate only: it depends
+        /// on the last steps taken.
+        extrapolated: Option<f64>,
     },
 }
 
@@ -276,18 +278,14 @@ pub fn find_fold<const N: usize, B: Branch<N>>(
         tangent_lambda: tl,
     };
     let mut branch = vec![current];
-    // Arclength of each branch point from the start.
-    let mut arclength = vec![0.0];
     let mut ds = settings.initial_step;
     for _ in 0..settings.max_steps {
         let Some(next) = correct(problem, &current, ds, settings) else {
             ds *= 0.5;
             if ds < settings.min_step {
-                return extrapolate_fold(&branch, &arclength).ok_or(
-                    ContinuationError::StepTooSmall {
-                        lambda: current.lambda,
-                    },
-                );
+                return stalled_fold(&branch).ok_or(ContinuationError::StepTooSmall {
+                    lambda: current.lambda,
+                });
             }
             continue;
         };
@@ -321,7 +319,6 @@ pub fn find_fold<const N: usize, B: Branch<N>>(
             });
         }
         branch.push(point);
-        arclength.push(arclength.last().copied().unwrap_or(0.0) + ds);
         current = point;
         ds = if next.iterations <= 2 {
             (ds * 1.5).min(settings.max_step)
@@ -338,27 +335,66 @@ pub fn find_fold<const N: usize, B: Branch<N>>(
 
 /// Points used to extrapolate a fold (at most; at least 4).
 const EXTRAPOLATION_POINTS: usize = 8;
+/// How far back along the branch the extrapolation looks for them (points).
+const EXTRAPOLATION_LOOKBACK: usize = 24;
+/// Smallest spacing in v between two of the points fitted, relative to the span looked back
+/// over: points that pile up where the corrector stalls carry no curvature, only noise.
+const EXTRAPOLATION_MIN_GAP: f64 = 1.0 / 16.0;
 /// How small the tangent's lambda part must have become, relative to its value at the start,
 /// for an extrapolation to be tried.
 const EXTRAPOLATION_RATIO: f64 = 0.2;
 
-/// The fold ahead of the last points of `branch` (see [`FoldLocation::Extrapolated`]): near a
-/// simple fold lambda is a parabola in the unknown v that moves most along the branch (the
-/// largest component of the last tangent), so a least-squares parabola through the last points
-/// gives the fold as its vertex, which must lie ahead of the last point and within a few times
-/// the span of the points fitted. `None` if the branch does not look like it is approaching a
-/// fold. (The tangents themselves are too noisy for this once the steps have shrunk: they come
-/// from finite-difference Jacobians.)
-fn extrapolate_fold<const N: usize>(branch: &[BranchPoint<N>], _s: &[f64]) -> Option<Fold<N>> {
-    let n = branch.len();
+/// The fold beyond the last point of `branch` when the corrector stalled there (see
+/// [`FoldLocation::Stalled`]); `None` if the branch was not approaching a turn (fewer than 5
+/// points, or the tangent's lambda part still above [`EXTRAPOLATION_RATIO`] of its start).
+fn stalled_fold<const N: usize>(branch: &[BranchPoint<N>]) -> Option<Fold<N>> {
     let first = branch.first()?.tangent_lambda;
     let last = branch.last()?;
-    if n < 5 || last.tangent_lambda.abs() > EXTRAPOLATION_RATIO * first.abs() {
+    if branch.len() < 5 || last.tangent_lambda.abs() > EXTRAPOLATION_RATIO * first.abs() {
         return None;
     }
+    Some(Fold {
+        point: *last,
+        lambda: last.lambda,
+        located: FoldLocation::Stalled {
+            extrapolated: extrapolate_fold(branch),
+        },
+        branch: branch.to_vec(),
+    })
+}
+
+/// The fold's lambda ahead of the last points of `branch`: near a simple fold lambda is a
+/// parabola in the unknown v that moves most along the branch (the largest component of the
+/// last tangent), so a least-squares parabola through the last points gives the fold as its
+/// vertex, which must lie ahead of the last point and within a few times the span of the points
+/// fitted. The points are taken back from the last one with spacings in v of at least
+/// [`EXTRAPOLATION_MIN_GAP`] of the span looked back over, so that a cluster of tiny steps where
+/// the corrector stalled does not decide the fit. `None` if that gives no such vertex. (The
+/// tangents themselves are too noisy for this once the steps have shrunk: they come from
+/// finite-difference Jacobians.)
+fn extrapolate_fold<const N: usize>(branch: &[BranchPoint<N>]) -> Option<f64> {
+    let n = branch.len();
+    let last = branch.last()?;
     let k = last.tangent_u.iamax();
-    let tail = &branch[n.saturating_sub(EXTRAPOLATION_POINTS)..];
     let v_last = last.u[k];
+    let looked_back = &branch[n.saturating_sub(EXTRAPOLATION_LOOKBACK)..];
+    let reach = looked_back
+        .iter()
+        .map(|p| (p.u[k] - v_last).abs())
+        .fold(0.0f64, f64::max);
+    let mut tail: Vec<&BranchPoint<N>> = vec![last];
+    for p in looked_back.iter().rev().skip(1) {
+        if tail.len() == EXTRAPOLATION_POINTS {
+            break;
+        }
+        let previous = tail[tail.len() - 1].u[k];
+        if (p.u[k] - previous).abs() >= EXTRAPOLATION_MIN_GAP * reach {
+            tail.push(p);
+        }
+    }
+    if tail.len() < 4 {
+        return None;
+    }
     let span = tail
         .iter()
         .map(|p| (p.u[k] - v_last).abs())
@@ -369,7 +405,7 @@ fn extrapolate_fold<const N: usize>(branch: &[BranchPoint<N>], _s: &[f64]) -> Op
     // lambda = c0 + c1 w + c2 w^2 with w = (v - v_last) / span, by the normal equations.
     let mut a = nalgebra::Matrix3::<f64>::zeros();
     let mut b = nalgebra::Vector3::<f64>::zeros();
-    for p in tail {
+    for p in &tail {
         let w = (p.u[k] - v_last) / span;
         let row = nalgebra::Vector3::new(1.0, w, w * w);
         a += row * row.transpose();
@@ -385,17 +421,7 @@ fn extrapolate_fold<const N: usize>(branch: &[BranchPoint<N>], _s: &[f64]) -> Op
     // turn in the direction the branch was going in lambda.
     let ahead = w_star * last.tangent_u[k].signum() > 0.0 && w_star.abs() < 3.0;
     let turning = (lambda - last.lambda) * last.tangent_lambda > 0.0;
-    if !(ahead && turning && lambda.is_finite()) {
-        return None;
-    }
-    Some(Fold {
-        point: *last,
-        lambda,
-        located: FoldLocation::Extrapolated {
-            distance: (lambda - last.lambda).abs(),
-        },
-        branch: branch.to_vec(),
-    })
+    (ahead && turning && lambda.is_finite()).then_some(lambda)
 }
 
 /// The fold between `before` and `after` (whose tangents' lambda parts differ in sign, `after`
@@ -558,7 +584,7 @@ mod extrapolation {
     }
 
     #[test]
-    fn a_fold_beyond_a_barrier_is_extrapolated() {
+    fn a_fold_beyond_a_barrier_stalls_and_is_extrapolated() {
         let settings = ContinuationSettings {
             max_step: 0.05,
             ..ContinuationSettings::default()
@@ -572,7 +598,10 @@ mod extrapolation {
             &settings,
         )
         .expect("an extrapolated fold");
-        let FoldLocation::Extrapolated { distance } = fold.located else {
+        let FoldLocation::Stalled {
+            extrapolated: Some(extrapolated),
+        } = fold.located
+        else {
             panic!("{:?}", fold.located)
         };
         // The last point reached has u above the barrier 0.05, lambda = 1 - u^2 below 0.9975;
@@ -580,11 +609,10 @@ mod extrapolation {
         // remaining error is of order the gap times the curvature of t_lambda(s) over it).
         let gap = 1.0 - fold.point.lambda;
         assert!(gap > 0.0025 && gap < 0.05, "{gap}");
+        assert_eq!(fold.lambda, fold.point.lambda);
         assert!(
-            (fold.lambda - 1.0).abs() < 0.1 * gap,
-            "{} (gap {gap})",
-            fold.lambda
+            (extrapolated - 1.0).abs() < 0.1 * gap,
+            "{extrapolated} (gap {gap})"
         );
-        assert!((distance - (fold.lambda - fold.point.lambda)).abs() < 1e-15);
     }
 }

@@ -315,6 +315,12 @@ pub fn radial_stability(
         .iter()
         .map(|row| {
             let x = row.r_over_r;
+            if x == 0.0 {
+                // The centre row: the regular solution's values there, zero slope (xi_r/r and
+                // dP/P are even in x at a regular centre).
+                let c = known[0];
+                return (c[1], c[2], 0.0);
+            }
             while k + 2 < known.len() && known[k + 1][0] < x {
                 k += 1;
             }
@@ -402,6 +408,12 @@ pub fn radial_stability(
         let drho = dp / row.gamma1;
         let [eps, nu, lambda, kappa_t, kappa_rho, _] = local[j];
         nuclear[j] = dt * eps * (nu * dt + lambda * drho);
+        dtt[j] = dt;
+        if x == 0.0 {
+            // At the centre L_rad ~ r^3 and dm/dx ~ r^2: the radiative integrand vanishes, as
+            // do xi_r and the luminosity perturbation.
+            continue;
+        }
         // d(dT/T)/dx and d(dT/T)/dln T = that / (dln T/dx), dln T/dx = -nabla V/x.
         let dt_slope = nabla_ad_slope(j) * dp + row.nabla_ad * dp_slope;
         let v = G_CGS * row.mass_g * row.density_g_cm3 / (row.radius_cm * row.pressure_dyn_cm2);
@@ -415,7 +427,6 @@ pub fn radial_stability(
         let xi = x * y1 * radius_cm;
         inertia[j] = xi * xi;
         d_lum[j] = d_l;
-        dtt[j] = dt;
     }
     let trapezoid = |f: &[f64], upto: usize| -> f64 {
         (0..upto)

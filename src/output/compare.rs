@@ -5,6 +5,9 @@
 //! applicable" (a model that did not converge, a reference that did not converge, or a variant
 //! that does not change exactly one factor).
 
+use super::columns::{compare_columns, units_json};
+use super::meta::Meta;
+use super::tabular::{cells_of, write_table_file, TableFormat, Tabular};
 use crate::error::Result;
 use crate::grid::compare::{differences, sensitivities, single_factor_change};
 use crate::grid::run::PointResult;
@@ -19,6 +22,8 @@ pub struct CompareRecord {
     pub mass_msun: f64,
     /// Hydrogen mass fraction.
     pub x: f64,
+    /// Helium mass fraction Y = 1 - X - Z.
+    pub y: f64,
     /// Metal mass fraction.
     pub z: f64,
     /// Variant name.
@@ -124,6 +129,7 @@ impl CompareTable {
                 records.push(CompareRecord {
                     mass_msun: m,
                     x,
+                    y: r.point.composition.y(),
                     z,
                     variant: variant.name.clone(),
                     spec: variant.spec.clone(),
@@ -165,19 +171,54 @@ impl CompareTable {
     }
 }
 
-/// Write the table to `path` (CSV of the records, or the whole table as JSON if the name ends
-/// in `.json`), atomically.
-pub fn write_table(path: &Path, table: &CompareTable) -> Result<()> {
-    crate::output::write_atomically(path, |w| {
-        if crate::output::sequence::is_json(path) {
-            serde_json::to_writer_pretty(&mut *w, table).map_err(std::io::Error::other)?;
-            w.write_all(b"\n")
-        } else {
-            let mut csv = csv::Writer::from_writer(w);
-            for r in &table.records {
-                csv.serialize(r).map_err(std::io::Error::other)?;
-            }
-            csv.flush()
-        }
-    })
+/// The content of a comparison's metadata.
+pub const COMPARE_CONTENT: &str = "ZAMS physics comparison";
+
+/// The metadata of a comparison: `base` (provenance and content), `x`, `y`, `z` and the
+/// reference variant's name.
+pub fn compare_meta(base: &Meta, table: &CompareTable) -> Meta {
+    base.clone()
+        .with("x", table.x)
+        .with("y", 1.0 - table.x - table.z)
+        .with("z", table.z)
+        .with("reference", &table.reference)
+}
+
+/// The table as one JSON object: its fields in order, then `meta`, then `units`.
+#[derive(Debug, serde::Serialize)]
+pub struct CompareJson<'a> {
+    /// The table's fields.
+    #[serde(flatten)]
+    pub table: &'a CompareTable,
+    /// The metadata ([`compare_meta`]).
+    pub meta: serde_json::Value,
+    /// Column name to unit.
+    pub units: serde_json::Value,
+}
+
+/// The table as one JSON object, with `meta` and `units`.
+pub fn table_json<'a>(table: &'a CompareTable, meta: &Meta) -> CompareJson<'a> {
+    CompareJson {
+        table,
+        meta: compare_meta(meta, table).to_json(),
+        units: units_json(&compare_columns()),
+    }
+}
+
+/// Write the table to `path`: the records as CSV (metadata lines, units line, header, rows;
+/// ECSV if the name ends in `.ecsv`), or the whole table as JSON if it ends in `.json`; `-` is
+/// standard output (CSV), a file is written atomically.
+pub fn write_table(path: &Path, table: &CompareTable, meta: &Meta) -> Result<()> {
+    let columns = compare_columns();
+    let meta_all = compare_meta(meta, table);
+    let row = |i: usize| cells_of(&table.records[i], &columns);
+    let tabular = Tabular {
+        columns: &columns,
+        meta: &meta_all,
+        len: table.records.len(),
+        row: &row,
+    };
+    let format = TableFormat::from_path(path);
+    let json = (format == TableFormat::Json).then(|| table_json(table, meta));
+    write_table_file(path, format, &tabular, json.as_ref())
 }

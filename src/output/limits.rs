@@ -2,10 +2,12 @@
 //! laws.
 //!
 //! JSON keys: `meta` (provenance), `x`, `y`, `z`, `physics` (a model-file fragment),
-//! `hydrogen_burning_minimum_mass_msun`, `extrapolated_by_msun` (`null` when the turning point
-//! was reached; else how far below the last model reached it was extrapolated), and
-//! `limiting_model`: every summary quantity of the model at the limit, or of the last model
-//! reached (the keys of the `zams` JSON summary, with `mass_msun`);
+//! `hydrogen_burning_minimum_mass_msun` (the turning point of the ZAMS branch, or the lowest mass
+//! the laws reach when they fail before it), `turning_point_estimate_msun` and `stopped_by`
+//! (`null` when the turning point was reached; else the turning point extrapolated beyond the
+//! laws' domain, an estimate, and why the laws failed), and `limiting_model`: every summary
+//! quantity of the model at `hydrogen_burning_minimum_mass_msun` (the keys of the `zams` JSON
+//! summary, with `mass_msun`);
 //! `pulsational_instability_mass_msun`: the mass above which the radial fundamental mode of the
 //! ZAMS models is vibrationally unstable in the quasi-adiabatic approximation (the epsilon
 //! mechanism against radiative damping; `oscillation::stability`), `null` if it is stable up to
@@ -42,7 +44,8 @@ pub fn limits_json(
         "z": c.z(),
         "physics": model.physics(),
         "hydrogen_burning_minimum_mass_msun": limit.mass_msun,
-        "extrapolated_by_msun": limit.extrapolated_by_msun,
+        "turning_point_estimate_msun": limit.turning_point_estimate_msun,
+        "stopped_by": limit.stopped_by,
         "limiting_model": Value::Object(m),
         "pulsational_instability_mass_msun": pulsation.mass_msun,
         "pulsational_search": pulsation
@@ -72,19 +75,29 @@ pub fn limits_text(limit: &HydrogenBurningLimit, pulsation: &PulsationalLimit) -
         model.physics().preset.to_string(),
         &laws_text(model.physics()),
     );
-    line(
-        "hydrogen-burning minimum mass",
-        num(limit.mass_msun),
-        "M_sun (turning point of the ZAMS branch)",
-    );
-    let at = match limit.extrapolated_by_msun {
-        None => "the model at the limit".to_string(),
-        Some(d) => format!(
-            "extrapolated {d:.1e} M_sun below the last model (the laws fail beyond it); that model, at {} M_sun:",
-            num(model.mass_msun())
+    match &limit.stopped_by {
+        Some(why) => {
+            line(
+                "hydrogen-burning minimum mass",
+                num(limit.mass_msun),
+                "M_sun (lowest mass the laws reach; they fail just below)",
+            );
+            line("", String::new(), &format!("stopped by: {why}"));
+            if let Some(estimate) = limit.turning_point_estimate_msun {
+                line(
+                    "turning point (extrapolated)",
+                    num(estimate),
+                    "M_sun (estimate beyond the laws' domain)",
+                );
+            }
+        }
+        None => line(
+            "hydrogen-burning minimum mass",
+            num(limit.mass_msun),
+            "M_sun (turning point of the ZAMS branch)",
         ),
-    };
-    line("", String::new(), &at);
+    }
+    line("", String::new(), "the model at the limit:");
     line("  radius", num(s.radius_rsun), "R_sun");
     line("  effective temperature", num(s.teff_k), "K");
     line("  luminosity", num(s.luminosity_lsun), "L_sun");

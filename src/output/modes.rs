@@ -8,7 +8,7 @@ use super::polytrope::number;
 use crate::error::Result;
 use crate::oscillation::{Mode, RadialStability, SeismicSummary};
 use crate::output::meta::Provenance;
-use crate::output::write_atomically;
+use crate::output::write_output;
 use crate::physics::PhysicsSpec;
 use crate::reference::{kjeldsen_bedding_large_separation_uhz, kjeldsen_bedding_nu_max_uhz};
 use serde::Serialize;
@@ -413,7 +413,7 @@ pub fn write_eigenfunctions_csv(
     modes: &[Mode],
     provenance: &Provenance,
 ) -> Result<()> {
-    write_atomically(path, |w| {
+    write_output(path, |w| {
         for line in provenance.comment_lines() {
             writeln!(w, "{line}")?;
         }

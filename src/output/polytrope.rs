@@ -1,8 +1,10 @@
 //! Output schema of `starpoise polytrope`: the JSON summary, its text rendering and the profile
 //! CSV. Every key and column is documented with its unit.
 
+use super::columns::polytrope_columns;
+use super::meta::Meta;
+use super::tabular::{write_table_file, Cell, TableFormat, Tabular};
 use crate::error::Result;
-use crate::output::write_atomically;
 use crate::polytrope::{LaneEmdenSolution, ScaledPolytrope};
 use serde::Serialize;
 use std::fmt::Write as _;
@@ -90,6 +92,40 @@ impl PolytropeSummary {
         }
     }
 
+    /// The first quantity of the scaled star that is not a finite number (an overflow or
+    /// underflow from absurd units), as (key, description), or `None` if all are finite.
+    pub fn non_finite(&self) -> Option<(&'static str, &'static str)> {
+        let values = [
+            ("mass_g", "the mass in g", self.mass_g),
+            ("radius_cm", "the radius in cm", self.radius_cm),
+            (
+                "central_density_g_cm3",
+                "the central density",
+                self.central_density_g_cm3,
+            ),
+            (
+                "central_pressure_dyn_cm2",
+                "the central pressure",
+                self.central_pressure_dyn_cm2,
+            ),
+            (
+                "central_temperature_k",
+                "the central temperature",
+                self.central_temperature_k,
+            ),
+            (
+                "potential_energy_erg",
+                "the potential energy",
+                self.potential_energy_erg,
+            ),
+            ("beta", "beta = P_gas/P", self.beta),
+        ];
+        values
+            .into_iter()
+            .find(|(_, _, v)| v.is_some_and(|v| !v.is_finite() || v == 0.0))
+            .map(|(k, d, _)| (k, d))
+    }
+
     /// The summary as aligned text for people: one quantity per line, value, unit.
     pub fn to_text(&self) -> String {
         let mut rows: Vec<(&str, String, &str)> = vec![
@@ -166,83 +202,73 @@ fn optional(x: Option<f64>) -> String {
     x.map_or_else(|| "infinite".to_string(), number)
 }
 
-/// One CSV row of a dimensionless profile.
-#[derive(Debug, Serialize)]
-struct DimensionlessRow {
-    /// Dimensionless radius xi.
-    xi: f64,
-    /// theta(xi).
-    theta: f64,
-    /// dtheta/dxi.
-    dtheta_dxi: f64,
+/// The content of a polytrope profile's metadata.
+pub const POLYTROPE_CONTENT: &str = "Lane-Emden polytrope profile";
+
+/// The metadata of a polytrope profile: `base` (provenance and content), `index`, and for a
+/// scaled star `mass_msun`, `radius_rsun`, `mu` and (Eddington's standard model) `beta`.
+pub fn profile_meta(base: &Meta, summary: &PolytropeSummary) -> Meta {
+    let mut m = base.clone().with("index", summary.index);
+    for (key, value) in [
+        ("mass_msun", summary.mass_msun),
+        ("radius_rsun", summary.radius_rsun),
+        ("mu", summary.mu),
+        ("beta", summary.beta),
+    ] {
+        if let Some(v) = value {
+            m = m.with(key, v);
+        }
+    }
+    m
 }
 
-/// One CSV row of a profile scaled to a star.
-#[derive(Debug, Serialize)]
-struct ScaledRow {
-    /// Dimensionless radius xi.
-    xi: f64,
-    /// theta(xi).
-    theta: f64,
-    /// dtheta/dxi.
-    dtheta_dxi: f64,
-    /// Radius, cm.
-    radius_cm: f64,
-    /// Radius over stellar radius.
-    #[serde(rename = "r_over_R")]
-    r_over_r: f64,
-    /// Mass inside r, g.
-    mass_g: f64,
-    /// Mass inside r over stellar mass.
-    #[serde(rename = "m_over_M")]
-    m_over_m: f64,
-    /// Density, g cm^-3.
-    density_g_cm3: f64,
-    /// Total pressure, dyn cm^-2.
-    pressure_dyn_cm2: f64,
-    /// Temperature, K.
-    temperature_k: f64,
-}
-
-/// Write the profile of `solution` as CSV to `path`, atomically (no partial file on failure).
+/// Write the profile of `solution` to `path`, centre first, one row per profile point: CSV
+/// (metadata lines, units line, header), JSON if the name ends in `.json`, ECSV if in `.ecsv`
+/// ([`crate::output::tabular`]); `-` is standard output (CSV), a file is written atomically (no
+/// partial file on failure).
 ///
-/// Columns, one header row: `xi,theta,dtheta_dxi` (dimensionless) always; when `scaled` is
-/// given also `radius_cm,r_over_R,mass_g,m_over_M,density_g_cm3,pressure_dyn_cm2,temperature_k`
-/// (cm, -, g, -, g cm^-3, dyn cm^-2, K). One row per profile point, centre first.
-pub fn write_profile_csv(
+/// Columns ([`polytrope_columns`]): `xi,theta,dtheta_dxi` (dimensionless) always; when `scaled`
+/// is given also `radius_cm,r_over_R,mass_g,m_over_M,density_g_cm3,pressure_dyn_cm2,
+/// temperature_k` (cm, -, g, -, g cm^-3, dyn cm^-2, K).
+pub fn write_profile(
     path: &Path,
     solution: &LaneEmdenSolution,
     scaled: Option<&ScaledPolytrope>,
+    meta: &Meta,
 ) -> Result<()> {
-    write_atomically(path, |w| {
-        let mut writer = csv::Writer::from_writer(w);
-        match scaled {
-            None => {
-                for p in &solution.profile {
-                    writer.serialize(DimensionlessRow {
-                        xi: p.xi,
-                        theta: p.theta,
-                        dtheta_dxi: p.dtheta_dxi,
-                    })?;
-                }
-            }
-            Some(s) => {
-                for (p, q) in solution.profile.iter().zip(&s.profile) {
-                    writer.serialize(ScaledRow {
-                        xi: p.xi,
-                        theta: p.theta,
-                        dtheta_dxi: p.dtheta_dxi,
-                        radius_cm: q.radius_cm,
-                        r_over_r: q.r_over_r,
-                        mass_g: q.mass_g,
-                        m_over_m: q.m_over_m,
-                        density_g_cm3: q.density_g_cm3,
-                        pressure_dyn_cm2: q.pressure_dyn_cm2,
-                        temperature_k: q.temperature_k,
-                    })?;
-                }
-            }
+    let columns = polytrope_columns(scaled.is_some());
+    let row = |i: usize| {
+        let p = &solution.profile[i];
+        let mut cells = vec![
+            Cell::number(p.xi),
+            Cell::number(p.theta),
+            Cell::number(p.dtheta_dxi),
+        ];
+        if let Some(q) = scaled.and_then(|s| s.profile.get(i)) {
+            cells.extend(
+                [
+                    q.radius_cm,
+                    q.r_over_r,
+                    q.mass_g,
+                    q.m_over_m,
+                    q.density_g_cm3,
+                    q.pressure_dyn_cm2,
+                    q.temperature_k,
+                ]
+                .map(Cell::number),
+            );
         }
-        writer.flush()
-    })
+        cells
+    };
+    let len = match scaled {
+        Some(s) => solution.profile.len().min(s.profile.len()),
+        None => solution.profile.len(),
+    };
+    let table = Tabular {
+        columns: &columns,
+        meta,
+        len,
+        row: &row,
+    };
+    write_table_file(path, TableFormat::from_path(path), &table, None::<&()>)
 }

@@ -4,6 +4,41 @@ use crate::physics::probe::ProbeReport;
 use std::fmt::Write as _;
 
 impl ProbeReport {
+    /// The name of the first reported quantity that is not a finite number, if any (a law
+    /// pushed past what floating point holds); the command line refuses such a point.
+    pub fn non_finite(&self) -> Option<&'static str> {
+        let values = [
+            ("P", self.pressure_dyn_cm2),
+            ("P_gas", self.gas_pressure_dyn_cm2),
+            ("P_rad", self.radiation_pressure_dyn_cm2),
+            ("beta", self.beta),
+            ("mu", self.mu),
+            ("chi_rho", self.chi_rho),
+            ("chi_T", self.chi_t),
+            ("nabla_ad", self.nabla_ad),
+            ("Gamma_1", self.gamma1),
+            ("c_P", self.cp_erg_g_k),
+            ("delta", self.delta),
+            ("degeneracy psi", self.degeneracy_psi.unwrap_or(0.0)),
+            ("H ionised", self.hydrogen_ionised),
+            ("He singly", self.helium_single),
+            ("He doubly", self.helium_double),
+            ("kappa", self.opacity_cm2_g),
+            ("eps_pp", self.eps_pp_erg_g_s),
+            ("eps_CNO", self.eps_cno_erg_g_s),
+            ("eps_total", self.eps_total_erg_g_s),
+            ("nu_pp", self.nu_pp),
+            ("nu_CNO", self.nu_cno),
+        ];
+        let own = values.into_iter().find(|(_, v)| !v.is_finite());
+        let law = self
+            .opacity_laws
+            .iter()
+            .any(|l| l.opacity_cm2_g.is_some_and(|k| !k.is_finite()));
+        own.map(|(name, _)| name)
+            .or(law.then_some("the kappa of an opacity law"))
+    }
+
     /// Aligned text with units, one quantity per line.
     pub fn to_text(&self) -> String {
         let mut o = String::new();

@@ -1,14 +1,25 @@
 //! Files of a grid run (`sequence`) and of merged shards: one row per grid point, columns from
-//! [`GridRow::columns`] (identification, physics, iterations, the summary quantities).
+//! [`GridRow::columns`] (identification, physics, iterations, the summary quantities), units and
+//! descriptions from [`sequence_columns`].
 //!
-//! - CSV: leading `# key: value` metadata lines (`grid_fingerprint`, `shard`, `fit_ranges`),
-//!   then a plain header row and one row per point (read it with `pandas.read_csv(path,
-//!   comment="#")`). Numbers are written in the shortest form that reads back to the same
-//!   double; an empty cell means "no value" (a model that did not converge has only its
-//!   identification, status, reason and iteration count).
-//! - JSON: one object `{grid_fingerprint, shard, fit_ranges, fits, rows}`, `rows` an array of
-//!   objects with the same keys as the CSV columns (`null` for no value).
+//! The metadata ([`Meta`]) holds the provenance, `content: ZAMS sequence table`,
+//! `grid_fingerprint`, `shard` (`K/N`, only in a shard's file) and `fit_ranges` (`0.1-0.5,...`,
+//! the ranges of the power-law fits, which `merge` uses).
+//!
+//! - CSV: leading `# key: value` metadata lines, `# units: {...}`, then a plain header row and
+//!   one row per point (read it with `pandas.read_csv(path, comment="#")`). Numbers are written
+//!   in the shortest form that reads back to the same double; an empty cell means "no value" (a
+//!   model that did not converge has only its identification, status, reason and iteration
+//!   count).
+//! - ECSV (`.ecsv`): the same columns and metadata with units in the YAML header
+//!   ([`crate::output::tabular`]).
+//! - JSON (`.json`): one object `{meta, grid_fingerprint, shard, fit_ranges, fits, units,
+//!   rows}`, `rows` an array of objects with the same keys as the CSV columns (`null` for no
+//!   value), `fits` the power-law fits of a whole grid.
 
+use super::columns::{sequence_columns, units_json};
+use super::meta::Meta;
+use super::tabular::{is_ecsv_text, read_ecsv, write_table_file, Cell, TableFormat, Tabular};
 use crate::error::{Error, Result};
 use crate::grid::fits::{format_ranges, parse_ranges, FitGroup};
 use crate::grid::{GridRow, GridTable, RowStatus};
@@ -17,53 +28,13 @@ use crate::structure::ModelSummary;
 use serde_json::{json, Map, Value};
 use std::path::Path;
 
-/// One cell of a row.
-#[derive(Debug, Clone, PartialEq)]
-enum Cell {
-    Text(String),
-    Number(f64),
-    Count(usize),
-    Flag(bool),
-    Empty,
-}
-
-impl Cell {
-    fn number(v: f64) -> Self {
-        if v.is_finite() {
-            Cell::Number(v)
-        } else {
-            Cell::Empty
-        }
-    }
-
-    fn csv(&self) -> String {
-        match self {
-            Cell::Text(s) => s.clone(),
-            Cell::Number(v) => format!("{v}"),
-            Cell::Count(n) => n.to_string(),
-            Cell::Flag(b) => b.to_string(),
-            Cell::Empty => String::new(),
-        }
-    }
-
-    fn json(&self) -> Value {
-        match self {
-            Cell::Text(s) => Value::String(s.clone()),
-            Cell::Number(v) => json!(v),
-            Cell::Count(n) => json!(n),
-            Cell::Flag(b) => Value::Bool(*b),
-            Cell::Empty => Value::Null,
-        }
-    }
-}
-
 /// The cells of `row`, in the order of [`GridRow::columns`].
 fn cells(row: &GridRow) -> Vec<Cell> {
     let p = &row.physics;
     let mut out = vec![
         Cell::Text(row.grid_fingerprint.clone()),
-        Cell::Count(row.grid_index),
-        Cell::Count(row.grid_size),
+        Cell::Count(row.grid_index as u64),
+        Cell::Count(row.grid_size as u64),
         Cell::Text(row.variant.clone()),
         Cell::Flag(row.converged()),
         Cell::Text(row.status.code().to_string()),
@@ -80,7 +51,8 @@ fn cells(row: &GridRow) -> Vec<Cell> {
         Cell::number(p.rates_factor),
         Cell::Text(p.convection.to_string()),
         Cell::Text(p.atmosphere.to_string()),
-        row.iterations.map_or(Cell::Empty, Cell::Count),
+        row.iterations
+            .map_or(Cell::Empty, |n| Cell::Count(n as u64)),
     ];
     match &row.summary {
         Some(s) => out.extend(s.values().into_iter().map(Cell::number)),
@@ -162,51 +134,59 @@ fn row_from(get: &dyn Fn(&str) -> Option<String>) -> std::result::Result<GridRow
     })
 }
 
-/// Whether a path names a JSON file (by extension), else CSV.
+/// Whether a path names a JSON file (by extension), else CSV or ECSV.
 pub fn is_json(path: &Path) -> bool {
-    path.extension()
-        .is_some_and(|e| e.eq_ignore_ascii_case("json"))
+    TableFormat::from_path(path) == TableFormat::Json
 }
 
-/// The whole table as one JSON value.
-pub fn table_json(table: &GridTable) -> Value {
+/// The content of a sequence table's metadata.
+pub const SEQUENCE_CONTENT: &str = "ZAMS sequence table";
+
+/// The metadata of a sequence table: `base` (provenance and content) with the grid keys.
+pub fn table_meta(base: &Meta, table: &GridTable) -> Meta {
+    let mut meta = base
+        .clone()
+        .with("grid_fingerprint", &table.grid_fingerprint);
+    if let Some(s) = &table.shard {
+        meta = meta.with("shard", s);
+    }
+    meta.with("fit_ranges", format_ranges(&table.fit_ranges))
+}
+
+/// The whole table as one JSON value, with `meta`.
+pub fn table_json(table: &GridTable, meta: &Meta) -> Value {
     json!({
+        "meta": table_meta(meta, table).to_json(),
         "grid_fingerprint": table.grid_fingerprint,
         "shard": table.shard,
         "fit_ranges": table.fit_ranges,
         "fits": table.fits,
+        "units": units_json(&sequence_columns()),
         "rows": table.rows.iter().map(row_json).collect::<Vec<_>>(),
     })
 }
 
-/// Write the table to `path` (CSV, or JSON if it ends in `.json`), atomically.
-pub fn write_table(path: &Path, table: &GridTable) -> Result<()> {
-    crate::output::write_atomically(path, |w| {
-        if is_json(path) {
-            serde_json::to_writer_pretty(&mut *w, &table_json(table))
-                .map_err(std::io::Error::other)?;
-            w.write_all(b"\n")
-        } else {
-            writeln!(w, "# starpoise sequence table")?;
-            writeln!(w, "# grid_fingerprint: {}", table.grid_fingerprint)?;
-            if let Some(s) = &table.shard {
-                writeln!(w, "# shard: {s}")?;
-            }
-            writeln!(w, "# fit_ranges: {}", format_ranges(&table.fit_ranges))?;
-            let mut csv = csv::Writer::from_writer(w);
-            csv.write_record(GridRow::columns())
-                .map_err(std::io::Error::other)?;
-            for r in &table.rows {
-                csv.write_record(cells(r).iter().map(Cell::csv))
-                    .map_err(std::io::Error::other)?;
-            }
-            csv.flush()
-        }
-    })
+/// Write the table to `path` (CSV; JSON if it ends in `.json`; ECSV if it ends in `.ecsv`):
+/// `-` is standard output (CSV), a file is written atomically. `meta` holds the provenance and
+/// content; the grid keys are added ([`table_meta`]).
+pub fn write_table(path: &Path, table: &GridTable, meta: &Meta) -> Result<()> {
+    let columns = sequence_columns();
+    let meta_all = table_meta(meta, table);
+    let row = |i: usize| cells(&table.rows[i]);
+    let tabular = Tabular {
+        columns: &columns,
+        meta: &meta_all,
+        len: table.rows.len(),
+        row: &row,
+    };
+    let format = TableFormat::from_path(path);
+    let json = (format == TableFormat::Json).then(|| table_json(table, meta));
+    write_table_file(path, format, &tabular, json.as_ref())
 }
 
-/// Read a table written by [`write_table`] (CSV or JSON by extension). For CSV the fits are not
-/// stored (they are recomputed by whoever merges); `fit_ranges` comes from the metadata line.
+/// Read a table written by [`write_table`] (JSON by extension; ECSV by its first line; else
+/// CSV). For CSV and ECSV the fits are not stored (they are recomputed by whoever merges);
+/// `fit_ranges` comes from the metadata.
 pub fn read_table(path: &Path) -> Result<GridTable> {
     let bad = |reason: String| Error::BadFile {
         path: path.display().to_string(),
@@ -246,13 +226,45 @@ pub fn read_table(path: &Path) -> Result<GridTable> {
                 .map_err(|e| bad(format!("fits: {e}")))?,
             rows,
         })
-    } else {
-        let mut meta = std::collections::HashMap::new();
-        for line in text.lines().take_while(|l| l.starts_with('#')) {
-            if let Some((k, v)) = line.trim_start_matches('#').split_once(':') {
-                meta.insert(k.trim().to_string(), v.trim().to_string());
+    } else if is_ecsv_text(&text) {
+        let t = read_ecsv(&text).map_err(|e| bad(format!("not a valid ECSV table: {e}")))?;
+        let names: Vec<&str> = t.columns.iter().map(|c| c.name.as_str()).collect();
+        let rows = t
+            .rows
+            .iter()
+            .enumerate()
+            .map(|(i, cells)| {
+                let get = |k: &str| {
+                    names
+                        .iter()
+                        .position(|n| *n == k)
+                        .map(|j| match cells[j].as_str() {
+                            "True" => "true".to_string(),
+                            "False" => "false".to_string(),
+                            other => other.to_string(),
+                        })
+                };
+                row_from(&get).map_err(|e| bad(format!("data row {}: {e}", i + 1)))
+            })
+            .collect::<Result<Vec<_>>>()?;
+        let text_of = |k: &str| t.meta.get(k).and_then(Value::as_str).map(String::from);
+        let fit_ranges = match text_of("fit_ranges") {
+            Some(r) if !r.is_empty() => {
+                parse_ranges(&r).map_err(|e| bad(format!("fit_ranges: {e}")))?
             }
-        }
+            _ => Vec::new(),
+        };
+        Ok(GridTable {
+            grid_fingerprint: text_of("grid_fingerprint").unwrap_or_default(),
+            shard: text_of("shard"),
+            fit_ranges,
+            fits: Vec::new(),
+            rows,
+        })
+    } else {
+        let meta: std::collections::HashMap<String, String> =
+            Meta::read_comment_lines(&text).into_iter().collect();
+        let comment_lines = text.lines().take_while(|l| l.starts_with('#')).count();
         let mut reader = csv::ReaderBuilder::new()
             .comment(Some(b'#'))
             .from_reader(text.as_bytes());
@@ -264,7 +276,7 @@ pub fn read_table(path: &Path) -> Result<GridTable> {
             .records()
             .enumerate()
             .map(|(i, record)| {
-                let line = meta.len() + i + 2;
+                let line = comment_lines + i + 2;
                 let record = record.map_err(|e| bad(format!("line {line}: {e}")))?;
                 let get = |k: &str| {
                     header

@@ -1,15 +1,19 @@
-//! Output of one ZAMS model: the summary (JSON object or aligned text) and the profile (CSV or
-//! JSON rows). Keys carry their units; the summary quantities and their documentation come from
-//! [`ModelSummary::FIELDS`], the profile columns from [`ProfileRow`].
+//! Output of one ZAMS model: the summary (JSON object or aligned text) and the profile (CSV,
+//! ECSV or JSON, see [`crate::output::tabular`]). Keys carry their units; the summary quantities
+//! and their documentation come from [`ModelSummary::FIELDS`], the profile columns from
+//! [`ProfileRow`] and their units from [`profile_columns`].
 //!
 //! JSON summary keys: `mass_msun`, `x`, `y`, `z`, `physics` (a model-file fragment: the keys of
 //! [`crate::physics::PhysicsSpec`]), `converged`, `iterations`, `fit_mismatch`,
 //! `fit_mass_fraction`, every key of [`ModelSummary::FIELDS`], `rhs_evaluations`, `warnings`
 //! (an array of sentences: where the model leaves what its laws describe well). A model that
 //! did not converge has `converged: false`, `status` and `reason`, and every summary quantity
-//! `null`.
+//! `null`. The command line adds `meta` (the provenance, [`crate::output::meta`]).
 
+use super::columns::profile_columns;
 use super::format::{laws_text, num};
+use super::meta::{Meta, Provenance};
+use super::tabular::{cells_of, write_table_file, TableFormat, Tabular};
 use crate::error::{Error, Result};
 use crate::structure::{ModelSummary, NotConverged, ProfileRow, ZamsModel, ZamsSettings};
 use serde_json::{json, Map, Value};
@@ -78,30 +82,49 @@ pub fn to_json_text(value: &Value) -> Result<String> {
     })
 }
 
-/// Profile file format.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum ProfileFormat {
-    /// Comma-separated values with a header row (the field names of [`ProfileRow`]).
-    Csv,
-    /// A JSON array of row objects.
-    Json,
+/// `value` (a JSON object) with the key `meta` set to `meta`.
+pub fn with_meta(mut value: Value, meta: &Meta) -> Value {
+    if let Value::Object(m) = &mut value {
+        m.insert("meta".into(), meta.to_json());
+    }
+    value
 }
 
-/// Write profile rows as CSV or JSON, atomically.
-pub fn write_profile(path: &Path, rows: &[ProfileRow], format: ProfileFormat) -> Result<()> {
-    super::write_atomically(path, |w| match format {
-        ProfileFormat::Csv => {
-            let mut csv = csv::Writer::from_writer(w);
-            for r in rows {
-                csv.serialize(r).map_err(std::io::Error::other)?;
-            }
-            csv.flush()
-        }
-        ProfileFormat::Json => {
-            serde_json::to_writer(&mut *w, rows).map_err(std::io::Error::other)?;
-            w.write_all(b"\n")
-        }
-    })
+/// The metadata of a profile file of `model`: the provenance, `content: ZAMS profile`, the
+/// physics, `x`, `y`, `z`, `mass_msun`, `radius_rsun`, `luminosity_lsun`, `teff_k`, and
+/// `rows_from` (what the first and last rows are).
+pub fn profile_meta(provenance: &Provenance, model: &ZamsModel) -> Meta {
+    Meta::new(provenance, "ZAMS profile")
+        .physics(model.physics())
+        .composition(model.composition())
+        .with("mass_msun", model.mass_msun())
+        .with("radius_rsun", model.summary.radius_rsun)
+        .with("luminosity_lsun", model.summary.luminosity_lsun)
+        .with("teff_k", model.summary.teff_k)
+        .with(
+            "rows_from",
+            "the centre (first row: m = 1e-10 M, where the outward integration starts) to the photosphere (last row)",
+        )
+}
+
+/// Write profile rows to `path` in `format` (see [`crate::output::tabular`] for the three
+/// formats; columns and units from [`profile_columns`]): `-` is standard output, a file is
+/// written atomically.
+pub fn write_profile(
+    path: &Path,
+    rows: &[ProfileRow],
+    format: TableFormat,
+    meta: &Meta,
+) -> Result<()> {
+    let columns = profile_columns();
+    let row = |i: usize| cells_of(&rows[i], &columns);
+    let table = Tabular {
+        columns: &columns,
+        meta,
+        len: rows.len(),
+        row: &row,
+    };
+    write_table_file(path, format, &table, None::<&()>)
 }
 
 /// The summary as aligned text with units.

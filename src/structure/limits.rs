@@ -34,12 +34,14 @@ pub const LIMIT_TABLE_Z: [f64; 5] = [0.001, 0.004, 0.01, 0.02, 0.04];
 /// The hydrogen-burning minimum mass of the `refined` preset, M_sun, at each X (rows, in the
 /// order of [`LIMIT_TABLE_X`]) and Z (columns, [`LIMIT_TABLE_Z`]): computed by
 /// [`hydrogen_burning_limit`] (`cargo run --release --example limit_table`; regenerate it when
-/// the refined laws change). NaN where the limit cannot be found with these laws (the
-/// equation of state fails on the way to the turning point).
+/// the refined laws change): for every entry today the lowest mass the laws reach, where the
+/// molecular equation of state turns thermodynamically unstable (rho ~ 1.4e3 g/cm^3, T ~ 4e5
+/// K, in the strongly coupled plasma) just before the turning point. NaN would mark a
+/// composition whose limit cannot be found.
 pub const REFINED_LIMITS: [[f64; 5]; 3] = [
-    [f64::NAN, f64::NAN, 0.066909, 0.065691, f64::NAN],
-    [0.077895, 0.074626, 0.071058, 0.069819, 0.067788],
-    [0.084284, 0.079324, 0.077957, 0.074101, 0.071653],
+    [0.074099, 0.070068, 0.067456, 0.065691, 0.063607],
+    [0.078863, 0.074626, 0.071881, 0.069833, 0.067808],
+    [0.084284, 0.079324, 0.077957, 0.074292, 0.072142],
 ];
 
 /// How far below the tabulated limit a mass must lie to be refused (the interpolation accuracy
@@ -68,16 +70,21 @@ const LN_MASS_STEP: f64 = 1e-6;
 /// The hydrogen-burning limit of one composition and set of laws.
 #[derive(Debug, Clone)]
 pub struct HydrogenBurningLimit {
-    /// The limiting mass, M_sun.
+    /// The limiting mass, M_sun: the turning point of the ZAMS branch where the continuation
+    /// reached it; otherwise the lowest mass at which the laws still give a model (the laws
+    /// fail just below it, `stopped_by`), an upper bound of the turning point of these laws.
     pub mass_msun: f64,
-    /// The model at the limit, or the last model reached before it when the turning point had
-    /// to be extrapolated (see `extrapolated_by_msun`).
+    /// The model at `mass_msun`.
     pub model: ZamsModel,
-    /// `None` when the continuation reached the turning point; otherwise the mass by which the
-    /// limit lies below the last model reached (the laws failed on the way, and the turning
-    /// point was extrapolated from the branch's approach to it,
-    /// [`crate::numerics::continuation::FoldLocation::Extrapolated`]).
-    pub extrapolated_by_msun: Option<f64>,
+    /// `None` when the continuation reached the turning point; otherwise where the turning
+    /// point lies by a parabola through the branch's approach to it, M_sun
+    /// ([`crate::numerics::continuation::FoldLocation::Stalled`]; `None` also when the parabola
+    /// gives no vertex ahead): an estimate beyond the
+    /// laws' domain, which moves by up to about 1 per cent with the branch's last steps.
+    pub turning_point_estimate_msun: Option<f64>,
+    /// Why the branch could not be followed below `mass_msun` (`None` when the turning point
+    /// was reached).
+    pub stopped_by: Option<String>,
     /// Masses visited along the branch, M_sun, from the start down to the limit.
     pub branch_masses_msun: Vec<f64>,
 }
@@ -178,8 +185,9 @@ pub fn hydrogen_burning_limit(
         (lo.ln(), hi.ln()),
         &ContinuationSettings::default(),
     );
-    let last_error = branch
-        .last_error
+    let stopped_by = branch.last_error.map(|e| e.to_string());
+    let last_error = stopped_by
+        .as_ref()
         .map_or(String::new(), |e| format!(" (last failure: {e})"));
     let fold = result.map_err(|e| match e {
         ContinuationError::Start(leg) => Error::Leg(leg),
@@ -202,15 +210,20 @@ pub fn hydrogen_burning_limit(
         ),
     })?;
     let model = model_at(composition, physics, fold.point.lambda.exp(), fold.point.u)?;
-    let mass_msun = fold.lambda.exp();
-    let extrapolated_by_msun = match fold.located {
-        FoldLocation::Reached => None,
-        FoldLocation::Extrapolated { .. } => Some(model.mass_msun() - mass_msun),
+    let (mass_msun, turning_point_estimate_msun, stopped_by) = match fold.located {
+        FoldLocation::Reached => (fold.lambda.exp(), None, None),
+        FoldLocation::Stalled { extrapolated } => {
+            let why = stopped_by.unwrap_or_else(|| {
+                "Newton's method did not converge on the branch below it".to_string()
+            });
+            (model.mass_msun(), extrapolated.map(f64::exp), Some(why))
+        }
     };
     Ok(HydrogenBurningLimit {
         mass_msun,
         model,
-        extrapolated_by_msun,
+        turning_point_estimate_msun,
+        stopped_by,
         branch_masses_msun: fold.branch.iter().map(|p| p.lambda.exp()).collect(),
     })
 }
@@ -223,8 +236,8 @@ fn model_at(
     mass_msun: f64,
     u: Unknowns,
 ) -> Result<ZamsModel> {
-    let settings =
-        ZamsSettings::new(mass_msun, *composition, physics.clone())?.with_unknowns_guess(u);
+    let settings = ZamsSettings::near_the_limit(mass_msun, *composition, physics.clone())?
+        .with_unknowns_guess(u);
     let ctx = leg_context(mass_msun, physics, composition, DEFAULT_TOLERANCE);
     let mut problem = ShootingProblem::new(ctx, settings.fit_mass_fraction(), DEFAULT_TOLERANCE)?;
     let legs = problem.legs_at(&u)?;

@@ -59,6 +59,33 @@ pub struct ZamsSettings {
     newton: NewtonSettings,
 }
 
+/// Refuses (as [`Error::InvalidInput`] naming `mass_msun`) a mass below the built-in table of
+/// hydrogen-burning limits of the refined preset ([`limits::tabulated_refined_limit_msun`],
+/// less [`limits::TABLE_MARGIN`]): no hydrogen-burning star of that mass exists.
+fn check_tabulated_limit(
+    mass_msun: f64,
+    composition: &Composition,
+    physics: &PhysicsSet,
+) -> Result<()> {
+    if *physics.spec() == crate::physics::Preset::Refined.spec() {
+        if let Some(limit) = limits::tabulated_refined_limit_msun(composition.x(), composition.z())
+        {
+            if mass_msun < limit * (1.0 - limits::TABLE_MARGIN) {
+                return Err(Error::invalid(
+                    "mass_msun",
+                    mass_msun,
+                    &format!(
+                        "no hydrogen-burning star of this mass exists for X = {}, Z = {}: the hydrogen-burning minimum mass of the refined physics is {limit:.4} M_sun there (built-in table; `starpoise limits` computes it, also for other laws)",
+                        composition.x(),
+                        composition.z()
+                    ),
+                ));
+            }
+        }
+    }
+    Ok(())
+}
+
 impl ZamsSettings {
     /// Settings for a star of `mass_msun` (see [`MASS_RANGE_MSUN`]) with the given
     /// composition and laws; fitting mass [`DEFAULT_FIT_MASS_FRACTION`], tolerance
@@ -80,23 +107,19 @@ impl ZamsSettings {
                 "a zero-age main-sequence star burns hydrogen: X must be above 0, e.g. 0.70",
             ));
         }
-        if *physics.spec() == crate::physics::Preset::Refined.spec() {
-            if let Some(limit) =
-                limits::tabulated_refined_limit_msun(composition.x(), composition.z())
-            {
-                if mass_msun < limit * (1.0 - limits::TABLE_MARGIN) {
-                    return Err(Error::invalid(
-                        "mass_msun",
-                        mass_msun,
-                        &format!(
-                            "no hydrogen-burning star of this mass exists for X = {}, Z = {}: the hydrogen-burning minimum mass of the refined physics is {limit:.4} M_sun there (built-in table; `starpoise limits` computes it, also for other laws)",
-                            composition.x(),
-                            composition.z()
-                        ),
-                    ));
-                }
-            }
-        }
+        check_tabulated_limit(mass_msun, &composition, &physics)?;
+        Self::near_the_limit(mass_msun, composition, physics)
+    }
+
+    /// [`ZamsSettings::new`] without the check against the built-in table of hydrogen-burning
+    /// limits: for the search of the limit itself ([`limits::hydrogen_burning_limit`]), which
+    /// must be free to go below a table made with other laws' versions.
+    pub(crate) fn near_the_limit(
+        mass_msun: f64,
+        composition: Composition,
+        physics: PhysicsSet,
+    ) -> Result<Self> {
+        let (_, hi) = MASS_RANGE_MSUN;
         let preset = physics.spec().preset;
         if let Some(min) = preset.minimum_mass_msun() {
             if mass_msun < min {

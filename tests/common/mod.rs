@@ -21,6 +21,36 @@ pub fn scratch_dir(name: &str) -> PathBuf {
     dir
 }
 
+/// A table file's text without its provenance `command` (the one line in which the outputs of
+/// different command lines that computed the same numbers may differ): the `# command: ...`
+/// line of CSV, the `command` entry of ECSV's meta, the `"command"` member of JSON.
+pub fn without_command(path: &std::path::Path) -> String {
+    let text = std::fs::read_to_string(path).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+    text.lines()
+        .filter(|l| {
+            !(l.starts_with("# command: ")
+                || l.starts_with("# - {\"command\": ")
+                || l.trim_start().starts_with("\"command\": "))
+        })
+        .map(|l| format!("{l}\n"))
+        .collect()
+}
+
+/// Solve the small analytic grid `--masses 1,2` into `out` (a shard file for merge tests).
+pub fn small_grid(out: &std::path::Path) {
+    let o = starpoise(&[
+        "sequence",
+        "--quiet",
+        "--masses",
+        "1,2",
+        "--physics",
+        "analytic",
+        "--out",
+        out.to_str().expect("a UTF-8 path"),
+    ]);
+    assert!(o.status.success(), "{}", stderr(&o));
+}
+
 /// Standard error as text.
 pub fn stderr(o: &Output) -> String {
     String::from_utf8_lossy(&o.stderr).into_owned()

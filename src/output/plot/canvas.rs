@@ -42,14 +42,15 @@ impl ImageFormat {
     }
 }
 
-/// The format of the figure file `path` given with `flag`, before anything is computed: its
-/// directory must exist and it must not be a directory ([`crate::output::check_output_path`]),
-/// and its extension must name a format ([`ImageFormat::from_path`]).
+/// The format of the figure file `path` given with `flag`, before anything is computed: it is
+/// not standard output (`-`), it can be written ([`crate::output::check_outputs`]), and its
+/// extension names a format ([`ImageFormat::from_path`]).
 ///
 /// Errors: [`Error::InvalidInput`] (exit code 2) naming the flag, the value and the allowed
-/// extensions, or the directory problem.
+/// extensions, or what is wrong with the path.
 pub fn check_figure_path(flag: &str, path: &Path) -> Result<ImageFormat> {
-    crate::output::check_output_path(flag, path)?;
+    use crate::output::OutputKind;
+    crate::output::check_outputs(&[], &[(flag, path, OutputKind::Figure)])?;
     figure_format(flag, path)
 }
 
@@ -128,7 +129,7 @@ pub(crate) fn write_figure<F: Figure>(path: &Path, figure: &F) -> Result<F::Layo
         },
         other => other,
     })?;
-    crate::output::write_atomically(path, |w| w.write_all(&bytes))?;
+    crate::output::write_output(path, |w| w.write_all(&bytes))?;
     Ok(layout)
 }
 

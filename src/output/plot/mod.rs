@@ -5,7 +5,7 @@
 //! backend, whose text stays text laid out by the viewer; PNG through the bitmap backend with
 //! text set from a font embedded in the program (`font.rs`, `raster.rs`), so neither needs a
 //! system font or image library. Every file is rendered to memory first and then written
-//! through [`crate::output::write_atomically`], so a failure never leaves a partial file; a
+//! through [`crate::output::write_output`], so a failure never leaves a partial file; a
 //! file name whose extension names neither format is refused before anything is drawn.
 //!
 //! Styles are chosen to survive grey-scale print: each series differs in marker shape, line

@@ -86,9 +86,21 @@ pub fn read_table(path: &Path) -> Result<PlotInput> {
 }
 
 fn read_profile(path: &Path, mut reader: csv::Reader<std::fs::File>) -> Result<PlotInput> {
+    let header = reader.headers().map_err(|e| csv_error(path, &e))?.clone();
     let mut rows = Vec::new();
-    for row in reader.deserialize::<ProfileRow>() {
-        rows.push(row.map_err(|e| csv_error(path, &e))?);
+    for record in reader.records() {
+        let record = record.map_err(|e| csv_error(path, &e))?;
+        // An empty field is a value that does not exist (the centre's Lamb frequencies).
+        let mut filled: csv::StringRecord = record
+            .iter()
+            .map(|f| if f.is_empty() { "NaN" } else { f })
+            .collect();
+        filled.set_position(record.position().cloned());
+        rows.push(
+            filled
+                .deserialize::<ProfileRow>(Some(&header))
+                .map_err(|e| csv_error(path, &e))?,
+        );
     }
     if rows.is_empty() {
         return Err(bad(path, "a profile header but no rows"));

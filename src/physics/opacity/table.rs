@@ -6,6 +6,14 @@
 //! rectangular grid sorted by log10_T and, within each log10_T, by log10_R, with the same
 //! log10_R values for every log10_T; at least 2 values on each axis. A table describes one
 //! composition: the X and Z passed to [`Opacity::kappa`] are ignored.
+//!
+//! Limits, checked when the table is read (an error names the file and the line): log10_T in
+//! [`LOG10_T_RANGE`], log10_R in [`LOG10_R_RANGE`], log10_kappa in [`LOG10_KAPPA_RANGE`], and
+//! neighbouring values on each axis at least [`MIN_AXIS_STEP`] apart. Within them no
+//! intermediate of the interpolation can overflow, and since the Steffen interpolant stays
+//! between the values of the nodes around it (it is monotone on each interval; Steffen 1990),
+//! the interpolated log10 kappa stays in [`LOG10_KAPPA_RANGE`]: kappa is finite and positive
+//! everywhere in and (clamped) around the table, even times the largest opacity factor.
 
 use super::{check_point, Opacity};
 use crate::error::{Error, PhysicsError, Result};
@@ -14,6 +22,17 @@ use std::path::Path;
 
 /// The header line the format requires.
 pub const TABLE_HEADER: &str = "log10_T,log10_R,log10_kappa";
+
+/// Allowed log10 T (T in K): 1 K to 1e12 K, beyond any star's interior or atmosphere.
+pub const LOG10_T_RANGE: (f64, f64) = (0.0, 12.0);
+/// Allowed log10 R (R = rho / T6^3 in g cm^-3), wider than any published table's.
+pub const LOG10_R_RANGE: (f64, f64) = (-30.0, 30.0);
+/// Allowed log10 kappa (kappa in cm^2 g^-1): 1e-30 to 1e30, so that kappa times any opacity
+/// factor (at most 1e6) and the quantities built from it stay finite.
+pub const LOG10_KAPPA_RANGE: (f64, f64) = (-30.0, 30.0);
+/// Smallest step between neighbouring values of log10_T or log10_R (a smaller one would make
+/// the interpolation's slopes overflow).
+pub const MIN_AXIS_STEP: f64 = 1e-6;
 
 /// An opacity table interpolated by a tensor product of Steffen (1990, A&A 239, 443)
 /// monotone cubic Hermite splines in log10_R and log10_T on log10_kappa (C1, no overshoot
@@ -108,7 +127,21 @@ impl TableOpacity {
                     }
                 };
             }
+            for (value, name, (lo, hi)) in [
+                (values[0], "log10_T", LOG10_T_RANGE),
+                (values[1], "log10_R", LOG10_R_RANGE),
+                (values[2], "log10_kappa", LOG10_KAPPA_RANGE),
+            ] {
+                if !(lo..=hi).contains(&value) {
+                    return Err(bad(
+                        label,
+                        line,
+                        format!("{name} = {value} is outside the allowed [{lo}, {hi}]"),
+                    ));
+                }
+            }
             let [t, r, k] = values;
+            let too_close = |a: f64, b: f64| (a - b).abs() < MIN_AXIS_STEP;
             match log_t.last().copied() {
                 None => {
                     log_t.push(t);
@@ -129,6 +162,13 @@ impl TableOpacity {
                             label,
                             line,
                             format!("log10_R {r} is smaller than {prev_r} on line {prev_line}: rows must be sorted by log10_R within each log10_T"),
+                        ));
+                    }
+                    if too_close(r, prev_r) {
+                        return Err(bad(
+                            label,
+                            line,
+                            format!("log10_R {r} is closer than {MIN_AXIS_STEP} to {prev_r} on line {prev_line}"),
                         ));
                     }
                     if log_t.len() == 1 {
@@ -155,6 +195,13 @@ impl TableOpacity {
                             label,
                             line,
                             format!("log10_R {r} is not the first grid value {} (the grid must be complete and rectangular)", log_r[0]),
+                        ));
+                    }
+                    if too_close(t, current) {
+                        return Err(bad(
+                            label,
+                            line,
+                            format!("log10_T {t} is closer than {MIN_AXIS_STEP} to {current} on line {prev_line}"),
                         ));
                     }
                     log_t.push(t);
@@ -295,7 +342,9 @@ impl Opacity for TableOpacity {
     }
 
     /// kappa = 10^(interpolated log10 kappa) at log10 T and log10 R = log10 rho - 3 log10(T/1e6).
-    /// Outside the grid: an error naming the point and the range, unless clamping.
+    /// Outside the grid: an error naming the point and the range, unless clamping. A value that
+    /// is not finite and positive (impossible within the table's limits, see the module
+    /// documentation) is an error, never returned.
     fn kappa(&self, rho: f64, t: f64, _comp: &Composition) -> Result<f64, PhysicsError> {
         check_point("table", rho, t)?;
         let log_t = t.log10();
@@ -313,7 +362,17 @@ impl Opacity for TableOpacity {
                 t,
             ));
         }
-        Ok(10f64.powf(self.log10_kappa_at(log_t, log_r)))
+        let kappa = 10f64.powf(self.log10_kappa_at(log_t, log_r));
+        if kappa.is_finite() && kappa > 0.0 {
+            Ok(kappa)
+        } else {
+            Err(PhysicsError::new(
+                &self.name(),
+                format!("the interpolated opacity {kappa} is not a finite positive number"),
+                rho,
+                t,
+            ))
+        }
     }
 }
 

@@ -58,7 +58,7 @@ mod tests {
     /// Every key of the profile, the summary and the sequence table that is a pure number or
     /// text by definition. A new key with a unit ending that [`UNIT_SUFFIXES`] lacks would get
     /// no unit silently; this list makes such a key fail the test instead.
-    const UNITLESS: [&str; 44] = [
+    const UNITLESS: [&str; 45] = [
         // profile
         "m_over_M",
         "r_over_R",
@@ -90,6 +90,7 @@ mod tests {
         "converged",
         "status",
         "reason",
+        "warnings",
         "x",
         "y",
         "z",

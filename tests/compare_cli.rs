@@ -218,7 +218,9 @@ fn writes_csv_and_json() {
     let mut lines = text.lines().skip_while(|l| l.starts_with('#'));
     let header = lines.next().unwrap_or("");
     assert!(
-        header.starts_with("mass_msun,x,y,z,variant,spec,reference,status,reason,luminosity_lsun"),
+        header.starts_with(
+            "mass_msun,x,y,z,variant,spec,reference,status,reason,warnings,luminosity_lsun"
+        ),
         "{header}"
     );
     assert!(header.contains("sensitivity_central_density"));

@@ -7,7 +7,7 @@ use super::sequence::parse_variants;
 use super::Format;
 use clap::Args;
 use starpoise::grid::run::{solve_points, RunSettings};
-use starpoise::grid::{parse_value_list, Grid};
+use starpoise::grid::{parse_value_list, Grid, GridRow};
 use starpoise::output::compare::{
     table_json, write_table, CompareRecord, CompareTable, COMPARE_CONTENT,
 };
@@ -172,6 +172,17 @@ fn row(r: &CompareRecord) -> String {
         signed(r.dlog_central_density_dex, 8, 4),
         signed(r.delta_convective_core_mass_fraction, 8, 4),
     );
+    for warning in r
+        .warnings
+        .split(GridRow::WARNING_SEPARATOR)
+        .filter(|w| !w.is_empty())
+    {
+        line.push_str(&format!(
+            "{:>pad$}warning: {warning}\n",
+            "",
+            pad = NAME_WIDTH + 6
+        ));
+    }
     if let (Some(f), Some(a), Some(b)) = (&r.varied_factor, r.factor_reference, r.factor_variant) {
         line.push_str(&format!(
             "{:>w$}dlog Q / dlog({f} {a} -> {b}):  L {}  R {}  T_c {}  rho_c {}\n",

@@ -176,7 +176,11 @@ pub fn text_table(t: &GridTable) -> String {
     for r in &t.rows {
         let s = r.summary.as_ref();
         let status = if r.converged() {
-            r.status.code().to_string()
+            match r.warnings.len() {
+                0 => r.status.code().to_string(),
+                1 => format!("{} (1 warning, below)", r.status.code()),
+                n => format!("{} ({n} warnings, below)", r.status.code()),
+            }
         } else {
             format!("{}: {}", r.status.code(), r.reason)
         };
@@ -197,6 +201,18 @@ pub fn text_table(t: &GridTable) -> String {
             )),
             status
         ));
+    }
+    let warned: Vec<&GridRow> = t.rows.iter().filter(|r| !r.warnings.is_empty()).collect();
+    if !warned.is_empty() {
+        out.push_str("\nwarnings (laws used outside their validity):\n");
+        for r in warned {
+            for w in &r.warnings {
+                out.push_str(&format!(
+                    "  {} X = {} Z = {} M = {} M_sun: {w}\n",
+                    r.variant, r.x, r.z, r.mass_msun
+                ));
+            }
+        }
     }
     for g in &t.fits {
         out.push_str(&format!(

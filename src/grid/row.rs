@@ -75,6 +75,9 @@ pub struct GridRow {
     pub status: RowStatus,
     /// Why it did not converge (empty when it did).
     pub reason: String,
+    /// Warnings of a converged model whose laws were used outside their validity
+    /// ([`crate::structure::ZamsModel::warnings`]; empty otherwise).
+    pub warnings: Vec<String>,
     /// Mass, M_sun.
     pub mass_msun: f64,
     /// Hydrogen mass fraction X.
@@ -91,7 +94,7 @@ pub struct GridRow {
 
 impl GridRow {
     /// The identification columns, before the physics keys and the summary quantities.
-    pub const ID_COLUMNS: [&'static str; 11] = [
+    pub const ID_COLUMNS: [&'static str; 12] = [
         "grid_fingerprint",
         "grid_index",
         "grid_size",
@@ -99,6 +102,7 @@ impl GridRow {
         "converged",
         "status",
         "reason",
+        "warnings",
         "mass_msun",
         "x",
         "y",
@@ -129,9 +133,16 @@ impl GridRow {
             .collect()
     }
 
+    /// Separator of the warnings in the `warnings` column.
+    pub const WARNING_SEPARATOR: &'static str = " | ";
+
     /// The row for one result of `grid`.
     pub fn new(grid: &Grid, fingerprint: &str, r: &PointResult) -> Self {
         let p = &r.point;
+        let warnings = r
+            .outcome
+            .as_ref()
+            .map_or_else(|_| Vec::new(), |m| m.warnings.clone());
         let (status, reason, iterations, summary) = match &r.outcome {
             Ok(m) => (
                 if r.continued {
@@ -158,6 +169,7 @@ impl GridRow {
             variant: grid.variants[p.variant].name.clone(),
             status,
             reason,
+            warnings,
             mass_msun: p.mass_msun,
             x: p.composition.x(),
             z: p.composition.z(),

@@ -178,7 +178,7 @@ pub fn profile_columns() -> Vec<Column> {
 /// The columns of a sequence table, in the order of [`crate::grid::GridRow::columns`].
 pub fn sequence_columns() -> Vec<Column> {
     use DataType::{Bool, Float64, Int64, String};
-    let own: [(&str, DataType, &str); 20] = [
+    let own: [(&str, DataType, &str); 21] = [
         ("grid_fingerprint", String,
             "fingerprint of the whole grid's definition (the same in every shard of one grid)",
         ),
@@ -190,6 +190,9 @@ pub fn sequence_columns() -> Vec<Column> {
             "converged, continued (from a neighbour's solution), failed, or why the iteration stopped",
         ),
         ("reason", String, "why the model did not converge (empty when it did)"),
+        ("warnings", String,
+            "laws used outside their validity in a converged model, separated by ' | ' (empty: none)",
+        ),
         ("mass_msun", Float64, "stellar mass"),
         ("x", Float64, "hydrogen mass fraction X"),
         ("y", Float64, "helium mass fraction Y = 1 - X - Z"),
@@ -244,7 +247,7 @@ pub fn polytrope_columns(scaled: bool) -> Vec<Column> {
 /// The columns of a `compare` record, in the order of its fields.
 pub fn compare_columns() -> Vec<Column> {
     use DataType::{Bool, Float64, String};
-    let table: [(&str, DataType, &str); 27] = [
+    let table: [(&str, DataType, &str); 28] = [
         ("mass_msun", Float64, "stellar mass"),
         ("x", Float64, "hydrogen mass fraction X"),
         ("y", Float64, "helium mass fraction Y = 1 - X - Z"),
@@ -265,6 +268,11 @@ pub fn compare_columns() -> Vec<Column> {
             "reason",
             String,
             "why the model did not converge (empty when it did)",
+        ),
+        (
+            "warnings",
+            String,
+            "laws used outside their validity in a converged model, separated by ' | ' (empty: none)",
         ),
         ("luminosity_lsun", Float64, "luminosity"),
         ("radius_rsun", Float64, "radius"),

@@ -37,6 +37,9 @@ pub struct CompareRecord {
     pub status: String,
     /// Why the model did not converge (empty when it did).
     pub reason: String,
+    /// A converged model's warnings (laws used outside their validity), separated by ` | `
+    /// ([`GridRow::WARNING_SEPARATOR`]); empty if there are none.
+    pub warnings: String,
     /// Luminosity, L_sun.
     pub luminosity_lsun: Option<f64>,
     /// Radius, R_sun.
@@ -136,6 +139,7 @@ impl CompareTable {
                     reference: v == 0,
                     status: row.status.code().to_string(),
                     reason: row.reason,
+                    warnings: row.warnings.join(GridRow::WARNING_SEPARATOR),
                     luminosity_lsun: own.map(|s| s.luminosity_lsun),
                     radius_rsun: own.map(|s| s.radius_rsun),
                     teff_k: own.map(|s| s.teff_k),

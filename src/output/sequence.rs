@@ -10,7 +10,8 @@
 //!   one row per point (read it with `pandas.read_csv(path, comment="#")`). Numbers are written
 //!   in the shortest form that reads back to the same double; an empty cell means "no value" (a
 //!   model that did not converge has only its identification, status, reason and iteration
-//!   count).
+//!   count). `warnings` holds a converged model's warnings (laws used outside their validity),
+//!   separated by ` | `, empty if there are none.
 //! - ECSV (`.ecsv`): the same columns and metadata with units in the YAML header
 //!   ([`crate::output::tabular`]).
 //! - JSON (`.json`): one object `{meta, grid_fingerprint, shard, fit_ranges, fits, units,
@@ -39,6 +40,7 @@ fn cells(row: &GridRow) -> Vec<Cell> {
         Cell::Flag(row.converged()),
         Cell::Text(row.status.code().to_string()),
         Cell::Text(row.reason.clone()),
+        Cell::Text(row.warnings.join(GridRow::WARNING_SEPARATOR)),
         Cell::number(row.mass_msun),
         Cell::number(row.x),
         Cell::number(1.0 - row.x - row.z),
@@ -125,6 +127,16 @@ fn row_from(get: &dyn Fn(&str) -> Option<String>) -> std::result::Result<GridRow
         variant: text("variant")?,
         status,
         reason: text("reason")?,
+        warnings: {
+            let t = text("warnings")?;
+            if t.is_empty() {
+                Vec::new()
+            } else {
+                t.split(GridRow::WARNING_SEPARATOR)
+                    .map(str::to_string)
+                    .collect()
+            }
+        },
         mass_msun: number("mass_msun")?,
         x: number("x")?,
         z: number("z")?,

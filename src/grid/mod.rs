@@ -8,6 +8,7 @@ pub mod merge;
 pub mod row;
 pub mod run;
 pub mod shard;
+pub mod table;
 pub mod variant;
 
 use crate::error::{Error, Result};
@@ -17,8 +18,9 @@ use crate::error::{Error, Result};
 pub const MAX_GRID_POINTS: usize = 1_000_000;
 use crate::physics::{Composition, PhysicsOverrides, PhysicsSet};
 pub use masses::{parse_value_list, MAX_LIST_VALUES};
-pub use row::{GridRow, GridTable, RowStatus};
+pub use row::{GridRow, RowStatus};
 pub use shard::Shard;
+pub use table::GridTable;
 pub use variant::Variant;
 
 /// One model of a grid.

@@ -1,7 +1,6 @@
-//! One grid point's result as a flat record (the rows of `sequence` and `merge`), and a whole
-//! run's table. Output code writes and reads these; the columns come from [`GridRow::COLUMNS`].
+//! One grid point's result as a flat record (the rows of `sequence` and `merge`). Output code
+//! writes and reads these; the columns come from [`GridRow::columns`].
 
-use super::fits::FitGroup;
 use super::run::PointResult;
 use super::Grid;
 use crate::error::Error;
@@ -183,20 +182,4 @@ impl GridRow {
     pub fn converged(&self) -> bool {
         self.status.converged()
     }
-}
-
-/// A whole run: the grid fingerprint, the shard, the fits, and the rows in grid order.
-#[derive(Debug, Clone, PartialEq)]
-pub struct GridTable {
-    /// Fingerprint of the grid.
-    pub grid_fingerprint: String,
-    /// `K/N` when this is one shard, `None` for a whole grid.
-    pub shard: Option<String>,
-    /// The mass ranges of the power-law fits (carried by shards so that `merge` uses them).
-    pub fit_ranges: Vec<(f64, f64)>,
-    /// Piecewise power-law fits of L(M) and R(M), per variant and composition (empty for a
-    /// shard).
-    pub fits: Vec<FitGroup>,
-    /// The rows, in grid order.
-    pub rows: Vec<GridRow>,
 }

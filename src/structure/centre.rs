@@ -12,9 +12,9 @@ use super::equations::{
     local_physics, LocalPhysics, Point, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL, LN_P,
     LN_R, LN_T, LUM,
 };
-use super::error::{LegCause, LegError, LegName};
 use super::legs::{LegContext, LegResult};
 use crate::constants::G_CGS;
+use crate::error::{LegCause, LegError, LegName};
 use std::f64::consts::PI;
 
 /// Mass fraction at which the outward leg starts: the first neglected series terms are of

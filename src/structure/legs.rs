@@ -20,8 +20,8 @@ use super::equations::{
     derivatives_in_mass, LuminosityForm, Scales, State, INT_CNO, INT_EPS, INT_GRAVITY, INT_THERMAL,
     STATE_LEN,
 };
-use super::error::{LegCause, LegError, LegName};
 use crate::error::PhysicsError;
+use crate::error::{LegCause, LegError, LegName};
 use crate::numerics::ode::{
     AcceptedStep, Control, DenseOutput, Dop853, Dop853Settings, Observer, OdeError, OdeSystem,
     RhsFailure, Stop,
@@ -349,7 +349,7 @@ fn settings(tolerance: f64) -> Dop853Settings {
 impl<'a> LegRunner<'a> {
     /// A runner for `ctx`.
     pub fn new(ctx: LegContext<'a>) -> LegResult<Self> {
-        let setup_error = |e: crate::Error| LegError {
+        let setup_error = |e: crate::numerics::invalid::InvalidSetting| LegError {
             leg: LegName::Outward,
             variable: "ln(m/M)",
             x: f64::NAN,

@@ -6,7 +6,6 @@
 
 pub mod centre;
 pub mod equations;
-pub mod error;
 pub mod guess;
 pub mod legs;
 pub mod limits;
@@ -16,13 +15,14 @@ pub mod profile_mesh;
 pub mod shooting;
 pub mod summary;
 pub mod surface;
+pub mod zones;
 
 use crate::constants::{C_CM_S, G_CGS, L_SUN_ERG_S, MEV_ERG, M_SUN_G, M_U_G, R_SUN_CM, YEAR_S};
 use crate::error::{Error, Result};
+pub use crate::error::{LegCause, LegError, LegName, NotConverged};
 use crate::numerics::newton::{self, NewtonProblem, NewtonSettings};
 use crate::physics::{Composition, PhysicsSet};
 use equations::Scales;
-pub use error::{LegCause, LegError, LegName, NotConverged};
 use legs::LegContext;
 pub use model::{SolveStats, ZamsModel};
 pub use profile::{ProfileGrid, ProfileRow, DEFAULT_PROFILE_POINTS, PROFILE_COLUMNS};

@@ -5,10 +5,10 @@
 
 use super::equations::{local_physics_with_eos, LocalPhysics, Point};
 use super::legs::{LegContext, LegResult};
-use super::model::{convective_zones, extent_from_zones};
 pub use super::profile_mesh::ProfileGrid;
 use super::profile_mesh::{FineSolution, Place, Structure};
 use super::shooting::Unknowns;
+use super::zones::{convective_zones, extent_from_zones};
 use crate::constants::G_CGS;
 use crate::error::{Error, Result};
 use crate::physics::{Composition, EosState};

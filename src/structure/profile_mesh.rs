@@ -20,12 +20,12 @@
 
 use super::centre::{self, CentreStart};
 use super::equations::{State, LN_P, LN_R, LN_T, LUM};
-use super::error::{LegCause, LegError};
 use super::legs::{Leg, LegContext, LegResult, LegRunner, LegSolution};
 use super::shooting::Unknowns;
 use super::surface::{self, SurfaceStart};
 use crate::constants::G_CGS;
 use crate::error::{Error, Result};
+use crate::error::{LegCause, LegError};
 use crate::numerics::scalar::illinois;
 use std::f64::consts::PI;
 use std::str::FromStr;

@@ -4,9 +4,9 @@
 
 use super::centre;
 use super::equations::{State, LUM};
-use super::error::LegError;
 use super::legs::{Cautions, Leg, LegContext, LegEnd, LegResult, LegRunner};
 use super::surface;
+use crate::error::LegError;
 use crate::numerics::newton::NewtonProblem;
 use nalgebra::{SMatrix, SVector};
 

@@ -19,10 +19,10 @@
 //! D0 = 1 - m/M; it is about 1e-11 of M for the Sun.
 
 use super::equations::{State, LN_P, LN_R, LN_T, LUM};
-use super::error::{LegCause, LegError, LegName};
 use super::legs::{Cautions, LegContext, LegResult};
 use crate::constants::{A_RAD_CGS, C_CM_S, G_CGS, SIGMA_SB_CGS};
 use crate::error::PhysicsError;
+use crate::error::{LegCause, LegError, LegName};
 use crate::numerics::ode::{Dop853, Dop853Settings, NoObserver, OdeError, OdeSystem, RhsFailure};
 use crate::numerics::scalar::newton_1d;
 use crate::physics::atmosphere::TauRelation;

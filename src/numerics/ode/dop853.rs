@@ -8,7 +8,7 @@ use super::error::OdeError;
 use super::settings::{check_tolerances, Dop853Settings, RhsFailure};
 use super::tableau::{A, B, BHH, C, D, ER, STAGES};
 use super::{Control, Crossing, Observer, OdeSystem};
-use crate::error::Error;
+use crate::numerics::invalid::InvalidSetting;
 use crate::numerics::scalar::illinois;
 use nalgebra::SVector;
 
@@ -109,10 +109,10 @@ pub struct Dop853<const N: usize> {
 
 impl<const N: usize> Dop853<N> {
     /// An integrator with `settings` (validated), every component under the same tolerances.
-    pub fn new(settings: Dop853Settings) -> Result<Self, Error> {
+    pub fn new(settings: Dop853Settings) -> Result<Self, InvalidSetting> {
         settings.validate()?;
         if N == 0 {
-            return Err(Error::invalid("state size", N, ">= 1"));
+            return Err(InvalidSetting::new("state size", N, ">= 1"));
         }
         Ok(Self {
             settings,
@@ -139,7 +139,7 @@ impl<const N: usize> Dop853<N> {
 
     /// The same `rtol` and `atol` for every component (components taken out of the error
     /// control stay out).
-    pub fn set_tolerances(&mut self, rtol: f64, atol: f64) -> Result<(), Error> {
+    pub fn set_tolerances(&mut self, rtol: f64, atol: f64) -> Result<(), InvalidSetting> {
         check_tolerances(rtol, atol)?;
         self.settings.rtol = rtol;
         self.settings.atol = atol;
@@ -154,10 +154,14 @@ impl<const N: usize> Dop853<N> {
         index: usize,
         rtol: f64,
         atol: f64,
-    ) -> Result<(), Error> {
+    ) -> Result<(), InvalidSetting> {
         check_tolerances(rtol, atol)?;
         if index >= N {
-            return Err(Error::invalid("component", index, "below the state size"));
+            return Err(InvalidSetting::new(
+                "component",
+                index,
+                "below the state size",
+            ));
         }
         self.rtol[index] = rtol;
         self.atol[index] = atol;
@@ -166,13 +170,21 @@ impl<const N: usize> Dop853<N> {
 
     /// Leave component `index` out of the error estimate (a running integral that feeds back
     /// into nothing, say), or put it back. At least one component must stay in.
-    pub fn set_error_control(&mut self, index: usize, controlled: bool) -> Result<(), Error> {
+    pub fn set_error_control(
+        &mut self,
+        index: usize,
+        controlled: bool,
+    ) -> Result<(), InvalidSetting> {
         if index >= N {
-            return Err(Error::invalid("component", index, "below the state size"));
+            return Err(InvalidSetting::new(
+                "component",
+                index,
+                "below the state size",
+            ));
         }
         let others = (0..N).filter(|&i| i != index && self.controlled[i]).count();
         if !controlled && others == 0 {
-            return Err(Error::invalid(
+            return Err(InvalidSetting::new(
                 "component",
                 index,
                 "a component other than the last one under error control",
@@ -183,7 +195,7 @@ impl<const N: usize> Dop853<N> {
     }
 
     /// The first step of the next integrations (`None`: estimate it).
-    pub fn set_initial_step(&mut self, h: Option<f64>) -> Result<(), Error> {
+    pub fn set_initial_step(&mut self, h: Option<f64>) -> Result<(), InvalidSetting> {
         let mut s = self.settings;
         s.initial_step = h;
         s.validate()?;

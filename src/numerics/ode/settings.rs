@@ -1,6 +1,6 @@
 //! Settings of the DOP853 integrator, validated once when the integrator is built.
 
-use crate::error::Error;
+use crate::numerics::invalid::InvalidSetting;
 
 /// Largest PI weight accepted (see [`Dop853Settings::beta`]).
 const MAX_BETA: f64 = 0.1;
@@ -95,7 +95,7 @@ impl Default for Dop853Settings {
 
 impl Dop853Settings {
     /// The defaults with tolerances `rtol` and `atol`.
-    pub fn with_tolerances(rtol: f64, atol: f64) -> Result<Self, Error> {
+    pub fn with_tolerances(rtol: f64, atol: f64) -> Result<Self, InvalidSetting> {
         let s = Self {
             rtol,
             atol,
@@ -106,46 +106,62 @@ impl Dop853Settings {
     }
 
     /// Check every field; the error names the field and what is allowed.
-    pub fn validate(&self) -> Result<(), Error> {
+    pub fn validate(&self) -> Result<(), InvalidSetting> {
         check_tolerances(self.rtol, self.atol)?;
         let positive_finite = |v: f64| v.is_finite() && v > 0.0;
         if let Some(h) = self.initial_step {
             if !(positive_finite(h.abs())) {
-                return Err(Error::invalid("initial_step", h, "a finite nonzero step"));
+                return Err(InvalidSetting::new(
+                    "initial_step",
+                    h,
+                    "a finite nonzero step",
+                ));
             }
         }
         if self.max_step.is_nan() || self.max_step <= 0.0 {
-            return Err(Error::invalid("max_step", self.max_step, "> 0"));
+            return Err(InvalidSetting::new("max_step", self.max_step, "> 0"));
         }
         if self.max_steps == 0 {
-            return Err(Error::invalid("max_steps", 0, ">= 1"));
+            return Err(InvalidSetting::new("max_steps", 0, ">= 1"));
         }
         if !(self.safety > 0.0 && self.safety < 1.0) {
-            return Err(Error::invalid("safety", self.safety, "in (0, 1)"));
+            return Err(InvalidSetting::new("safety", self.safety, "in (0, 1)"));
         }
         if !(self.min_factor > 0.0 && self.min_factor < 1.0) {
-            return Err(Error::invalid("min_factor", self.min_factor, "in (0, 1)"));
+            return Err(InvalidSetting::new(
+                "min_factor",
+                self.min_factor,
+                "in (0, 1)",
+            ));
         }
         if !(self.max_factor > 1.0 && self.max_factor.is_finite()) {
-            return Err(Error::invalid(
+            return Err(InvalidSetting::new(
                 "max_factor",
                 self.max_factor,
                 "finite and > 1",
             ));
         }
         if !(0.0..=MAX_BETA).contains(&self.beta) {
-            return Err(Error::invalid("beta", self.beta, "in [0, 0.1]"));
+            return Err(InvalidSetting::new("beta", self.beta, "in [0, 0.1]"));
         }
         if self.stiffness_check == Some(0) {
-            return Err(Error::invalid("stiffness_check", 0, "None or Some(n >= 1)"));
+            return Err(InvalidSetting::new(
+                "stiffness_check",
+                0,
+                "None or Some(n >= 1)",
+            ));
         }
         if let RhsFailure::RejectStep { shrink } = self.on_rhs_failure {
             if !(shrink > 0.0 && shrink < 1.0) {
-                return Err(Error::invalid("on_rhs_failure shrink", shrink, "in (0, 1)"));
+                return Err(InvalidSetting::new(
+                    "on_rhs_failure shrink",
+                    shrink,
+                    "in (0, 1)",
+                ));
             }
         }
         if !positive_finite(self.event_tolerance) {
-            return Err(Error::invalid(
+            return Err(InvalidSetting::new(
                 "event_tolerance",
                 self.event_tolerance,
                 "finite and > 0",
@@ -153,7 +169,11 @@ impl Dop853Settings {
         }
         if let Some(h) = self.fixed_step {
             if !positive_finite(h.abs()) {
-                return Err(Error::invalid("fixed_step", h, "a finite nonzero step"));
+                return Err(InvalidSetting::new(
+                    "fixed_step",
+                    h,
+                    "a finite nonzero step",
+                ));
             }
         }
         Ok(())
@@ -162,17 +182,17 @@ impl Dop853Settings {
 
 /// rtol and atol of one component: finite, rtol either 0 or at least 10 ulp (Hairer's bound:
 /// a smaller rtol asks for more than f64 can give), atol >= 0, not both 0.
-pub(crate) fn check_tolerances(rtol: f64, atol: f64) -> Result<(), Error> {
+pub(crate) fn check_tolerances(rtol: f64, atol: f64) -> Result<(), InvalidSetting> {
     const SMALLEST_RTOL: f64 = 10.0 * f64::EPSILON;
     if !(rtol.is_finite() && (rtol == 0.0 || rtol >= SMALLEST_RTOL)) {
-        return Err(Error::invalid(
+        return Err(InvalidSetting::new(
             "rtol",
             rtol,
             "0 or finite and >= 2.2e-15 (10 ulp)",
         ));
     }
     if !(atol.is_finite() && atol >= 0.0) || (rtol == 0.0 && atol == 0.0) {
-        return Err(Error::invalid(
+        return Err(InvalidSetting::new(
             "atol",
             atol,
             "finite, >= 0, and > 0 if rtol is 0",

@@ -1,9 +1,10 @@
 //! Errors of the structure solver: a leg that failed, and a shooting iteration that stopped
-//! without converging.
+//! without converging. Plain data, kept here below the solver (which re-exports them as
+//! `structure::{LegError, ...}`) so that the library's [`super::Error`] can join them without
+//! the error module importing the solver.
 
-use super::shooting::Unknowns;
+use super::PhysicsError;
 use crate::constants::{L_SUN_ERG_S, R_SUN_CM};
-use crate::error::PhysicsError;
 use crate::numerics::newton::{IterationRecord, Termination};
 use std::fmt;
 
@@ -107,7 +108,7 @@ pub struct NotConverged {
     /// Every iteration (mismatch, step length).
     pub history: Vec<IterationRecord>,
     /// The last accepted unknowns (ln P_c, ln T_c, ln R, ln L), cgs.
-    pub last_unknowns: Unknowns,
+    pub last_unknowns: nalgebra::SVector<f64, 4>,
     /// Right-hand-side evaluations spent.
     pub rhs_evaluations: u64,
 }

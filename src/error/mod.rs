@@ -1,9 +1,9 @@
 //! Errors, layered by module and joined upward, each carrying the numbers needed to diagnose it.
 //!
 //! - [`PhysicsError`]: a law asked at a point it cannot describe (law, rho, T, what failed);
-//! - [`crate::structure::LegError`]: an integration leg that failed (which leg, where in x and in
+//! - [`LegError`]: an integration leg that failed (which leg, where in x and in
 //!   mass, the physics error or the integrator's reason);
-//! - [`crate::structure::NotConverged`]: the shooting iteration stopped without converging (the
+//! - [`NotConverged`]: the shooting iteration stopped without converging (the
 //!   termination reason, iterations, mismatch, history);
 //! - [`Error`]: what the library returns, with its process exit code ([`ExitCode`]).
 //!
@@ -11,6 +11,9 @@
 //! command line maps keys to its flags.
 
 use thiserror::Error;
+
+mod solve;
+pub use solve::{LegCause, LegError, LegName, NotConverged};
 
 /// A microphysics law was asked about a point it cannot describe, or failed internally.
 #[derive(Debug, Clone, PartialEq, Error)]
@@ -36,6 +39,12 @@ impl PhysicsError {
             rho_g_cm3,
             temperature_k,
         }
+    }
+}
+
+impl From<crate::numerics::invalid::InvalidSetting> for Error {
+    fn from(e: crate::numerics::invalid::InvalidSetting) -> Self {
+        Error::invalid(&e.name, e.value, &e.allowed)
     }
 }
 
@@ -81,7 +90,7 @@ pub enum Error {
     Physics(#[from] PhysicsError),
     /// An integration leg of the structure solver failed.
     #[error(transparent)]
-    Leg(#[from] crate::structure::LegError),
+    Leg(#[from] LegError),
     /// Another integration failed (Lane–Emden).
     #[error("integration failed ({what}) at {variable} = {at:.6e}: {reason}")]
     Integration {
@@ -96,7 +105,7 @@ pub enum Error {
     },
     /// The shooting iteration for a model did not converge.
     #[error(transparent)]
-    NoConvergence(#[from] Box<crate::structure::NotConverged>),
+    NoConvergence(#[from] Box<NotConverged>),
     /// The search for oscillation modes of one degree failed: a mode could not be converged,
     /// classified, or the orders asked for could not all be found.
     #[error("mode search for degree {degree}: {reason}")]

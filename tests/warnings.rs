@@ -69,6 +69,20 @@ fn strong_coupling_is_flagged() {
     );
 }
 
+/// The standard output of a successful `starpoise` run with `args`.
+fn run(args: &[&str]) -> String {
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_starpoise"))
+        .args(args)
+        .output()
+        .unwrap();
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    String::from_utf8_lossy(&out.stdout).into_owned()
+}
+
 /// A grid carries each converged model's warnings in its `warnings` column (and its text table
 /// points to them), and they read back from the CSV unchanged (as `merge` reads shards): the
 /// 0.1 M_sun row has the strong-coupling warning of `strong_coupling_is_flagged`, the Sun's
@@ -78,17 +92,13 @@ fn sequence_rows_carry_the_warnings() {
     let dir = std::env::temp_dir().join(format!("starpoise-warn-{}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();
     let csv = dir.join("grid.csv");
-    let out = std::process::Command::new(env!("CARGO_BIN_EXE_starpoise"))
-        .args(["sequence", "--masses", "0.1,1", "--out"])
-        .arg(&csv)
-        .output()
-        .unwrap();
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    let text = String::from_utf8_lossy(&out.stdout);
+    let text = run(&[
+        "sequence",
+        "--masses",
+        "0.1,1",
+        "--out",
+        csv.to_str().unwrap(),
+    ]);
     assert!(text.contains("converged (1 warning, below)"), "{text}");
     assert!(text.contains("strongly coupled"), "{text}");
     let table = starpoise::output::sequence::read_table(&csv).unwrap();
@@ -98,26 +108,18 @@ fn sequence_rows_carry_the_warnings() {
         .any(|w| w.contains("strongly coupled")));
     assert!(table.rows[1].warnings.is_empty());
     assert_eq!(table.rows[0].warnings, model(0.1, ""));
-    let out = std::process::Command::new(env!("CARGO_BIN_EXE_starpoise"))
-        .args([
-            "compare",
-            "--mass",
-            "0.1",
-            "--variant",
-            "base=",
-            "--variant",
-            "hot=opacity-factor:2",
-            "--format",
-            "json",
-        ])
-        .output()
-        .unwrap();
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    let v: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let json = run(&[
+        "compare",
+        "--mass",
+        "0.1",
+        "--variant",
+        "base=",
+        "--variant",
+        "hot=opacity-factor:2",
+        "--format",
+        "json",
+    ]);
+    let v: serde_json::Value = serde_json::from_str(&json).unwrap();
     let record = &v["records"][0];
     assert!(
         record["warnings"]

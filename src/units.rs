@@ -12,7 +12,7 @@
 
 /// Name endings and their units. A key ends in at most one of these; the longest match wins
 /// (`_erg_g_s` before `_s`).
-pub const UNIT_SUFFIXES: [(&str, &str); 22] = [
+pub const UNIT_SUFFIXES: [(&str, &str); 24] = [
     ("_msun", "solMass"),
     ("_rsun", "solRad"),
     ("_lsun", "solLum"),
@@ -20,6 +20,8 @@ pub const UNIT_SUFFIXES: [(&str, &str); 22] = [
     ("_cm", "cm"),
     ("_k", "K"),
     ("_s", "s"),
+    ("_per_s", "1 / s"),
+    ("_uhz", "uHz"),
     ("_yr", "yr"),
     ("_erg", "erg"),
     ("_erg_s", "erg / s"),
@@ -53,12 +55,13 @@ pub fn unit_of(key: &str) -> &'static str {
 mod tests {
     use super::*;
     use crate::grid::GridRow;
+    use crate::output::modes::MODE_COLUMNS;
     use crate::structure::{ModelSummary, PROFILE_COLUMNS};
 
     /// Every key of the profile, the summary and the sequence table that is a pure number or
     /// text by definition. A new key with a unit ending that [`UNIT_SUFFIXES`] lacks would get
     /// no unit silently; this list makes such a key fail the test instead.
-    const UNITLESS: [&str; 45] = [
+    const UNITLESS: [&str; 53] = [
         // profile
         "m_over_M",
         "r_over_R",
@@ -108,6 +111,15 @@ mod tests {
         "fit_mismatch",
         "fit_mass_fraction",
         "rhs_evaluations",
+        // modes
+        "degree",
+        "order",
+        "kind",
+        "sigma",
+        "sigma_squared",
+        "cyclic_frequency",
+        "inertia",
+        "growth_per_radian",
     ];
 
     #[test]
@@ -116,7 +128,8 @@ mod tests {
             .iter()
             .copied()
             .chain(ModelSummary::FIELDS.iter().map(|f| f.key))
-            .chain(GridRow::columns());
+            .chain(GridRow::columns())
+            .chain(MODE_COLUMNS);
         for key in keys {
             let unit = unit_of(key);
             assert_eq!(
@@ -132,6 +145,8 @@ mod tests {
         assert_eq!(unit_of("eps_pp_erg_g_s"), "erg / (g s)");
         assert_eq!(unit_of("luminosity_erg_s"), "erg / s");
         assert_eq!(unit_of("dynamical_time_s"), "s");
+        assert_eq!(unit_of("growth_rate_per_s"), "1 / s");
+        assert_eq!(unit_of("frequency_uhz"), "uHz");
         assert_eq!(unit_of("density_g_cm3"), "g / cm3");
         assert_eq!(unit_of("mass_g"), "g");
         assert_eq!(unit_of("brunt_n2_rad2_s2"), "rad2 / s2");

@@ -56,6 +56,17 @@ fn json_report_has_the_documented_keys() {
         ] {
             assert!(!m[key].is_null(), "{key} missing: {m}");
         }
+        // The keys of a mode are the table columns that Python's Star.modes gives, less the
+        // physical ones a polytrope has not.
+        let physical = ["frequency_uhz", "growth_rate_per_s", "growth_per_radian"];
+        let mut expected: Vec<&str> = starpoise::output::modes::MODE_COLUMNS
+            .into_iter()
+            .filter(|k| !physical.contains(k))
+            .collect();
+        let mut got: Vec<&str> = m.as_object().unwrap().keys().map(String::as_str).collect();
+        expected.sort_unstable();
+        got.sort_unstable();
+        assert_eq!(got, expected, "{m}");
     }
     // docs/references.md §8.6: n = 3, Gamma_1 = 5/3, radial fundamental w = 9.25471 (+-1e-5).
     let w = list[0]["sigma_squared"].as_f64().unwrap();

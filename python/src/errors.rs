@@ -33,6 +33,8 @@ pub enum Caller {
     Polytrope,
     /// `starpoise.probe`.
     Probe,
+    /// `starpoise.limits`.
+    Limits,
 }
 
 /// The Python argument of a library key, for messages; `None` leaves the key as it is (it is
@@ -46,6 +48,8 @@ fn argument_of(caller: Caller, key: &str) -> Option<&'static str> {
         "index" => "n",
         "radius_rsun" => "radius",
         "fit_mass_fraction" => "fit_mass",
+        "degrees" => "degrees",
+        "max_order" => "max_order",
         "preset" => "physics",
         "variant" => "variants",
         _ => return None,

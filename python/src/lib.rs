@@ -10,6 +10,7 @@ mod args;
 mod convert;
 mod errors;
 mod grid;
+mod limits;
 mod polytrope;
 mod probe;
 mod star;
@@ -36,6 +37,7 @@ fn _native(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(grid::compare, m)?)?;
     m.add_function(wrap_pyfunction!(polytrope::polytrope, m)?)?;
     m.add_function(wrap_pyfunction!(probe::probe, m)?)?;
+    m.add_function(wrap_pyfunction!(limits::limits, m)?)?;
     m.add_class::<star::Star>()?;
     m.getattr("Star")?
         .setattr("__doc__", star::Star::documentation())?;

@@ -6,6 +6,9 @@ use crate::errors::{detached, history, Caller, Failure, OrRaise};
 use pyo3::exceptions::PyAttributeError;
 use pyo3::prelude::*;
 use pyo3::types::{PyDict, PyList};
+use starpoise::oscillation::{checked_degrees, star_modes, OscillationSettings};
+use starpoise::output::meta::Provenance;
+use starpoise::output::modes::{zams_modes_report, ModesReport, ModesRequestMeta, MODE_COLUMNS};
 use starpoise::output::zams::{failure_json, summary_json};
 use starpoise::physics::{Composition, PhysicsSet};
 use starpoise::structure::{
@@ -13,6 +16,53 @@ use starpoise::structure::{
     DEFAULT_PROFILE_POINTS, PROFILE_COLUMNS,
 };
 use starpoise::{Error, Result};
+
+/// The report of `starpoise modes --mass` for `model`, with the arguments of `Star.modes`
+/// checked in their names.
+fn modes_report(
+    model: &ZamsModel,
+    degrees: &[i64],
+    max_order: i64,
+    points: i64,
+    cowling: bool,
+    command: String,
+) -> Result<ModesReport> {
+    let degrees: Vec<u32> = degrees
+        .iter()
+        .map(|&l| {
+            u32::try_from(l).map_err(|_| {
+                Error::invalid(
+                    "degrees",
+                    l,
+                    "degrees are integers from 0 to 1000, e.g. 0,1,2,3",
+                )
+            })
+        })
+        .collect::<Result<_>>()?;
+    let max_order = u32::try_from(max_order).map_err(|_| {
+        Error::invalid(
+            "max_order",
+            max_order,
+            "the highest order must be an integer from 1 to 1000, e.g. 25",
+        )
+    })?;
+    let degrees = checked_degrees(&degrees, max_order)?;
+    let points = count("points", points, "", check_profile_points)?;
+    let settings = OscillationSettings::default().with_cowling(cowling);
+    let spectrum = star_modes(model, points, &degrees, max_order, &settings)?;
+    Ok(zams_modes_report(
+        model,
+        &spectrum,
+        ModesRequestMeta {
+            provenance: Provenance::new(command),
+            degrees,
+            max_order,
+            cowling,
+            profile_points: points,
+            phase_per_step: settings.phase_per_step(),
+        },
+    ))
+}
 
 /// The first part of `Star.__doc__` (the rest lists the summary quantities).
 const STAR_DOC: &str = "A converged zero-age main-sequence model (made by starpoise.zams).
@@ -299,6 +349,85 @@ impl Star {
         let units = convert::units(py, PROFILE_COLUMNS)?;
         let meta = self.meta_of(py, &format!("{}.profile(points={points})", self.call))?;
         convert::table(py, "Table", columns, units, meta)
+    }
+
+    /// The oscillation modes of this model (as ``starpoise modes --mass``): linear adiabatic
+    /// radial and non-radial p, f and g modes of the degrees asked up to order ``max_order``,
+    /// from the full fourth-order problem (``cowling=True``: without the perturbation of the
+    /// potential for l >= 1), read from the model's profile on ``points`` rows.
+    ///
+    /// Parameters
+    /// ----------
+    /// degrees : sequence of int
+    ///     Spherical degrees l, each 0 to 1000.
+    /// max_order : int
+    ///     Highest order: radial and p modes up to n = max_order, g modes down to -max_order
+    ///     (1 to 1000).
+    /// points : int
+    ///     Profile rows of the oscillation model (10 to 100000).
+    /// cowling : bool
+    ///     Neglect the potential perturbation for l >= 1.
+    ///
+    /// Returns
+    /// -------
+    /// ModesTable
+    ///     One row per mode, columns as the objects of ``modes`` in ``starpoise modes --format
+    ///     json``: ``degree``, ``order`` (Eckart-Scuflaire-Osaki: radial fundamental 1, f modes
+    ///     0, g modes negative), ``kind`` (p, f, g), ``sigma`` = omega sqrt(R^3/(G M)),
+    ///     ``sigma_squared``, ``cyclic_frequency`` = sigma/(2 pi), ``frequency_uhz``,
+    ///     ``inertia`` (normalised at the photosphere), ``growth_rate_per_s`` and
+    ///     ``growth_per_radian`` (quasi-adiabatic, radial modes; NaN for l > 0). ``.seismic``
+    ///     holds the separations, asymptotic quantities and solar-scaled relations (the other
+    ///     keys of the JSON report), ``.meta`` what was computed.
+    #[pyo3(signature = (degrees=vec![0, 1, 2, 3], max_order=25, points=2000, cowling=false))]
+    fn modes<'py>(
+        &self,
+        py: Python<'py>,
+        degrees: Vec<i64>,
+        max_order: i64,
+        points: i64,
+        cowling: bool,
+    ) -> PyResult<Bound<'py, PyAny>> {
+        let command = format!(
+            "{}.modes(degrees={degrees:?}, max_order={max_order}, points={points}, cowling={})",
+            self.call,
+            if cowling { "True" } else { "False" }
+        );
+        let model = &self.model;
+        let report = detached(py, || {
+            modes_report(model, &degrees, max_order, points, cowling, command.clone())
+        })
+        .or_raise(py, Caller::Zams)?;
+        let json = serde_json::to_value(&report)
+            .map_err(|e| pyo3::exceptions::PyRuntimeError::new_err(format!("modes report: {e}")))?;
+        let serde_json::Value::Object(mut top) = json else {
+            return Err(pyo3::exceptions::PyRuntimeError::new_err(
+                "the modes report is not an object",
+            ));
+        };
+        let rows: Vec<serde_json::Map<String, serde_json::Value>> = match top.remove("modes") {
+            Some(serde_json::Value::Array(items)) => items
+                .into_iter()
+                .filter_map(|v| match v {
+                    serde_json::Value::Object(m) => Some(m),
+                    _ => None,
+                })
+                .collect(),
+            _ => Vec::new(),
+        };
+        let meta_value = top.remove("meta").unwrap_or(serde_json::Value::Null);
+        let columns = PyDict::new(py);
+        for key in MODE_COLUMNS {
+            columns.set_item(key, convert::column(py, &rows, key)?)?;
+        }
+        let units = convert::units(py, MODE_COLUMNS)?;
+        let meta = match convert::to_py(py, &meta_value)?.cast_into::<PyDict>() {
+            Ok(d) => d,
+            Err(_) => PyDict::new(py),
+        };
+        let table = convert::table(py, "ModesTable", columns, units, meta)?;
+        table.setattr("seismic", convert::dict(py, &top)?)?;
+        Ok(table)
     }
 
     /// What made this model: program, version, the Python call (``command``), the constants'

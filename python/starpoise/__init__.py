@@ -7,8 +7,9 @@ swappable microphysics, from Python.
     >>> prof = star.profile(points=400)          # numpy arrays under the CSV column names
     >>> grid = starpoise.sequence([0.5, 1, 2], variants={"base": "", "hot": "opacity-factor:2"})
 
-Functions: ``zams``, ``sequence``, ``compare``, ``polytrope``, ``probe`` (the commands of the
-``starpoise`` program, with the same names, values and law grammar). Names carry their
+Functions: ``zams``, ``sequence``, ``compare``, ``polytrope``, ``probe``, ``limits`` (the
+commands of the ``starpoise`` program, with the same names, values and law grammar), and
+``Star.modes`` (``starpoise modes --mass``). Names carry their
 units (``radius_cm``, ``luminosity_lsun``); every result has ``.units`` and ``.meta``.
 Exceptions: ``InputError`` (a ValueError), ``ConvergenceError`` and ``ComputationError``
 (RuntimeErrors), all ``StarpoiseError``.
@@ -22,12 +23,13 @@ from ._native import (
     Star,
     __version__,
     compare,
+    limits,
     polytrope,
     probe,
     sequence,
     zams,
 )
-from ._table import Polytrope, Record, SequenceTable, Table
+from ._table import ModesTable, Polytrope, Record, SequenceTable, Table
 
 __all__ = [
     "PROFILE_COLUMNS",
@@ -36,6 +38,7 @@ __all__ = [
     "ComputationError",
     "ConvergenceError",
     "InputError",
+    "ModesTable",
     "Polytrope",
     "Record",
     "SequenceTable",
@@ -44,6 +47,7 @@ __all__ = [
     "Table",
     "__version__",
     "compare",
+    "limits",
     "polytrope",
     "probe",
     "sequence",
@@ -52,6 +56,6 @@ __all__ = [
 
 # Shown as starpoise.InputError, starpoise.Table, ... in tracebacks and reprs.
 for _cls in (StarpoiseError, InputError, ConvergenceError, ComputationError, Table,
-             SequenceTable, Record, Polytrope):
+             SequenceTable, ModesTable, Record, Polytrope):
     _cls.__module__ = __name__
 del _cls

@@ -7,7 +7,7 @@ defaults, and every summary key of ``Star``.
 from collections.abc import Sequence
 from typing import Any, final
 
-from ._table import Polytrope, Record, SequenceTable, Table
+from ._table import ModesTable, Polytrope, Record, SequenceTable, Table
 
 __version__: str
 #: (key, documentation, unit) of every summary quantity, in output order.
@@ -98,6 +98,17 @@ class Star:
     def profile(self, points: int = 400) -> Table:
         """The profile on `points` rows (10 to 100000): the centre (r = 0) first, the
         photosphere last, on the balanced grid (see README, `--grid auto`)."""
+    def modes(
+        self,
+        degrees: Sequence[int] = (0, 1, 2, 3),
+        max_order: int = 25,
+        points: int = 2000,
+        cowling: bool = False,
+    ) -> ModesTable:
+        """The oscillation modes (as `starpoise modes --mass`): one row per mode, columns
+        degree, order, kind, sigma, sigma_squared, cyclic_frequency, frequency_uhz, inertia,
+        growth_rate_per_s, growth_per_radian; `.seismic` the separations and scaling
+        relations."""
     def __getattr__(self, name: str) -> Any: ...
 
 def zams(
@@ -190,3 +201,20 @@ def probe(
     rates_factor: float | None = None,
 ) -> Record:
     """Evaluate every law of a physics set at one density and temperature."""
+
+def limits(
+    x: float = 0.70,
+    z: float = 0.02,
+    *,
+    physics: str = "refined",
+    eos: str | None = None,
+    opacity: str | None = None,
+    rates: str | None = None,
+    convection: str | None = None,
+    atmosphere: str | None = None,
+    alpha: float | None = None,
+    opacity_factor: float | None = None,
+    rates_factor: float | None = None,
+) -> Record:
+    """The hydrogen-burning minimum mass and the pulsational instability mass (as
+    `starpoise limits`)."""

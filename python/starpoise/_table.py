@@ -152,6 +152,29 @@ class SequenceTable(Table):
         self.fits: list[dict[str, Any]] = []
 
 
+class ModesTable(Table):
+    """The oscillation modes of a model (``Star.modes``): one row per mode.
+
+    ``seismic`` holds the rest of ``starpoise modes --format json``: the large separation
+    from the radial modes (``large_separation_uhz``, and dimensionless
+    ``large_separation_radial``), the asymptotic one (``large_separation_asymptotic_uhz``), the
+    small separation ``small_separation_d02_uhz``, the frequency they are measured around
+    (``separations_around_uhz``), the asymptotic g-mode period spacing
+    (``period_spacing_asymptotic_s``) and the solar-scaled relations of Kjeldsen & Bedding
+    (1995) at the model's M, R, T_eff (``large_separation_scaling_uhz``,
+    ``nu_max_scaling_uhz``); None where not defined.
+    """
+
+    def __init__(
+        self,
+        columns: Mapping[str, Any],
+        units: Mapping[str, str],
+        meta: Mapping[str, Any],
+    ) -> None:
+        super().__init__(columns, units, meta)
+        self.seismic: dict[str, Any] = {}
+
+
 class Record(_Named, Mapping[str, Any]):
     """One set of named values (``starpoise.probe``, ``starpoise.polytrope``): a read-only
     mapping whose keys are also attributes, named as the command line's JSON keys (units at

@@ -86,6 +86,7 @@ fn flag_of(sequence: bool, compare: bool, key: &str) -> Option<&'static str> {
         "tolerance" => "--tolerance",
         "max_iterations" => "--max-iterations",
         "points" => "--points",
+        "degrees" => "--degrees",
         "preset" => "--preset",
         "eos" => "--eos",
         "opacity" => "--opacity",

@@ -10,16 +10,14 @@ use starpoise::error::{Error, Result};
 use starpoise::oscillation::polytropic::GAMMA1_ALLOWED;
 use starpoise::oscillation::search::{MAX_DEGREE, MAX_ORDER};
 use starpoise::oscillation::{
-    find_modes, find_modes_of_degrees, radial_stability, tabulated_from_profile, Mode,
-    OscillationSettings, PolytropicModel, SeismicSummary,
+    checked_degrees, find_modes_of_degrees, separation_frequency, star_modes, OscillationSettings,
+    PolytropicModel, SeismicSummary, DEFAULT_PROFILE_ROWS,
 };
 use starpoise::output::meta::Provenance;
 use starpoise::output::modes::{
-    write_eigenfunctions_csv, ModesMeta, ModesReport, StarMeta, StarScales,
+    write_eigenfunctions_csv, zams_modes_report, ModesMeta, ModesReport, ModesRequestMeta,
 };
-use starpoise::physics::Composition;
 use starpoise::polytrope::{solve_lane_emden, LaneEmdenSettings};
-use starpoise::reference::kjeldsen_bedding_nu_max_uhz;
 use starpoise::structure::{profile::check_profile_points, solve, ZamsModel, ZamsSettings};
 use std::path::PathBuf;
 
@@ -29,15 +27,8 @@ const MIN_POINTS: usize = 50;
 const MAX_POINTS: usize = 100_000;
 /// Default Lane–Emden points of a polytrope.
 const POLYTROPE_POINTS: usize = 500;
-/// Default profile rows of a ZAMS model: with them the modes l = 0-3 up to order 25 of the
-/// 1 M_sun model agree with those on 16000 rows at half the phase per step to 8e-9
-/// (tests/oscillation_zams.rs).
-pub const ZAMS_ROWS: usize = 2000;
 /// Default Gamma_1 of a polytrope.
 const POLYTROPE_GAMMA1: f64 = 5.0 / 3.0;
-/// Orders of the radial window below the highest computed where the separations are measured
-/// (when nu_max is not within the radial modes computed).
-const SEPARATION_OFFSET: i32 = 3;
 
 /// Arguments of `starpoise modes`, as parsed.
 #[derive(Debug, Args)]
@@ -182,27 +173,11 @@ impl TryFrom<ModesArgs> for ModesRequest {
                 provenance = provenance.with_model(file.name.clone(), file.note.clone());
                 let settings =
                     file.zams_settings(args.mass, &args.composition, &args.physics, None, None)?;
-                let points = check_profile_points(args.points.unwrap_or(ZAMS_ROWS))?;
+                let points = check_profile_points(args.points.unwrap_or(DEFAULT_PROFILE_ROWS))?;
                 (ModelKind::Zams(Box::new(settings)), points)
             }
         };
-        let mut degrees = args.degrees;
-        degrees.sort_unstable();
-        degrees.dedup();
-        if let Some(&l) = degrees.iter().find(|&&l| l > MAX_DEGREE) {
-            return Err(Error::invalid(
-                "--degrees",
-                l,
-                "degrees are integers from 0 to 1000, e.g. --degrees 0,1,2,3",
-            ));
-        }
-        if !(1..=MAX_ORDER).contains(&args.max_order) {
-            return Err(Error::invalid(
-                "--max-order",
-                args.max_order,
-                "the highest order must be an integer from 1 to 1000, e.g. --max-order 25",
-            ));
-        }
+        let degrees = checked_degrees(&args.degrees, args.max_order)?;
         Ok(Self {
             equilibrium,
             degrees,
@@ -295,99 +270,26 @@ fn zams_report(request: &ModesRequest, settings: &ZamsSettings) -> Result<ModesR
     for w in &model.warnings {
         eprintln!("starpoise: warning: {w}");
     }
-    let rows = model.profile(request.points)?;
-    let oscillation_model = tabulated_from_profile(&rows)?;
-    let s = &model.summary;
-    let (mass_msun, radius_rsun) = (model.mass_msun(), s.radius_rsun);
-    // Radial modes carry their eigenfunctions for the work integral.
-    let radial_settings = request.settings.with_eigenfunctions(true);
-    let others: Vec<u32> = request.degrees.iter().copied().filter(|&l| l > 0).collect();
-    let (radial, rest) = rayon::join(
-        || -> Result<Vec<Mode>> {
-            if request.degrees.contains(&0) {
-                find_modes(&oscillation_model, 0, request.max_order, &radial_settings)
-            } else {
-                Ok(Vec::new())
-            }
-        },
-        || {
-            find_modes_of_degrees(
-                &oscillation_model,
-                &others,
-                request.max_order,
-                &request.settings,
-            )
-        },
-    );
-    let mut modes = radial?;
-    let composition: &Composition = model.composition();
-    let physics = settings.physics();
-    let mut stability: Vec<_> = modes
-        .iter()
-        .map(|m| radial_stability(&rows, &oscillation_model, m, physics, composition).map(Some))
-        .collect::<Result<_>>()?;
-    if !request.settings.eigenfunctions() {
-        for m in &mut modes {
-            m.eigenfunction = None;
-        }
-    }
-    let rest = rest?;
-    stability.extend(rest.iter().map(|_| None));
-    modes.extend(rest);
+    let spectrum = star_modes(
+        &model,
+        request.points,
+        &request.degrees,
+        request.max_order,
+        &request.settings,
+    )?;
     if let Some(path) = &request.eigenfunctions {
-        write_eigenfunctions_csv(path, &modes, &request.provenance)?;
+        write_eigenfunctions_csv(path, &spectrum.modes, &request.provenance)?;
     }
-    let star = StarScales {
-        mass_msun,
-        radius_rsun,
-        teff_k: s.teff_k,
-        stability,
-    };
-    let nu_max = kjeldsen_bedding_nu_max_uhz(mass_msun, radius_rsun, s.teff_k);
-    let uhz = starpoise::oscillation::dynamical_frequency_hz(mass_msun, radius_rsun) * 1e6;
-    let around = separation_frequency(&modes, request.max_order, Some(nu_max / uhz));
-    let seismic = SeismicSummary::new(&oscillation_model, &modes, around);
-    let c = model.composition();
-    let mut meta = meta(
-        request,
-        "zams",
-        "sigma = omega sqrt(R^3/(G M)); cyclic nu sqrt(R^3/(G M)) = sigma/(2 pi); nu in uHz \
-         with the photospheric R",
-    );
-    meta.star = Some(StarMeta {
-        mass_msun,
-        x: c.x(),
-        z: c.z(),
-        physics: model.physics().clone(),
-        radius_rsun,
-        luminosity_lsun: s.luminosity_lsun,
-        teff_k: s.teff_k,
-    });
-    Ok(ModesReport::new(meta, &modes, &seismic, Some(&star)))
-}
-
-/// The cyclic frequency (dimensionless) around which the separations are measured: that of the
-/// radial mode nearest `nu_max` (dimensionless) if it lies within the radial modes found, else
-/// that of order max_order - 3 (the highest radial mode if fewer). `None` without radial modes.
-fn separation_frequency(modes: &[Mode], max_order: u32, nu_max: Option<f64>) -> Option<f64> {
-    let radial: Vec<&Mode> = modes.iter().filter(|m| m.degree == 0).collect();
-    let (lowest, highest) = (radial.first()?, radial.last()?);
-    if let Some(nu) = nu_max {
-        if nu >= lowest.cyclic_frequency() && nu <= highest.cyclic_frequency() {
-            return radial
-                .iter()
-                .min_by(|a, b| {
-                    (a.cyclic_frequency() - nu)
-                        .abs()
-                        .total_cmp(&(b.cyclic_frequency() - nu).abs())
-                })
-                .map(|m| m.cyclic_frequency());
-        }
-    }
-    let target = (max_order as i32 - SEPARATION_OFFSET).max(1);
-    radial
-        .iter()
-        .find(|m| m.order == target)
-        .or_else(|| radial.iter().max_by_key(|m| m.order))
-        .map(|m| m.cyclic_frequency())
+    Ok(zams_modes_report(
+        &model,
+        &spectrum,
+        ModesRequestMeta {
+            provenance: request.provenance.clone(),
+            degrees: request.degrees.clone(),
+            max_order: request.max_order,
+            cowling: request.settings.cowling(),
+            profile_points: request.points,
+            phase_per_step: request.settings.phase_per_step(),
+        },
+    ))
 }

@@ -52,6 +52,7 @@ pub mod search;
 pub mod shooting;
 pub mod spectrum;
 pub mod stability;
+pub mod star_modes;
 pub mod tabulated;
 pub mod zams;
 
@@ -69,6 +70,9 @@ pub use spectrum::{
 pub use stability::{
     fundamental_stability, pulsational_instability_mass, radial_stability, PulsationalLimit,
     RadialStability,
+};
+pub use star_modes::{
+    checked_degrees, separation_frequency, star_modes, StarModes, DEFAULT_PROFILE_ROWS,
 };
 pub use tabulated::{DimensionlessArrays, PhysicalArrays, TabulatedModel};
 pub use zams::tabulated_from_profile;

@@ -6,11 +6,12 @@
 
 use super::polytrope::number;
 use crate::error::Result;
-use crate::oscillation::{Mode, RadialStability, SeismicSummary};
+use crate::oscillation::{Mode, RadialStability, SeismicSummary, StarModes};
 use crate::output::meta::Provenance;
 use crate::output::write_output;
 use crate::physics::PhysicsSpec;
 use crate::reference::{kjeldsen_bedding_large_separation_uhz, kjeldsen_bedding_nu_max_uhz};
+use crate::structure::ZamsModel;
 use serde::Serialize;
 use std::fmt::Write as _;
 use std::path::Path;
@@ -165,6 +166,80 @@ pub struct PhysicalSeismic {
     /// Frequency of maximum power from the solar-scaled relation of Kjeldsen & Bedding (1995)
     /// at the model's M, R and T_eff, 3.05 mHz (M/M_sun)(R/R_sun)^-2 (T_eff/5777 K)^(-1/2), uHz.
     pub nu_max_scaling_uhz: f64,
+}
+
+/// The keys of one mode of the report ([`ModeRow`]), in order: the columns of a table of modes.
+pub const MODE_COLUMNS: [&str; 10] = [
+    "degree",
+    "order",
+    "kind",
+    "sigma",
+    "sigma_squared",
+    "cyclic_frequency",
+    "frequency_uhz",
+    "inertia",
+    "growth_rate_per_s",
+    "growth_per_radian",
+];
+
+/// What a request for a ZAMS model's modes asked, for the report's meta.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ModesRequestMeta {
+    /// Program, version, command line (or Python call) and the sources of the constants.
+    pub provenance: Provenance,
+    /// Spherical degrees l computed.
+    pub degrees: Vec<u32>,
+    /// Highest |order| computed.
+    pub max_order: u32,
+    /// Whether the Cowling approximation was used for l >= 1.
+    pub cowling: bool,
+    /// Profile rows of the model.
+    pub profile_points: usize,
+    /// Largest phase of the solutions across one collocation step, radians.
+    pub phase_per_step: f64,
+}
+
+/// The unit of the frequencies of a ZAMS model's report.
+pub const ZAMS_FREQUENCY_UNIT: &str = "sigma = omega sqrt(R^3/(G M)); cyclic nu sqrt(R^3/(G M)) = sigma/(2 pi); nu in uHz with the photospheric R";
+
+/// The report of the spectrum `spectrum` of the ZAMS model `model` (`modes --mass`, and
+/// `Star.modes` in Python).
+pub fn zams_modes_report(
+    model: &ZamsModel,
+    spectrum: &StarModes,
+    request: ModesRequestMeta,
+) -> ModesReport {
+    let s = &model.summary;
+    let (mass_msun, radius_rsun) = (model.mass_msun(), s.radius_rsun);
+    let star = StarScales {
+        mass_msun,
+        radius_rsun,
+        teff_k: s.teff_k,
+        stability: spectrum.stability.clone(),
+    };
+    let c = model.composition();
+    let meta = ModesMeta {
+        provenance: request.provenance,
+        model: "zams",
+        polytropic_index: None,
+        gamma1: None,
+        star: Some(StarMeta {
+            mass_msun,
+            x: c.x(),
+            z: c.z(),
+            physics: model.physics().clone(),
+            radius_rsun,
+            luminosity_lsun: s.luminosity_lsun,
+            teff_k: s.teff_k,
+        }),
+        degrees: request.degrees,
+        max_order: request.max_order,
+        cowling: request.cowling,
+        profile_points: request.profile_points,
+        phase_per_step: request.phase_per_step,
+        frequency_unit: ZAMS_FREQUENCY_UNIT,
+    };
+    ModesReport::new(meta, &spectrum.modes, &spectrum.seismic, Some(&star))
 }
 
 /// The JSON object printed by `starpoise modes --format json`.

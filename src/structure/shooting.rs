@@ -33,6 +33,15 @@ pub struct LegEnds {
 /// The finest integrator tolerance `sharpen` goes to.
 const SHARPEST_TOLERANCE: f64 = 1e-13;
 
+/// Smallest and largest difference step in (ln P_c, ln T_c) of the Jacobian (see
+/// `ShootingProblem::difference_step`).
+const OUTWARD_STEP_RANGE: (f64, f64) = (1e-7, 1e-5);
+
+/// Difference step in (ln R, ln L) of the Jacobian: 1e-4 keeps the inward leg's integration
+/// noise (up to about 3e-9 at tolerance 1e-11 and 1e-6 at 1e-8, 0.1 M_sun) near 1e-3 of the
+/// difference and its truncation error near 1e-4 (see `ShootingProblem::difference_step`).
+const INWARD_DIFFERENCE_STEP: f64 = 1e-4;
+
 /// The four unknowns (ln P_c, ln T_c, ln R, ln L), cgs.
 pub type Unknowns = SVector<f64, 4>;
 
@@ -135,10 +144,22 @@ impl<'a> ShootingProblem<'a> {
         trial(self, h).or_else(|_| trial(self, -h))
     }
 
-    /// Finite-difference step for the Jacobian at the current tolerance: large enough that
-    /// integration noise (~ tolerance) stays below 1e-3 of the difference.
-    fn difference_step(&self) -> f64 {
-        (1e3 * self.ctx().tolerance).clamp(1e-7, 1e-3)
+    /// Finite-difference step of the Jacobian's column `k` at the current tolerance. The two
+    /// legs need different steps (measured against central differences at tolerance 1e-13,
+    /// 0.1-10 M_sun): the outward end is a smooth function of (ln P_c, ln T_c) whose forward
+    /// differences are limited by their truncation error (about 50 h relative), so its step is
+    /// small, 1e2 x tolerance within [`OUTWARD_STEP_RANGE`]; the inward end varies by some
+    /// 100-300 x tolerance from one (ln R, ln L) to the next (the integrator's step sequence
+    /// changes), while its truncation error is about h, so its step is
+    /// [`INWARD_DIFFERENCE_STEP`] (the single step of 1e3 x tolerance before gave Jacobians 0.6
+    /// per cent off at 1 M_sun and 10 per cent off at 0.1 M_sun).
+    fn difference_step(&self, k: usize) -> f64 {
+        if k < 2 {
+            let (lo, hi) = OUTWARD_STEP_RANGE;
+            (1e2 * self.ctx().tolerance).clamp(lo, hi)
+        } else {
+            INWARD_DIFFERENCE_STEP
+        }
     }
 }
 
@@ -190,13 +211,12 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
     /// Block structure: the outward end depends only on (ln P_c, ln T_c), the inward end only on
     /// (ln R, ln L), so each column costs one leg.
     fn jacobian(&mut self, u: &Unknowns, _f: &SVector<f64, 4>) -> LegResult<SMatrix<f64, 4, 4>> {
-        let h = self.difference_step();
         let base = self.legs_at(u)?;
         let (out0, in0) = (base.out, base.inn);
         let f0 = self.mismatch(&out0, &in0);
         let mut j = SMatrix::<f64, 4, 4>::zeros();
         for k in 0..4 {
-            let col = self.column(u, k, h, &f0, &out0, &in0)?;
+            let col = self.column(u, k, self.difference_step(k), &f0, &out0, &in0)?;
             j.set_column(k, &col);
         }
         Ok(j)
@@ -217,8 +237,8 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
     }
 
     /// The trial of a Newton step is integrated at the accuracy its expected mismatch calls for.
-    fn prepare_trial(&mut self, expected_norm: f64) {
-        self.adapt_to_residual(expected_norm);
+    fn prepare_trial(&mut self, expected_norm: f64) -> bool {
+        self.adapt_to_residual(expected_norm)
     }
 
     /// Integrate coarsely while far from the solution and tighten as the mismatch falls:

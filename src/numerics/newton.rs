@@ -253,34 +253,35 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
         };
         let trial_changed_accuracy = problem.prepare_trial(norm * contraction.min(1.0));
         let norm2 = two_norm(&f);
+        // One pass over the step lengths serves both criteria: the first length that lowers
+        // the 2-norm is remembered while the max-norm is tried, so that no trial is computed
+        // twice.
         let mut accepted = None;
+        let mut two_norm_candidate = None;
         let mut lambda = 1.0;
-        'criteria: for use_two_norm in [false, true] {
-            lambda = 1.0;
-            for _ in 0..=settings.max_halvings {
-                let trial = u + du * lambda;
-                report.residual_evaluations += 1;
-                if let Ok(ft) = problem.residual(&trial) {
-                    let nt = max_norm(&ft);
-                    let better = if use_two_norm {
-                        two_norm(&ft) < norm2
-                    } else {
-                        nt < norm
-                    };
-                    if better {
-                        accepted = Some((trial, ft, nt));
-                        break 'criteria;
-                    }
+        for _ in 0..=settings.max_halvings {
+            let trial = u + du * lambda;
+            report.residual_evaluations += 1;
+            if let Ok(ft) = problem.residual(&trial) {
+                let nt = max_norm(&ft);
+                if nt < norm {
+                    accepted = Some((trial, ft, nt, lambda));
+                    break;
                 }
-                lambda *= 0.5;
+                if two_norm_candidate.is_none() && two_norm(&ft) < norm2 {
+                    two_norm_candidate = Some((trial, ft, nt, lambda));
+                }
             }
+            lambda *= 0.5;
         }
+        let accepted = accepted.or(two_norm_candidate);
+        let lambda = accepted.as_ref().map_or(0.0, |a| a.3);
         report.history.push(IterationRecord {
             residual_norm: norm,
-            step_length: if accepted.is_some() { lambda } else { 0.0 },
+            step_length: lambda,
         });
         match accepted {
-            Some((trial, ft, nt)) => {
+            Some((trial, ft, nt, _)) => {
                 // Broyden's update J += (df - J du) du^T / (du^T du) after a full step; any
                 // damped step means the local model was poor, so the next Jacobian is fresh.
                 // When the trial was computed at another accuracy than F here, df holds the

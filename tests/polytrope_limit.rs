@@ -44,6 +44,8 @@ impl Polytropic {
             delta: 1e-12 / gamma,
             mu: 1.0,
             degeneracy_psi: f64::NEG_INFINITY,
+            dpsi_dln_rho: 0.0,
+            dpsi_dln_t: 0.0,
             hydrogen_ionised: 1.0,
             helium_single: 0.0,
             helium_double: 1.0,

@@ -34,8 +34,12 @@ pub trait NewtonProblem<const N: usize> {
     }
     /// Told, before the trial of a Newton step, the mismatch expected after it, so that a
     /// problem can evaluate the trial at the accuracy that mismatch calls for instead of the
-    /// current one (one evaluation fewer when the step is good). The default ignores it.
-    fn prepare_trial(&mut self, _expected_norm: f64) {}
+    /// current one (one evaluation fewer when the step is good). Returns true if it changed how
+    /// F is computed (the driver then keeps the Jacobian instead of updating it by Broyden's
+    /// formula from two differently computed values of F). The default ignores it.
+    fn prepare_trial(&mut self, _expected_norm: f64) -> bool {
+        false
+    }
 }
 
 /// Settings of the iteration. Defaults: tolerance 1e-8 on the max-norm of F, 60 iterations,
@@ -247,39 +251,46 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             Some(previous) if previous.residual_norm > 0.0 => norm / previous.residual_norm,
             _ => norm.sqrt(),
         };
-        problem.prepare_trial(norm * contraction.min(1.0));
+        let trial_changed_accuracy = problem.prepare_trial(norm * contraction.min(1.0));
         let norm2 = two_norm(&f);
+        // One pass over the step lengths serves both criteria: the first length that lowers
+        // the 2-norm is remembered while the max-norm is tried, so that no trial is computed
+        // twice.
         let mut accepted = None;
+        let mut two_norm_candidate = None;
         let mut lambda = 1.0;
-        'criteria: for use_two_norm in [false, true] {
-            lambda = 1.0;
-            for _ in 0..=settings.max_halvings {
-                let trial = u + du * lambda;
-                report.residual_evaluations += 1;
-                if let Ok(ft) = problem.residual(&trial) {
-                    let nt = max_norm(&ft);
-                    let better = if use_two_norm {
-                        two_norm(&ft) < norm2
-                    } else {
-                        nt < norm
-                    };
-                    if better {
-                        accepted = Some((trial, ft, nt));
-                        break 'criteria;
-                    }
+        for _ in 0..=settings.max_halvings {
+            let trial = u + du * lambda;
+            report.residual_evaluations += 1;
+            if let Ok(ft) = problem.residual(&trial) {
+                let nt = max_norm(&ft);
+                if nt < norm {
+                    accepted = Some((trial, ft, nt, lambda));
+                    break;
                 }
-                lambda *= 0.5;
+                if two_norm_candidate.is_none() && two_norm(&ft) < norm2 {
+                    two_norm_candidate = Some((trial, ft, nt, lambda));
+                }
             }
+            lambda *= 0.5;
         }
+        let accepted = accepted.or(two_norm_candidate);
+        let lambda = accepted.as_ref().map_or(0.0, |a| a.3);
         report.history.push(IterationRecord {
             residual_norm: norm,
-            step_length: if accepted.is_some() { lambda } else { 0.0 },
+            step_length: lambda,
         });
         match accepted {
-            Some((trial, ft, nt)) => {
+            Some((trial, ft, nt, _)) => {
                 // Broyden's update J += (df - J du) du^T / (du^T du) after a full step; any
                 // damped step means the local model was poor, so the next Jacobian is fresh.
-                if settings.broyden && lambda == 1.0 {
+                // When the trial was computed at another accuracy than F here, df holds the
+                // change of accuracy as well (often larger than the step's own change near
+                // convergence): the Jacobian is kept as it is instead, as after a change of
+                // accuracy at the start of an iteration.
+                if settings.broyden && lambda == 1.0 && trial_changed_accuracy {
+                    reusable = Some(jac);
+                } else if settings.broyden && lambda == 1.0 {
                     let step = trial - u;
                     let denom = step.dot(&step);
                     if denom > 0.0 {

@@ -36,6 +36,7 @@
 //! the electrons are degenerate (tested over the law's domain).
 
 use crate::constants::{E_ESU, K_B_ERG_K, M_U_G};
+use crate::numerics::cube_root::cbrt;
 use crate::numerics::smooth::switch_weight_curved;
 
 const A1: f64 = -0.907_347;
@@ -99,6 +100,10 @@ pub struct CoulombTerm {
     pub de_dln_t: f64,
     /// Electron coupling parameter Gamma_e of the fully ionised mixture.
     pub gamma_e: f64,
+    /// Phi_1 = sum_j nu_j u(Gamma_j), per m_u (nu_j ions per m_u).
+    pub ion_energy_sum: f64,
+    /// Phi_2 = sum_j nu_j Gamma_j du/dGamma(Gamma_j), per m_u.
+    pub ion_energy_slope_sum: f64,
 }
 
 /// Ion species for the mixture: (ions per m_u, Z^(5/3) of the charge Z).
@@ -167,46 +172,70 @@ impl CoulombAtTemperature {
 
     /// The term at density `rho` for the fully ionised `ions`. With `energy` false only the
     /// pressure and its derivatives are complete (U and dU/dln T are left at 0), which skips the
-    /// logarithms of f: enough for the inversion rho(P, T).
+    /// logarithms of f: enough for the inversion rho(P, T) ([`CoulombAtTemperature::pressure_term`]
+    /// then [`CoulombAtTemperature::with_energy`]).
     ///
     /// With Phi = sum nu_j f, Phi_1 = sum nu_j u, Phi_2 = sum nu_j Gamma du/dGamma (nu_j ions
     /// per m_u) and S' = dS/dln T: P = S (rho kT / m_u) Phi_1 / 3, U = (kT / m_u)(S Phi_1 -
     /// S' Phi) per gram, and their derivatives follow (dGamma/dln rho = Gamma/3,
     /// dGamma/dln T = -Gamma).
     pub fn term(&self, rho: f64, ions: &IonSpecies, energy: bool) -> CoulombTerm {
-        let (s, s1, s2) = self.switch;
-        let gamma_e = self.gamma_coefficient * rho.cbrt();
-        // f itself (logarithms, arctangent) enters only through the switch's derivatives.
-        let inside = energy && s1 > 1e-300;
-        let (mut phi, mut phi1, mut phi2) = (0.0, 0.0, 0.0);
+        let term = self.pressure_term(rho, ions);
+        if energy {
+            self.with_energy(&term, ions)
+        } else {
+            term
+        }
+    }
+
+    /// The pressure terms at density `rho` (U and dU/dln T left at 0; Phi_1 and Phi_2 kept for
+    /// [`CoulombAtTemperature::with_energy`]). Gamma_e from the cube root of
+    /// [`crate::numerics::cube_root`] (2 ulp).
+    pub fn pressure_term(&self, rho: f64, ions: &IonSpecies) -> CoulombTerm {
+        let (s, s1, _) = self.switch;
+        let gamma_e = self.gamma_coefficient * cbrt(rho);
+        let (mut phi1, mut phi2) = (0.0, 0.0);
         for &(nu, z53) in ions {
             if nu <= 0.0 {
                 continue;
             }
             let g = z53 * gamma_e;
             let (u, du) = ocp_energy(g);
-            if inside {
-                phi += nu * ocp_free_energy(g);
-            }
             phi1 += nu * u;
             phi2 += nu * g * du;
         }
         let per_mass = self.per_mass;
-        let (energy_term, de_term) = if energy {
-            (
-                per_mass * (s * phi1 - s1 * phi),
-                per_mass * (s * phi1 - s1 * phi + 2.0 * s1 * phi1 - s * phi2 - s2 * phi),
-            )
-        } else {
-            (0.0, 0.0)
-        };
         CoulombTerm {
             pressure: rho * per_mass * s * phi1 / 3.0,
             dp_dln_rho: rho * per_mass * s * (phi1 / 3.0 + phi2 / 9.0),
             dp_dln_t: rho * per_mass * ((s + s1) * phi1 - s * phi2) / 3.0,
-            energy: energy_term,
-            de_dln_t: de_term,
+            energy: 0.0,
+            de_dln_t: 0.0,
             gamma_e,
+            ion_energy_sum: phi1,
+            ion_energy_slope_sum: phi2,
+        }
+    }
+
+    /// `term` (from [`CoulombAtTemperature::pressure_term`] at this temperature for the same
+    /// `ions`) with U and dU/dln T. f itself (logarithms, arctangent) enters only through the
+    /// switch's derivatives, so it is evaluated only inside the switch.
+    pub fn with_energy(&self, term: &CoulombTerm, ions: &IonSpecies) -> CoulombTerm {
+        let (s, s1, s2) = self.switch;
+        let (phi1, phi2) = (term.ion_energy_sum, term.ion_energy_slope_sum);
+        let phi: f64 = if s1 > 1e-300 {
+            ions.iter()
+                .filter(|(nu, _)| *nu > 0.0)
+                .map(|&(nu, z53)| nu * ocp_free_energy(z53 * term.gamma_e))
+                .sum()
+        } else {
+            0.0
+        };
+        let per_mass = self.per_mass;
+        CoulombTerm {
+            energy: per_mass * (s * phi1 - s1 * phi),
+            de_dln_t: per_mass * (s * phi1 - s1 * phi + 2.0 * s1 * phi1 - s * phi2 - s2 * phi),
+            ..*term
         }
     }
 }

@@ -45,6 +45,8 @@ impl IdealGas {
             delta: chi_t / chi_rho,
             mu,
             degeneracy_psi: f64::NEG_INFINITY,
+            dpsi_dln_rho: 0.0,
+            dpsi_dln_t: 0.0,
             hydrogen_ionised: 1.0,
             helium_single: 0.0,
             helium_double: 1.0,

@@ -55,6 +55,12 @@ pub struct EosState {
     pub mu: f64,
     /// Electron degeneracy parameter psi = mu_chem,e / (k T) (large negative: non-degenerate).
     pub degeneracy_psi: f64,
+    /// (d psi / d ln rho)_T: with [`EosState::dpsi_dln_t`], what a law that solves for psi
+    /// uses to start its next inversion rho(P, T) near this state
+    /// ([`EquationOfState::state_at_pressure_near`]). Zero in laws without psi.
+    pub dpsi_dln_rho: f64,
+    /// (d psi / d ln T)_rho (see [`EosState::dpsi_dln_rho`]). Zero in laws without psi.
+    pub dpsi_dln_t: f64,
     /// Fraction of hydrogen ionised (H II / H), 0..1.
     pub hydrogen_ionised: f64,
     /// Fraction of helium singly ionised (He II / He).

@@ -57,16 +57,22 @@ impl Plasma {
         Err(self.error("charge neutrality not solved in 300 iterations", rho, t))
     }
 
-    /// The joint iteration's start from the state `near` of a nearby point: ln rho extrapolated
-    /// to (`p`, `t`) with its chi_rho and chi_T, and its psi.
+    /// The joint iteration's start from the state `near` of a nearby point, to first order in
+    /// the distance: d ln rho = (d ln P - chi_T d ln T) / chi_rho and
+    /// d psi = (d psi / d ln rho) d ln rho + (d psi / d ln T) d ln T, from its derivatives.
     pub(super) fn start_near(p: f64, t: f64, near: &EosState) -> Option<(f64, f64)> {
         (near.density_g_cm3 > 0.0 && near.chi_rho > 0.0 && near.degeneracy_psi.is_finite())
             .then(|| {
-                let ln_rho = near.density_g_cm3.ln()
-                    + ((p / near.pressure_dyn_cm2).ln()
-                        - near.chi_t * (t / near.temperature_k).ln())
-                        / near.chi_rho;
-                (ln_rho, near.degeneracy_psi)
+                let dln_t = (t / near.temperature_k).ln();
+                let dln_rho =
+                    ((p / near.pressure_dyn_cm2).ln() - near.chi_t * dln_t) / near.chi_rho;
+                let dpsi = near.dpsi_dln_rho * dln_rho + near.dpsi_dln_t * dln_t;
+                let psi = if dpsi.is_finite() {
+                    near.degeneracy_psi + dpsi
+                } else {
+                    near.degeneracy_psi
+                };
+                (near.density_g_cm3.ln() + dln_rho, psi)
             })
             .filter(|(r, _)| r.is_finite())
     }

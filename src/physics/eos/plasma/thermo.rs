@@ -154,6 +154,8 @@ impl Plasma {
             delta: chi_t / chi_rho,
             mu: 1.0 / (stages.n_p + stages.n_e),
             degeneracy_psi: psi,
+            dpsi_dln_rho: psi_rho,
+            dpsi_dln_t: psi_t,
             hydrogen_ionised: stages.x_h,
             helium_single: stages.he1,
             helium_double: stages.he2,

@@ -55,11 +55,11 @@ const GROWTH_PER_PHASE: f64 = 5.0;
 /// ionisation zones and superadiabatic layer of a star's envelope, where neither the phase nor
 /// the growth of the solutions limits the steps.
 const STRUCTURE_PER_PHASE: f64 = 0.25;
-/// Largest change of ln V across one step, per radian of the phase limit: 1, i.e. 0.2 at the
-/// default phase (module `mesh`). It resolves the pressure scale height in the outer envelope
-/// of a star: a 1 M_sun ZAMS model on 2000 rows had errors of 3e-7 in low-order modes (l = 2,
-/// p2) with 1 per step, 2e-7 with 0.5, and 7e-9 with 0.2 (against 16000 rows at half the phase
-/// per step); the n = 3 polytrope pays 30 per cent more work for it.
+/// Largest change of ln(1 + V) across one step, per radian of the phase limit: 1, i.e. 0.2 at
+/// the default phase (module `mesh`). It resolves the pressure scale height in the outer
+/// envelope of a star (a bound on ln V, measured before the core was exempted: a 1 M_sun ZAMS
+/// model on 2000 rows had errors of 3e-7 in low-order modes (l = 2, p2) with 1 per step, 2e-7
+/// with 0.5, and 7e-9 with 0.2, against 16000 rows at half the phase per step).
 const PRESSURE_PER_PHASE: f64 = 1.0;
 /// Longest step (in x) per radian of the phase limit: 0.075, i.e. 0.015 at the default phase,
 /// so that low-frequency modes, whose solutions barely oscillate, still see the structure

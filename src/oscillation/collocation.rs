@@ -309,8 +309,10 @@ impl<const D: usize> Lu<D> {
             if largest.is_nan() || largest <= 0.0 {
                 return false;
             }
-            m.swap(col, pivot);
-            perm.swap(col, pivot);
+            if pivot != col {
+                m.swap(col, pivot);
+                perm.swap(col, pivot);
+            }
             let pivot_row = m[col];
             let inverse = 1.0 / pivot_row[col];
             for row in col + 1..D {

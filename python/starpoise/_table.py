@@ -165,14 +165,8 @@ class ModesTable(Table):
     ``nu_max_scaling_uhz``); None where not defined.
     """
 
-    def __init__(
-        self,
-        columns: Mapping[str, Any],
-        units: Mapping[str, str],
-        meta: Mapping[str, Any],
-    ) -> None:
-        super().__init__(columns, units, meta)
-        self.seismic: dict[str, Any] = {}
+    #: Set by ``Star.modes`` on the table it returns.
+    seismic: dict[str, Any]
 
 
 class Record(_Named, Mapping[str, Any]):

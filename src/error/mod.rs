@@ -5,7 +5,7 @@
 //!   mass, the physics error or the integrator's reason);
 //! - [`NotConverged`]: the shooting iteration stopped without converging (the
 //!   termination reason, iterations, mismatch, history);
-//! - [`Error`]: what the library returns, with its process exit code ([`ExitCode`]).
+//! - [`enum@Error`]: what the library returns, with its process exit code ([`ExitCode`]).
 //!
 //! Library errors name model-file keys (`mass_msun`, `opacity`), never command-line flags: the
 //! command line maps keys to its flags.

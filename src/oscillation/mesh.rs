@@ -24,7 +24,7 @@
 //! bands share it) and at x = 0 and 1. Steps are marched outward through each segment between such
 //! points, each as long as the rates sampled at its middle and near its end allow (after a first
 //! sample at the middle of the longest step allowed), at most twice the one before, then shortened
-//! (up to [`MAX_SHORTENINGS`] times) until the changes across it are within bounds, and the last
+//! (up to `MAX_SHORTENINGS` times) until the changes across it are within bounds, and the last
 //! two of a segment share what is left rather than leave a sliver. Near the regular centre (below
 //! the model's first breakpoint) the growth rate does not limit a step: the solutions there are
 //! regular power series, whatever the rate of the singular ones. (Above it the growth limit stays,

@@ -290,7 +290,7 @@ const RESTART_LUMINOSITY_FACTORS: [f64; 3] = [0.1, 0.3, 3.0];
 /// carrying its [`NotConverged`] report (reason, history, last unknowns).
 ///
 /// From the built-in guess (no guess given), a failed iteration is restarted from the same guess
-/// with the luminosity scaled by each of [`RESTART_LUMINOSITY_FACTORS`] in turn (a set of laws
+/// with the luminosity scaled by each of `RESTART_LUMINOSITY_FACTORS` in turn (a set of laws
 /// far from its preset's can make stars several times fainter or brighter than the preset's
 /// table) before the failure of the first attempt is reported.
 pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {

@@ -3,8 +3,8 @@
 //! The two legs of the converged model are integrated once more, keeping every accepted step's
 //! dense output ([`LegSolution`]); with the centre series below the outward leg's start and the
 //! photosphere on top, that is the whole star as a continuous function. A row is a
-//! [`Place`] on it: the centre itself, a mass on the centre series, or an x on one of the legs.
-//! The grids ([`ProfileGrid`]) choose the places; [`FineSolution::structure_at`] reads the
+//! `Place` on it: the centre itself, a mass on the centre series, or an x on one of the legs.
+//! The grids ([`ProfileGrid`]) choose the places; `FineSolution::structure_at` reads the
 //! structure there, including the gravitational potential, which is integrated on the same
 //! dense output.
 //!

@@ -247,7 +247,7 @@ impl NewtonProblem<4> for ShootingProblem<'_> {
 
     /// Integrate coarsely while far from the solution and tighten as the mismatch falls:
     /// tolerance = clamp(1e-3 x mismatch, floor, 1e-7), the floor itself once within a decade
-    /// of it; the tolerance is only ever tightened, by at least [`MIN_TIGHTENING`] unless to
+    /// of it; the tolerance is only ever tightened, by at least `MIN_TIGHTENING` unless to
     /// the floor.
     fn adapt_to_residual(&mut self, norm: f64) -> bool {
         // The coarsest tolerance is 1e-7, or the floor itself when the user asked for a coarser

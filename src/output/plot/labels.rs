@@ -118,7 +118,7 @@ pub struct MassTick {
 }
 
 /// The powers of ten strictly inside the range of `masses_msun` (ascending, finite, positive)
-/// that no model has (to [`ROUND_TOLERANCE`]) and whose neighbouring models are at most
+/// that no model has (to `ROUND_TOLERANCE`) and whose neighbouring models are at most
 /// [`MAX_TICK_RATIO`] apart in mass, each with where it lies between them in log M.
 pub fn decade_ticks(masses_msun: &[f64]) -> Vec<MassTick> {
     let (Some(&lo), Some(&hi)) = (masses_msun.first(), masses_msun.last()) else {

@@ -14,7 +14,7 @@ use crate::physics::composition::Composition;
 /// Specific energy u = (3/2) P_gas / rho + 3 P_rad / rho (zero: the ionised plasma at rest, as
 /// for every law); entropy: Sackur–Tetrode for the bare nuclei (H, He and metals of mass
 /// numbers 1.00782503, 4 and 16) and the electrons (weight 2), plus radiation
-/// ([`super::entropy`]).
+/// (`super::entropy`).
 /// Valid for any rho > 0, T > 0 (full ionisation is assumed, not checked).
 #[derive(Debug, Clone, Copy, Default)]
 pub struct IdealGas;

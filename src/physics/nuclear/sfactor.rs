@@ -150,7 +150,7 @@ impl Reaction {
 /// ln f = Z1 Z2 e^3 (4 pi rho zeta^2 / m_u)^(1/2) (kT)^(-3/2), zeta^2 = sum (Z_i^2 + Z_i) X_i / A_i
 /// (= 0.188 Z1 Z2 zeta rho^(1/2) T6^(-3/2)). Strong screening (Salpeter 1954, ion-sphere):
 /// ln f = 0.9 [(Z1+Z2)^(5/3) - Z1^(5/3) - Z2^(5/3)] e^2 / (a_e kT), a_e = (3 / (4 pi n_e))^(1/3).
-/// A smooth minimum of the two ([`bridge`]) joins them across the intermediate regime (the fits
+/// A smooth minimum of the two (`bridge`) joins them across the intermediate regime (the fits
 /// of Graboske et al. 1973 are not implemented), capped at [`MAX_LN_SCREENING`]. Electron
 /// degeneracy is not allowed for in zeta.
 pub fn screening(z1: f64, z2: f64, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {

@@ -13,7 +13,7 @@ use crate::physics::eos::EosState;
 impl Plasma {
     /// Specific entropy, erg g^-1 K^-1, of `state` (its rho, T and psi), with the zero of
     /// [`crate::physics::eos::EquationOfState::specific_entropy_erg_g_k`]: every species of this model as an
-    /// ideal gas ([`crate::physics::eos::entropy`]), hydrogen atoms and ions (H I weight 2 w_H, H II 1), H2
+    /// ideal gas (`crate::physics::eos::entropy`), hydrogen atoms and ions (H I weight 2 w_H, H II 1), H2
     /// (weight Q_H2 w_H2, plus its rotation–vibration term d ln Q / d ln T), helium (He I w_He I,
     /// He II 2 w_He II, He III 1), the metal nuclei (with, in `molecular`, their donor and
     /// hydrogen-like electrons as two-stage sites), the electrons, radiation, and the Coulomb

@@ -1,7 +1,8 @@
 //! The summary quantities of a converged model, declared once.
 //!
-//! The `summary_quantities!` macro declares each quantity with its documentation; from that one list come
-//! the struct [`ModelSummary`] (plain `f64` fields: a converged model has every quantity), the
+//! The `summary_quantities!` macro declares each quantity with its documentation; from that one
+//! list come the struct [`ModelSummary`] (plain `f64` fields: a converged model has every
+//! quantity), the
 //! table [`ModelSummary::FIELDS`] (key = JSON key = CSV column = Python attribute, with the
 //! documentation line), and the flat values in that order. Output code serialises from these;
 //! nothing else lists the quantities.

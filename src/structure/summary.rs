@@ -2,9 +2,8 @@
 //!
 //! The `summary_quantities!` macro declares each quantity with its documentation; from that one
 //! list come the struct [`ModelSummary`] (plain `f64` fields: a converged model has every
-//! quantity), the
-//! table [`ModelSummary::FIELDS`] (key = JSON key = CSV column = Python attribute, with the
-//! documentation line), and the flat values in that order. Output code serialises from these;
+//! quantity), the table [`ModelSummary::FIELDS`] (key = JSON key = CSV column = Python
+//! attribute, with the documentation line), and the flat values in that order. Output code serialises from these;
 //! nothing else lists the quantities.
 
 /// One summary quantity: its key (with its unit in the name) and its documentation.

@@ -19,6 +19,7 @@
 
 use super::shooting::Unknowns;
 use crate::constants::{G_CGS, K_B_ERG_K, L_SUN_ERG_S, M_SUN_G, M_U_G, R_SUN_CM};
+use crate::numerics::interpolation::{interval, steffen};
 use crate::physics::{Composition, Preset};
 use crate::polytrope::eddington_beta;
 use crate::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
@@ -29,7 +30,7 @@ pub type GuessRow = [f64; 4];
 
 /// Reference models: (M / M_sun, [`GuessRow`]), refined physics, X = 0.70, Z = 0.02 (computed
 /// by this program; see the module documentation).
-pub const REFINED_MODELS: [(f64, GuessRow); 31] = [
+pub const REFINED_MODELS: [(f64, GuessRow); 38] = [
     (0.075, [40.824352, 14.899347, -2.355593, -8.867682]),
     (0.08, [40.618537, 15.034984, -2.271127, -8.121756]),
     (0.085, [40.462143, 15.123075, -2.200655, -7.661902]),
@@ -42,15 +43,22 @@ pub const REFINED_MODELS: [(f64, GuessRow); 31] = [
     (0.3, [38.997460, 15.786540, -1.185741, -4.378657]),
     (0.35, [38.884424, 15.843119, -1.078912, -4.098346]),
     (0.4, [38.790190, 15.891509, -0.987373, -3.858094]),
+    (0.45, [38.788693, 15.910427, -0.902542, -3.627180]),
     (0.5, [38.830946, 15.941990, -0.813909, -3.373893]),
+    (0.6, [38.955252, 16.024850, -0.631668, -2.791363]),
     (0.7, [39.110299, 16.124426, -0.482602, -2.122310]),
+    (0.8, [39.269129, 16.224456, -0.368680, -1.467000]),
+    (0.9, [39.417294, 16.317077, -0.247904, -0.874196]),
     (1.0, [39.554751, 16.403787, -0.116194, -0.331360]),
+    (1.1, [39.679285, 16.485416, 0.018165, 0.168528]),
     (1.2, [39.784192, 16.561548, 0.131755, 0.623587]),
     (1.35, [39.884368, 16.660056, 0.225311, 1.214171]),
     (1.5, [39.912829, 16.732125, 0.258939, 1.708870]),
     (1.7, [39.881558, 16.797933, 0.309314, 2.264210]),
     (2.0, [39.778899, 16.863139, 0.390860, 2.953299]),
+    (2.5, [39.584570, 16.934390, 0.516397, 3.859758]),
     (3.0, [39.405064, 16.984937, 0.622903, 4.571248]),
+    (4.0, [39.107795, 17.057426, 0.792115, 5.644757]),
     (5.0, [38.876323, 17.109658, 0.922742, 6.438969]),
     (7.0, [38.541454, 17.183235, 1.117710, 7.577941]),
     (10.0, [38.222941, 17.254650, 1.320825, 8.711216]),
@@ -65,15 +73,20 @@ pub const REFINED_MODELS: [(f64, GuessRow); 31] = [
 
 /// Reference models of the `analytic` preset, as [`REFINED_MODELS`] (its masses from 0.7 M_sun,
 /// the preset's lowest).
-pub const ANALYTIC_MODELS: [(f64, GuessRow); 18] = [
+pub const ANALYTIC_MODELS: [(f64, GuessRow); 23] = [
     (0.7, [38.007372, 15.896420, 0.101104, -4.343606]),
+    (0.8, [38.160631, 15.999166, 0.130958, -3.621239]),
+    (0.9, [38.304416, 16.091974, 0.155104, -2.983561]),
     (1.0, [38.440004, 16.176774, 0.174914, -2.412902]),
+    (1.1, [38.568347, 16.254965, 0.191348, -1.896664]),
     (1.2, [38.690054, 16.327602, 0.205126, -1.425591]),
     (1.35, [38.860150, 16.427879, 0.222116, -0.789082]),
     (1.5, [39.010762, 16.519535, 0.236706, -0.223413]),
     (1.7, [39.153077, 16.627263, 0.258985, 0.432590]),
     (2.0, [39.203732, 16.733860, 0.314600, 1.243865]),
+    (2.5, [39.109285, 16.829465, 0.435041, 2.331029]),
     (3.0, [38.981531, 16.890297, 0.549672, 3.211172]),
+    (4.0, [38.751701, 16.975116, 0.738660, 4.569199]),
     (5.0, [38.565895, 17.036089, 0.885418, 5.580484]),
     (7.0, [38.287466, 17.121625, 1.101625, 7.008768]),
     (10.0, [38.010924, 17.202936, 1.321301, 8.372849]),
@@ -95,22 +108,27 @@ pub fn reference_models(preset: Preset) -> &'static [(f64, GuessRow)] {
 }
 
 /// Built-in starting guess (ln P_c, ln T_c, ln R, ln L) for mass `mass_msun` and the laws of
-/// `preset`: the preset's reference table interpolated linearly in ln M (extrapolated from the
-/// end intervals), shifted for Z by d(ln Q)/d(ln Z) that blend in log M from their 1 M_sun values
-/// to their 10 M_sun values: ln L -0.22 to 0, ln R 0.035 to 0.12, ln T_c -0.02 to -0.045, ln P_c
+/// `preset`: the preset's reference table interpolated in ln M by monotone cubics (Steffen
+/// 1990; [`crate::numerics::interpolation`]), extrapolated linearly from the end intervals,
+/// shifted for Z by d(ln Q)/d(ln Z) that blend in log M from their 1 M_sun values to their
+/// 10 M_sun values: ln L -0.22 to 0, ln R 0.035 to 0.12, ln T_c -0.02 to -0.045, ln P_c
 /// -0.13 to -0.26 (fitted to this program's own refined models at Z = 0.001 and 0.04).
 pub fn initial_guess(mass_msun: f64, comp: &Composition, preset: Preset) -> Unknowns {
     let table = reference_models(preset);
     let lm = mass_msun.ln();
-    let n = table.len();
-    let i = table[1..n - 1]
-        .iter()
-        .take_while(|(m, _)| m.ln() < lm)
-        .count();
-    let (m0, r0) = table[i];
-    let (m1, r1) = table[i + 1];
-    let f = (lm - m0.ln()) / (m1.ln() - m0.ln());
-    let row: GuessRow = std::array::from_fn(|k| r0[k] + f * (r1[k] - r0[k]));
+    let ln_masses: Vec<f64> = table.iter().map(|(m, _)| m.ln()).collect();
+    let (first, last) = (ln_masses[0], ln_masses[ln_masses.len() - 1]);
+    let i = interval(&ln_masses, lm.clamp(first, last));
+    let row: GuessRow = std::array::from_fn(|k| {
+        let values: Vec<f64> = table.iter().map(|(_, r)| r[k]).collect();
+        if (first..=last).contains(&lm) {
+            steffen(&ln_masses, &values, i, lm)
+        } else {
+            // Beyond the table: the end interval's line.
+            let f = (lm - ln_masses[i]) / (ln_masses[i + 1] - ln_masses[i]);
+            values[i] + f * (values[i + 1] - values[i])
+        }
+    });
     let w = (lm / 10f64.ln()).clamp(0.0, 1.0);
     let blend = |at1: f64, at10: f64| at1 + w * (at10 - at1);
     let zeta = (comp.z().max(1e-6) / 0.02).ln();

@@ -1,7 +1,10 @@
 //! Regenerate a built-in table of starting guesses (`structure::guess::REFINED_MODELS` or
 //! `ANALYTIC_MODELS`): ZAMS models of a preset at X = 0.70, Z = 0.02, solved by continuation
 //! along the mass axis, printed as Rust source.
-//! Run: `cargo run --release --example guess_table -- refined` (or `analytic`).
+//! Run: `cargo run --release --example guess_table -- refined` (or `analytic`); with a second
+//! argument Z the refined table at that metallicity (`-- refined 0.002`: `REFINED_MODELS_LOW_Z`;
+//! `-- refined 0.04`: `REFINED_MODELS_HIGH_Z`), leaving out the masses below the hydrogen-burning
+//! limit there.
 
 use starpoise::physics::{Composition, PhysicsSet, Preset};
 use starpoise::structure::{guess, solve, ZamsSettings};
@@ -12,14 +15,19 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
         .unwrap_or_else(|| "refined".into())
         .parse()?;
     let physics = PhysicsSet::from_spec(&preset.spec())?;
-    let comp = Composition::new(0.70, 0.02)?;
+    let z: f64 = std::env::args().nth(2).map_or(Ok(0.02), |a| a.parse())?;
+    let comp = Composition::new(0.70, z)?;
+    let limit = starpoise::structure::limits::tabulated_refined_limit_msun(0.70, z).unwrap_or(0.0);
     let all = [
         0.075, 0.08, 0.085, 0.09, 0.1, 0.12, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.45, 0.5, 0.6, 0.7,
         0.8, 0.9, 1.0, 1.1, 1.2, 1.35, 1.5, 1.7, 2.0, 2.5, 3.0, 4.0, 5.0, 7.0, 10.0, 15.0, 20.0,
         30.0, 50.0, 70.0, 100.0, 150.0,
     ];
     let lowest = preset.minimum_mass_msun().unwrap_or(0.0);
-    let masses: Vec<f64> = all.into_iter().filter(|&m| m >= lowest).collect();
+    let masses: Vec<f64> = all
+        .into_iter()
+        .filter(|&m| m >= lowest && m >= 1.01 * limit)
+        .collect();
     // Continue downward and upward from the first mass that converges from the built-in guess
     // (tried from 2 M_sun outward), each model starting from its neighbour.
     let order: Vec<usize> = {
@@ -60,8 +68,15 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
             previous = Some((m, row));
         }
     }
+    let suffix = if z == 0.02 {
+        ""
+    } else if z < 0.02 {
+        "_LOW_Z"
+    } else {
+        "_HIGH_Z"
+    };
     println!(
-        "pub const {}_MODELS: [(f64, GuessRow); {}] = [",
+        "pub const {}_MODELS{suffix}: [(f64, GuessRow); {}] = [",
         preset.to_string().to_uppercase(),
         masses.len()
     );

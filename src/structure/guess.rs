@@ -3,8 +3,10 @@
 //! The built-in guess interpolates, in log M, a reference table of this program's own converged
 //! models of the preset at X = 0.70, Z = 0.02 ([`REFINED_MODELS`], [`ANALYTIC_MODELS`],
 //! regenerated with `cargo run --release --example guess_table -- PRESET` whenever the preset's
-//! laws change), shifted for other metallicities by logarithmic slopes fitted to this program's
-//! refined models at Z = 0.001 and Z = 0.04. The Newton iteration takes it from there; a guess
+//! laws change). For other metallicities the refined guess is linear in ln Z towards a second
+//! table at Z = 0.002 or 0.04 ([`REFINED_MODELS_LOW_Z`], [`REFINED_MODELS_HIGH_Z`]); the analytic
+//! one is shifted by logarithmic slopes fitted to this program's refined models at Z = 0.001
+//! and Z = 0.04. The Newton iteration takes it from there; a guess
 //! within a few per cent takes it there in two or three iterations.
 //!
 //! For continuation along a sequence, [`shifted`] moves a converged neighbour by the difference
@@ -71,6 +73,99 @@ pub const REFINED_MODELS: [(f64, GuessRow); 38] = [
     (150.0, [37.345303, 17.589507, 2.779742, 14.693261]),
 ];
 
+/// The metallicity of [`REFINED_MODELS_LOW_Z`].
+pub const LOW_Z: f64 = 0.002;
+
+/// Reference models of the refined physics at X = 0.70, Z = [`LOW_Z`] (computed by this program:
+/// `cargo run --release --example guess_table -- refined 0.002`; masses from just above the
+/// hydrogen-burning limit there). With [`REFINED_MODELS`] they give the guess at any Z by
+/// interpolation in ln Z (with [`REFINED_MODELS_HIGH_Z`] above Z = 0.02).
+pub const REFINED_MODELS_LOW_Z: [(f64, GuessRow); 37] = [
+    (0.08, [41.171092, 14.931676, -2.408590, -8.298264]),
+    (0.085, [40.863696, 15.097595, -2.300669, -7.467302]),
+    (0.09, [40.661274, 15.187673, -2.220462, -7.049685]),
+    (0.1, [40.397113, 15.297081, -2.099800, -6.553230]),
+    (0.12, [40.083591, 15.424902, -1.926955, -5.965759]),
+    (0.15, [39.802663, 15.542308, -1.741597, -5.409456]),
+    (0.2, [39.514269, 15.668024, -1.521905, -4.795927]),
+    (0.25, [39.324815, 15.756876, -1.360517, -4.359479]),
+    (0.3, [39.185637, 15.826927, -1.232734, -4.015446]),
+    (0.35, [39.075962, 15.885104, -1.126794, -3.728659]),
+    (0.4, [39.024270, 15.923530, -1.034589, -3.472216]),
+    (0.45, [39.073637, 15.960941, -0.937883, -3.177023]),
+    (0.5, [39.145627, 16.010653, -0.837805, -2.831464]),
+    (0.6, [39.323032, 16.129932, -0.678307, -2.034616]),
+    (0.7, [39.500093, 16.247085, -0.560367, -1.275300]),
+    (0.8, [39.660937, 16.353548, -0.442824, -0.604095]),
+    (0.9, [39.804631, 16.450534, -0.320437, -0.007896]),
+    (1.0, [39.929719, 16.538730, -0.208770, 0.522135]),
+    (1.1, [40.034365, 16.617911, -0.133113, 0.991377]),
+    (1.2, [40.118119, 16.687927, -0.102834, 1.407966]),
+    (1.35, [40.205003, 16.776665, -0.076855, 1.951185]),
+    (1.5, [40.248125, 16.847368, -0.047602, 2.415535]),
+    (1.7, [40.251244, 16.918440, -0.002361, 2.942045]),
+    (2.0, [40.188732, 16.991860, 0.072514, 3.592003]),
+    (2.5, [40.027542, 17.069971, 0.194953, 4.435794]),
+    (3.0, [39.863271, 17.122919, 0.303932, 5.090733]),
+    (4.0, [39.581137, 17.196064, 0.483505, 6.072527]),
+    (5.0, [39.358860, 17.247560, 0.626011, 6.798657]),
+    (7.0, [39.037114, 17.319469, 0.842756, 7.846750]),
+    (10.0, [38.731956, 17.389397, 1.071109, 8.903342]),
+    (15.0, [38.447740, 17.461257, 1.323770, 10.033072]),
+    (20.0, [38.290544, 17.507262, 1.496588, 10.781438]),
+    (30.0, [38.127232, 17.565169, 1.731292, 11.752084]),
+    (50.0, [37.999276, 17.627299, 2.017314, 12.833706]),
+    (70.0, [37.949502, 17.662386, 2.203331, 13.468101]),
+    (100.0, [37.917925, 17.695269, 2.400259, 14.083159]),
+    (150.0, [37.901443, 17.728115, 2.624577, 14.722838]),
+];
+
+/// The metallicity of [`REFINED_MODELS_HIGH_Z`].
+pub const HIGH_Z: f64 = 0.04;
+
+/// Reference models of the refined physics at X = 0.70, Z = [`HIGH_Z`] (computed by this
+/// program: `cargo run --release --example guess_table -- refined 0.04`).
+pub const REFINED_MODELS_HIGH_Z: [(f64, GuessRow); 38] = [
+    (0.075, [40.654515, 14.939932, -2.313651, -8.749395]),
+    (0.08, [40.485528, 15.051722, -2.238227, -8.130888]),
+    (0.085, [40.350524, 15.129860, -2.173070, -7.716308]),
+    (0.09, [40.237398, 15.189157, -2.115133, -7.411087]),
+    (0.1, [40.057573, 15.276495, -2.015467, -6.970978]),
+    (0.12, [39.802379, 15.391400, -1.857132, -6.401251]),
+    (0.15, [39.547357, 15.502251, -1.678220, -5.851387]),
+    (0.2, [39.269497, 15.623057, -1.461099, -5.245254]),
+    (0.25, [39.080001, 15.708778, -1.299614, -4.815344]),
+    (0.3, [38.937879, 15.776397, -1.171011, -4.478596]),
+    (0.35, [38.824098, 15.832485, -1.063975, -4.200216]),
+    (0.4, [38.729012, 15.880471, -0.972209, -3.962048]),
+    (0.45, [38.656198, 15.914717, -0.891874, -3.752804]),
+    (0.5, [38.663072, 15.932444, -0.815200, -3.545704]),
+    (0.6, [38.747797, 15.992105, -0.655045, -3.084919]),
+    (0.7, [38.869014, 16.069601, -0.496296, -2.549899]),
+    (0.8, [39.012269, 16.158578, -0.371674, -1.954826]),
+    (0.9, [39.155912, 16.246245, -0.264945, -1.381169]),
+    (1.0, [39.291629, 16.328548, -0.150342, -0.853440]),
+    (1.1, [39.418944, 16.406665, -0.024711, -0.362435]),
+    (1.2, [39.534677, 16.481261, 0.106103, 0.096606]),
+    (1.35, [39.666231, 16.585289, 0.272179, 0.716309]),
+    (1.5, [39.719237, 16.667077, 0.366475, 1.236195]),
+    (1.7, [39.701545, 16.739251, 0.420562, 1.811359]),
+    (2.0, [39.605020, 16.807733, 0.500932, 2.521129]),
+    (2.5, [39.414646, 16.880753, 0.627035, 3.458963]),
+    (3.0, [39.237918, 16.932301, 0.734478, 4.200331]),
+    (4.0, [38.944397, 17.006456, 0.904359, 5.326023]),
+    (5.0, [38.714757, 17.060122, 1.034452, 6.161810]),
+    (7.0, [38.380454, 17.135902, 1.226612, 7.359956]),
+    (10.0, [38.060317, 17.209380, 1.424410, 8.546619]),
+    (15.0, [37.760158, 17.283710, 1.641402, 9.784642]),
+    (20.0, [37.593674, 17.330422, 1.790822, 10.586561]),
+    (30.0, [37.420215, 17.388221, 1.997408, 11.607193]),
+    (50.0, [37.282953, 17.449189, 2.256361, 12.724423]),
+    (70.0, [37.228613, 17.483322, 2.428994, 13.373831]),
+    (100.0, [37.194065, 17.515400, 2.616864, 14.004476]),
+    (150.0, [37.175678, 17.547575, 2.837207, 14.661728]),
+];
+
 /// Reference models of the `analytic` preset, as [`REFINED_MODELS`] (its masses from 0.7 M_sun,
 /// the preset's lowest).
 pub const ANALYTIC_MODELS: [(f64, GuessRow); 23] = [
@@ -109,35 +204,65 @@ pub fn reference_models(preset: Preset) -> &'static [(f64, GuessRow)] {
 
 /// Built-in starting guess (ln P_c, ln T_c, ln R, ln L) for mass `mass_msun` and the laws of
 /// `preset`: the preset's reference table interpolated in ln M by monotone cubics (Steffen
-/// 1990; [`crate::numerics::interpolation`]), extrapolated linearly from the end intervals,
-/// shifted for Z by d(ln Q)/d(ln Z) that blend in log M from their 1 M_sun values to their
-/// 10 M_sun values: ln L -0.22 to 0, ln R 0.035 to 0.12, ln T_c -0.02 to -0.045, ln P_c
+/// 1990; [`crate::numerics::interpolation`]), extrapolated linearly from the end intervals.
+/// For the refined preset, linear in ln Z through that and [`REFINED_MODELS_LOW_Z`] (Z below
+/// 0.02) or [`REFINED_MODELS_HIGH_Z`] (above); otherwise
+/// (and below the low-Z table's masses) shifted for Z by d(ln Q)/d(ln Z) that blend in log M
+/// from their 1 M_sun values to their 10 M_sun values: ln L -0.22 to 0, ln R 0.035 to 0.12, ln T_c -0.02 to -0.045, ln P_c
 /// -0.13 to -0.26 (fitted to this program's own refined models at Z = 0.001 and 0.04).
 pub fn initial_guess(mass_msun: f64, comp: &Composition, preset: Preset) -> Unknowns {
-    let table = reference_models(preset);
     let lm = mass_msun.ln();
+    let row = interpolated(reference_models(preset), lm);
+    let zeta = (comp.z().max(1e-6) / 0.02).ln();
+    // The refined preset has tables at Z = LOW_Z and HIGH_Z too: the guess is linear in ln Z
+    // between Z = 0.02 and the one on the side of Z (extrapolated beyond it) wherever the mass
+    // lies inside that table.
+    let (other_z, other): (f64, &[(f64, GuessRow)]) = if comp.z() < 0.02 {
+        (LOW_Z, &REFINED_MODELS_LOW_Z)
+    } else {
+        (HIGH_Z, &REFINED_MODELS_HIGH_Z)
+    };
+    let second =
+        (preset == Preset::Refined && lm >= other[0].0.ln()).then(|| interpolated(other, lm));
+    let shifted: GuessRow = match second {
+        Some(low) => {
+            let f = zeta / (other_z / 0.02).ln();
+            std::array::from_fn(|k| row[k] + f * (low[k] - row[k]))
+        }
+        None => {
+            let w = (lm / 10f64.ln()).clamp(0.0, 1.0);
+            let blend = |at1: f64, at10: f64| at1 + w * (at10 - at1);
+            [
+                row[0] + blend(-0.13, -0.26) * zeta,
+                row[1] + blend(-0.02, -0.045) * zeta,
+                row[2] + blend(0.035, 0.12) * zeta,
+                row[3] + blend(-0.22, 0.0) * zeta,
+            ]
+        }
+    };
+    Unknowns::new(
+        shifted[0],
+        shifted[1],
+        shifted[2] + R_SUN_CM.ln(),
+        shifted[3] + L_SUN_ERG_S.ln(),
+    )
+}
+
+/// The row of `table` at ln M = `lm`: monotone cubic (Steffen 1990) inside the table, the end
+/// interval's line beyond it.
+fn interpolated(table: &[(f64, GuessRow)], lm: f64) -> GuessRow {
     let ln_masses: Vec<f64> = table.iter().map(|(m, _)| m.ln()).collect();
     let (first, last) = (ln_masses[0], ln_masses[ln_masses.len() - 1]);
     let i = interval(&ln_masses, lm.clamp(first, last));
-    let row: GuessRow = std::array::from_fn(|k| {
+    std::array::from_fn(|k| {
         let values: Vec<f64> = table.iter().map(|(_, r)| r[k]).collect();
         if (first..=last).contains(&lm) {
             steffen(&ln_masses, &values, i, lm)
         } else {
-            // Beyond the table: the end interval's line.
             let f = (lm - ln_masses[i]) / (ln_masses[i + 1] - ln_masses[i]);
             values[i] + f * (values[i + 1] - values[i])
         }
-    });
-    let w = (lm / 10f64.ln()).clamp(0.0, 1.0);
-    let blend = |at1: f64, at10: f64| at1 + w * (at10 - at1);
-    let zeta = (comp.z().max(1e-6) / 0.02).ln();
-    Unknowns::new(
-        row[0] + blend(-0.13, -0.26) * zeta,
-        row[1] + blend(-0.02, -0.045) * zeta,
-        row[2] + blend(0.035, 0.12) * zeta + R_SUN_CM.ln(),
-        row[3] + blend(-0.22, 0.0) * zeta + L_SUN_ERG_S.ln(),
-    )
+    })
 }
 
 /// The guess for `to_msun` from a converged neighbour `row` at `from_msun`: the neighbour's

@@ -3,8 +3,9 @@
 //! along the mass axis, printed as Rust source.
 //! Run: `cargo run --release --example guess_table -- refined` (or `analytic`); with a second
 //! argument Z the refined table at that metallicity (`-- refined 0.002`: `REFINED_MODELS_LOW_Z`;
-//! `-- refined 0.04`: `REFINED_MODELS_HIGH_Z`), leaving out the masses below the hydrogen-burning
-//! limit there.
+//! `-- refined 0.04`: `REFINED_MODELS_HIGH_Z`), and with a third X (`-- refined 0.02 0.65`:
+//! `REFINED_MODELS_LOW_X`; `0.75`: `REFINED_MODELS_HIGH_X`), leaving out the masses below the
+//! hydrogen-burning limit there.
 
 use starpoise::physics::{Composition, PhysicsSet, Preset};
 use starpoise::structure::{guess, solve, ZamsSettings};
@@ -16,8 +17,9 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
         .parse()?;
     let physics = PhysicsSet::from_spec(&preset.spec())?;
     let z: f64 = std::env::args().nth(2).map_or(Ok(0.02), |a| a.parse())?;
-    let comp = Composition::new(0.70, z)?;
-    let limit = starpoise::structure::limits::tabulated_refined_limit_msun(0.70, z).unwrap_or(0.0);
+    let x: f64 = std::env::args().nth(3).map_or(Ok(0.70), |a| a.parse())?;
+    let comp = Composition::new(x, z)?;
+    let limit = starpoise::structure::limits::tabulated_refined_limit_msun(x, z).unwrap_or(0.0);
     let all = [
         0.075, 0.08, 0.085, 0.09, 0.1, 0.12, 0.15, 0.2, 0.25, 0.3, 0.35, 0.4, 0.45, 0.5, 0.6, 0.7,
         0.8, 0.9, 1.0, 1.1, 1.2, 1.35, 1.5, 1.7, 2.0, 2.5, 3.0, 4.0, 5.0, 7.0, 10.0, 15.0, 20.0,
@@ -68,7 +70,11 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
             previous = Some((m, row));
         }
     }
-    let suffix = if z == 0.02 {
+    let suffix = if x < 0.70 {
+        "_LOW_X"
+    } else if x > 0.70 {
+        "_HIGH_X"
+    } else if z == 0.02 {
         ""
     } else if z < 0.02 {
         "_LOW_Z"

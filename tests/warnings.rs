@@ -1,6 +1,9 @@
 //! Models say when they leave what their laws describe well (each law's caution) or the mass
 //! range their set has been compared with measured stars on.
 
+mod common;
+
+use common::{json, scratch_dir, starpoise, stderr};
 use starpoise::physics::eos::plasma::STRONG_COUPLING_GAMMA_E;
 use starpoise::physics::{Composition, EquationOfState, PhysicsOverrides, PhysicsSet};
 use starpoise::structure::{solve, ZamsSettings};
@@ -69,36 +72,23 @@ fn strong_coupling_is_flagged() {
     );
 }
 
-/// The standard output of a successful `starpoise` run with `args`.
-fn run(args: &[&str]) -> String {
-    let out = std::process::Command::new(env!("CARGO_BIN_EXE_starpoise"))
-        .args(args)
-        .output()
-        .unwrap();
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    String::from_utf8_lossy(&out.stdout).into_owned()
-}
-
 /// A grid carries each converged model's warnings in its `warnings` column (and its text table
 /// points to them), and they read back from the CSV unchanged (as `merge` reads shards): the
 /// 0.1 M_sun row has the strong-coupling warning of `strong_coupling_is_flagged`, the Sun's
 /// row none.
 #[test]
 fn sequence_rows_carry_the_warnings() {
-    let dir = std::env::temp_dir().join(format!("starpoise-warn-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
+    let dir = scratch_dir("warnings");
     let csv = dir.join("grid.csv");
-    let text = run(&[
+    let out = starpoise(&[
         "sequence",
         "--masses",
         "0.1,1",
         "--out",
         csv.to_str().unwrap(),
     ]);
+    assert!(out.status.success(), "{}", stderr(&out));
+    let text = String::from_utf8_lossy(&out.stdout);
     assert!(text.contains("converged (1 warning, below)"), "{text}");
     assert!(text.contains("strongly coupled"), "{text}");
     let table = starpoise::output::sequence::read_table(&csv).unwrap();
@@ -108,7 +98,7 @@ fn sequence_rows_carry_the_warnings() {
         .any(|w| w.contains("strongly coupled")));
     assert!(table.rows[1].warnings.is_empty());
     assert_eq!(table.rows[0].warnings, model(0.1, ""));
-    let json = run(&[
+    let out = starpoise(&[
         "compare",
         "--mass",
         "0.1",
@@ -119,7 +109,8 @@ fn sequence_rows_carry_the_warnings() {
         "--format",
         "json",
     ]);
-    let v: serde_json::Value = serde_json::from_str(&json).unwrap();
+    assert!(out.status.success(), "{}", stderr(&out));
+    let v = json(&out);
     let record = &v["records"][0];
     assert!(
         record["warnings"]

@@ -74,17 +74,6 @@ impl Cell {
         }
     }
 
-    /// The cell as CSV text (`true`/`false` for flags).
-    pub fn csv(&self) -> String {
-        match self {
-            Cell::Text(s) => s.clone(),
-            Cell::Number(v) => format_number(*v),
-            Cell::Count(n) => n.to_string(),
-            Cell::Flag(b) => b.to_string(),
-            Cell::Empty => String::new(),
-        }
-    }
-
     /// The cell as a JSON value (`null` for no value).
     pub fn json(&self) -> Value {
         match self {

@@ -305,52 +305,55 @@ pub fn initial_guess(mass_msun: f64, comp: &Composition, preset: Preset) -> Unkn
     let lm = mass_msun.ln();
     let row = interpolated(reference_models(preset), lm);
     let zeta = (comp.z().max(1e-6) / 0.02).ln();
+    let refined = preset == Preset::Refined;
     // The refined preset has tables at Z = LOW_Z and HIGH_Z too: the guess is linear in ln Z
     // between Z = 0.02 and the one on the side of Z (extrapolated beyond it) wherever the mass
-    // lies inside that table.
-    let (other_z, other): (f64, &[(f64, GuessRow)]) = if comp.z() < 0.02 {
+    // lies inside that table; elsewhere the fitted slopes in ln Z.
+    let (z_side, z_table): (f64, &[(f64, GuessRow)]) = if comp.z() < 0.02 {
         (LOW_Z, &REFINED_MODELS_LOW_Z)
     } else {
         (HIGH_Z, &REFINED_MODELS_HIGH_Z)
     };
-    let second =
-        (preset == Preset::Refined && lm >= other[0].0.ln()).then(|| interpolated(other, lm));
-    let shifted: GuessRow = match second {
-        Some(low) => {
-            let f = zeta / (other_z / 0.02).ln();
-            std::array::from_fn(|k| row[k] + f * (low[k] - row[k]))
-        }
-        None => {
+    let z_step = refined
+        .then(|| toward(z_table, &row, lm, zeta / (z_side / 0.02).ln()))
+        .flatten()
+        .unwrap_or_else(|| {
             let w = (lm / 10f64.ln()).clamp(0.0, 1.0);
             let blend = |at1: f64, at10: f64| at1 + w * (at10 - at1);
             [
-                row[0] + blend(-0.13, -0.26) * zeta,
-                row[1] + blend(-0.02, -0.045) * zeta,
-                row[2] + blend(0.035, 0.12) * zeta,
-                row[3] + blend(-0.22, 0.0) * zeta,
+                blend(-0.13, -0.26) * zeta,
+                blend(-0.02, -0.045) * zeta,
+                blend(0.035, 0.12) * zeta,
+                blend(-0.22, 0.0) * zeta,
             ]
-        }
-    };
+        });
     // And linear in X between X = 0.70 and the table on the side of X (at Z = 0.02, added to
-    // the shift in Z).
-    let (other_x, by_x): (f64, &[(f64, GuessRow)]) = if comp.x() < 0.70 {
+    // the step in Z).
+    let (x_side, x_table): (f64, &[(f64, GuessRow)]) = if comp.x() < 0.70 {
         (LOW_X, &REFINED_MODELS_LOW_X)
     } else {
         (HIGH_X, &REFINED_MODELS_HIGH_X)
     };
-    let fx = (comp.x() - 0.70) / (other_x - 0.70);
-    let x_shift: GuessRow = if preset == Preset::Refined && lm >= by_x[0].0.ln() && fx != 0.0 {
-        let at_x = interpolated(by_x, lm);
-        std::array::from_fn(|k| fx * (at_x[k] - row[k]))
-    } else {
-        [0.0; 4]
-    };
+    let x_step = refined
+        .then(|| toward(x_table, &row, lm, (comp.x() - 0.70) / (x_side - 0.70)))
+        .flatten()
+        .unwrap_or([0.0; 4]);
     Unknowns::new(
-        shifted[0] + x_shift[0],
-        shifted[1] + x_shift[1],
-        shifted[2] + x_shift[2] + R_SUN_CM.ln(),
-        shifted[3] + x_shift[3] + L_SUN_ERG_S.ln(),
+        row[0] + z_step[0] + x_step[0],
+        row[1] + z_step[1] + x_step[1],
+        row[2] + z_step[2] + x_step[2] + R_SUN_CM.ln(),
+        row[3] + z_step[3] + x_step[3] + L_SUN_ERG_S.ln(),
     )
+}
+
+/// The step from `row` (the reference table's row at ln M = `lm`) `fraction` of the way to the
+/// row of the side table `table` there (the guess linear in one composition variable); `None`
+/// below the side table's lightest mass.
+fn toward(table: &[(f64, GuessRow)], row: &GuessRow, lm: f64, fraction: f64) -> Option<GuessRow> {
+    (lm >= table[0].0.ln()).then(|| {
+        let side = interpolated(table, lm);
+        std::array::from_fn(|k| fraction * (side[k] - row[k]))
+    })
 }
 
 /// The row of `table` at ln M = `lm`: monotone cubic (Steffen 1990) inside the table, the end

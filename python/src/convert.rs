@@ -138,3 +138,30 @@ pub fn repr_str(py: Python<'_>, s: &str) -> String {
         .repr()
         .map_or_else(|_| format!("'{s}'"), |r| r.to_string())
 }
+
+/// Columns `keys` of the JSON objects `rows`, each a numpy array (see [`column`]).
+fn columns<'py>(
+    py: Python<'py>,
+    keys: &[&str],
+    rows: &[Map<String, Value>],
+) -> PyResult<Bound<'py, PyDict>> {
+    let d = PyDict::new(py);
+    for key in keys {
+        d.set_item(*key, column(py, rows, key)?)?;
+    }
+    Ok(d)
+}
+
+/// A table (`class` of `starpoise._table`) of the JSON records `rows` under `keys`, with the
+/// units read off the keys and `meta`.
+pub fn records_table<'py>(
+    py: Python<'py>,
+    class: &str,
+    keys: &[&str],
+    rows: &[Map<String, Value>],
+    meta: Bound<'py, PyDict>,
+) -> PyResult<Bound<'py, PyAny>> {
+    let columns = columns(py, keys, rows)?;
+    let units = units(py, keys.iter().copied())?;
+    table(py, class, columns, units, meta)
+}

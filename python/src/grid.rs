@@ -2,7 +2,7 @@
 //! runner), with the GIL released and Ctrl-C honoured between models.
 
 use crate::args::{count, law_args, meta, value_list, variants, Call, LawArgs};
-use crate::convert::{self, column};
+use crate::convert;
 use crate::errors::{caught, Caller, Failure, OrRaise};
 use pyo3::prelude::*;
 use pyo3::types::PyDict;
@@ -86,19 +86,6 @@ fn variants_dict<'py>(py: Python<'py>, variants: &[Variant]) -> PyResult<Bound<'
     Ok(d)
 }
 
-/// Columns `keys` of the JSON objects `rows`, each a numpy array (see [`column`]).
-fn columns<'py>(
-    py: Python<'py>,
-    keys: &[&str],
-    rows: &[Map<String, Value>],
-) -> PyResult<Bound<'py, PyDict>> {
-    let d = PyDict::new(py);
-    for key in keys {
-        d.set_item(*key, column(py, rows, key)?)?;
-    }
-    Ok(d)
-}
-
 /// A grid to solve: the product of the lists, under each variant of the base laws.
 struct GridRequest<'a> {
     laws: &'a LawArgs,
@@ -140,20 +127,6 @@ fn solve_grid(
     };
     let results = run_interruptible(py, caller, &grid, &points, run)?;
     Ok((grid, results))
-}
-
-/// A table (`class` of `starpoise._table`) of the JSON records `rows` under `keys`, with the
-/// units read off the keys and `meta`.
-fn records_table<'py>(
-    py: Python<'py>,
-    class: &str,
-    keys: &[&str],
-    rows: &[Map<String, Value>],
-    meta: Bound<'py, PyDict>,
-) -> PyResult<Bound<'py, PyAny>> {
-    let columns = columns(py, keys, rows)?;
-    let units = convert::units(py, keys.iter().copied())?;
-    convert::table(py, class, columns, units, meta)
 }
 
 /// Solve a grid of zero-age main-sequence models: masses x compositions x physics variants,
@@ -296,7 +269,7 @@ pub fn sequence<'py>(
     meta.set_item("grid_fingerprint", &fingerprint)?;
     meta.set_item("fit_ranges", convert::serialized(py, &ranges)?)?;
     meta.set_item("variants", variants_dict(py, &grid.variants)?)?;
-    let table = records_table(py, "SequenceTable", &GridRow::columns(), &maps, meta)?;
+    let table = convert::records_table(py, "SequenceTable", &GridRow::columns(), &maps, meta)?;
     table.setattr("fits", convert::serialized(py, &fits)?)?;
     Ok(table)
 }
@@ -420,5 +393,5 @@ pub fn compare<'py>(
     meta.set_item("reference", &table.reference)?;
     crate::args::add_model(py, &meta, &composition, grid.physics[0].spec())?;
     meta.set_item("variants", variants_dict(py, &grid.variants)?)?;
-    records_table(py, "Table", &keys, &maps, meta)
+    convert::records_table(py, "Table", &keys, &maps, meta)
 }

@@ -416,16 +416,11 @@ impl Star {
             _ => Vec::new(),
         };
         let meta_value = top.remove("meta").unwrap_or(serde_json::Value::Null);
-        let columns = PyDict::new(py);
-        for key in MODE_COLUMNS {
-            columns.set_item(key, convert::column(py, &rows, key)?)?;
-        }
-        let units = convert::units(py, MODE_COLUMNS)?;
         let meta = match convert::to_py(py, &meta_value)?.cast_into::<PyDict>() {
             Ok(d) => d,
             Err(_) => PyDict::new(py),
         };
-        let table = convert::table(py, "ModesTable", columns, units, meta)?;
+        let table = convert::records_table(py, "ModesTable", &MODE_COLUMNS, &rows, meta)?;
         table.setattr("seismic", convert::dict(py, &top)?)?;
         Ok(table)
     }

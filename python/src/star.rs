@@ -27,26 +27,7 @@ fn modes_report(
     cowling: bool,
     command: String,
 ) -> Result<ModesReport> {
-    let degrees: Vec<u32> = degrees
-        .iter()
-        .map(|&l| {
-            u32::try_from(l).map_err(|_| {
-                Error::invalid(
-                    "degrees",
-                    l,
-                    "degrees are integers from 0 to 1000, e.g. 0,1,2,3",
-                )
-            })
-        })
-        .collect::<Result<_>>()?;
-    let max_order = u32::try_from(max_order).map_err(|_| {
-        Error::invalid(
-            "max_order",
-            max_order,
-            "the highest order must be an integer from 1 to 1000, e.g. 25",
-        )
-    })?;
-    let degrees = checked_degrees(&degrees, max_order)?;
+    let (degrees, max_order) = checked_degrees(degrees, max_order)?;
     let points = count("points", points, "", check_profile_points)?;
     let settings = OscillationSettings::default().with_cowling(cowling);
     let spectrum = star_modes(model, points, &degrees, max_order, &settings)?;

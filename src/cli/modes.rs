@@ -177,11 +177,12 @@ impl TryFrom<ModesArgs> for ModesRequest {
                 (ModelKind::Zams(Box::new(settings)), points)
             }
         };
-        let degrees = checked_degrees(&args.degrees, args.max_order)?;
+        let asked: Vec<i64> = args.degrees.iter().map(|&l| i64::from(l)).collect();
+        let (degrees, max_order) = checked_degrees(&asked, i64::from(args.max_order))?;
         Ok(Self {
             equilibrium,
             degrees,
-            max_order: args.max_order,
+            max_order,
             settings: OscillationSettings::default()
                 .with_cowling(args.cowling)
                 .with_eigenfunctions(args.eigenfunctions.is_some()),

@@ -24,14 +24,16 @@ pub const SEPARATION_OFFSET: i32 = 3;
 /// (tests/oscillation_zams.rs).
 pub const DEFAULT_PROFILE_ROWS: usize = 2000;
 
-/// The degrees asked, sorted and without repeats, each at most [`MAX_DEGREE`], after checking
-/// that `max_order` is in 1..=[`MAX_ORDER`]. Errors ([`Error::InvalidInput`]) name the keys
+/// The degrees asked, sorted and without repeats, each from 0 to [`MAX_DEGREE`], and
+/// `max_order` from 1 to [`MAX_ORDER`], as the types the search takes (the command line and the
+/// Python module pass what they were given). Errors ([`Error::InvalidInput`]) name the keys
 /// `degrees` and `max_order`.
-pub fn checked_degrees(degrees: &[u32], max_order: u32) -> Result<Vec<u32>> {
+pub fn checked_degrees(degrees: &[i64], max_order: i64) -> Result<(Vec<u32>, u32)> {
     let mut sorted = degrees.to_vec();
     sorted.sort_unstable();
     sorted.dedup();
-    if let Some(&l) = sorted.iter().find(|&&l| l > MAX_DEGREE) {
+    let degree = |l: i64| u32::try_from(l).ok().filter(|&l| l <= MAX_DEGREE);
+    if let Some(&l) = sorted.iter().find(|&&l| degree(l).is_none()) {
         return Err(Error::invalid(
             "degrees",
             l,
@@ -45,14 +47,17 @@ pub fn checked_degrees(degrees: &[u32], max_order: u32) -> Result<Vec<u32>> {
             "give at least one degree, e.g. 0,1,2,3",
         ));
     }
-    if !(1..=MAX_ORDER).contains(&max_order) {
+    let Some(max_order) = u32::try_from(max_order)
+        .ok()
+        .filter(|n| (1..=MAX_ORDER).contains(n))
+    else {
         return Err(Error::invalid(
             "max_order",
             max_order,
             &format!("the highest order must be an integer from 1 to {MAX_ORDER}, e.g. 25"),
         ));
-    }
-    Ok(sorted)
+    };
+    Ok((sorted.into_iter().filter_map(degree).collect(), max_order))
 }
 
 /// The spectrum of a ZAMS model.

@@ -28,8 +28,8 @@ use quadrature::{
 
 /// sqrt(pi).
 const SQRT_PI: f64 = 1.772_453_850_905_516;
-/// Gamma(1/2), Gamma(3/2), Gamma(5/2).
-const GAMMA_HALF: [f64; 3] = [SQRT_PI, 0.5 * SQRT_PI, 0.75 * SQRT_PI];
+/// Gamma(1/2), Gamma(3/2), Gamma(5/2): Gamma(j + 1) for j = -1/2, 1/2, 3/2.
+pub const GAMMA_HALF: [f64; 3] = [SQRT_PI, 0.5 * SQRT_PI, 0.75 * SQRT_PI];
 /// ln Gamma(1/2), ln Gamma(3/2), ln Gamma(5/2).
 const LN_GAMMA_HALF: [f64; 3] = [
     0.572_364_942_924_700_1,
@@ -137,21 +137,32 @@ pub fn fermi_dirac(psi: f64) -> FermiDirac {
 /// ln(1 + x) with x = sum_(k>=2) c_k e^((k-1) psi), |x| < 4e-5, and ln(1 + x) by its series to
 /// x^3 (error below 1e-18).
 pub fn ln_fermi_dirac(psi: f64) -> [f64; 3] {
-    if psi <= PSI_MIN {
-        let e = psi.exp();
-        let mut out = [0.0; 3];
-        for (jj, o) in out.iter_mut().enumerate() {
-            let c = &SERIES[jj];
-            let x = e * (c[1] + e * (c[2] + e * (c[3] + e * c[4])));
-            *o = LN_GAMMA_HALF[jj] + psi + x * (1.0 - x * (0.5 - x / 3.0));
-        }
-        return out;
+    if let Some((_, x)) = series_corrections(psi) {
+        return [0, 1, 2].map(|j| LN_GAMMA_HALF[j] + psi + ln_one_plus_small(x[j]));
     }
     if psi >= PSI_MAX {
         let f = sommerfeld(psi);
         return [f.f_minus_half.ln(), f.f_half.ln(), f.f_three_halves.ln()];
     }
     table_ln(psi)
+}
+
+/// Below the table (psi <= -10): e^psi and the corrections x_j of F_j = Gamma(j+1) e^psi
+/// (1 + x_j), x_j = sum_(k>=2) c_k e^((k-1) psi) (|x_j| < 4e-5), for j = -1/2, 1/2, 3/2; `None`
+/// above. Ratios of the F_j then need no exponential.
+pub fn series_corrections(psi: f64) -> Option<(f64, [f64; 3])> {
+    (psi <= PSI_MIN).then(|| {
+        let e = psi.exp();
+        (
+            e,
+            SERIES.map(|c| e * (c[1] + e * (c[2] + e * (c[3] + e * c[4])))),
+        )
+    })
+}
+
+/// ln(1 + x) for |x| < 4e-5 by its series to x^3 (error below 1e-18).
+pub fn ln_one_plus_small(x: f64) -> f64 {
+    x * (1.0 - x * (0.5 - x / 3.0))
 }
 
 /// Cubic Hermite interpolation of ln F_j in the table, PSI_MIN < psi < PSI_MAX.

@@ -2,7 +2,10 @@
 //! first guess and upper bound of the psi of a given electron density.
 
 use super::{Electrons, Plasma};
-use crate::physics::eos::fermi_dirac::{inverse_guess, inverse_upper_bound, ln_fermi_dirac};
+use crate::physics::eos::fermi_dirac::{
+    inverse_guess, inverse_upper_bound, ln_fermi_dirac, ln_one_plus_small, series_corrections,
+    GAMMA_HALF,
+};
 
 pub(super) const SQRT_PI: f64 = 1.772_453_850_905_516;
 /// ln Gamma(3/2) = ln(sqrt(pi) / 2).
@@ -27,6 +30,19 @@ impl Plasma {
                 slope_three_halves: 1.0,
             },
             Electrons::FermiDirac => {
+                if let Some((e, [x_m, x_h, x_3])) = series_corrections(psi) {
+                    // Non-degenerate: the same quantities from F_j = Gamma(j+1) e^psi (1 + x_j)
+                    // without the exponentials of differences of logarithms.
+                    let [g_m, g_h, g_3] = GAMMA_HALF;
+                    let (f_m, f_h) = (g_m * (1.0 + x_m), g_h * (1.0 + x_h));
+                    let f_3 = g_3 * (1.0 + x_3);
+                    return ElectronIntegrals {
+                        ln_f_half: LN_GAMMA_THREE_HALVES + psi + ln_one_plus_small(x_h),
+                        slope_half: 0.5 * f_m / f_h,
+                        f_three_halves: e * f_3,
+                        slope_three_halves: 1.5 * f_h / f_3,
+                    };
+                }
                 let [ln_m, ln_h, ln_3] = ln_fermi_dirac(psi);
                 ElectronIntegrals {
                     ln_f_half: ln_h,

@@ -108,20 +108,26 @@ impl Plasma {
                 t,
             ));
         }
+        let ln_p = p.ln();
+        if let Some((warm_rho, warm_psi)) = start {
+            if let Some(solved) = self.joint_newton(
+                ln_p,
+                p_rad,
+                t,
+                comp,
+                (warm_rho, Some(warm_psi)),
+                with_entropy,
+            ) {
+                return Ok(solved);
+            }
+        }
+        // Cold start (or a warm start that failed): the fully ionised ideal gas.
         let (rlo, rhi) = self.rho_range_g_cm3;
         let (mut lo, mut hi) = (rlo.ln(), rhi.ln());
-        // Fully ionised ideal-gas start.
         let n_full = 2.0 * comp.x() + 0.75 * comp.y() + 0.5 * comp.z();
         let ideal = ((p - p_rad) * M_U_G / (K_B_ERG_K * t * n_full))
             .ln()
             .clamp(lo, hi);
-        let ln_p = p.ln();
-        if let Some((warm_rho, warm_psi)) = start {
-            let warm = (warm_rho.clamp(lo, hi), Some(warm_psi));
-            if let Some(solved) = self.joint_newton(ln_p, p_rad, t, comp, warm, with_entropy) {
-                return Ok(solved);
-            }
-        }
         let mut ln_rho = ideal;
         if let Some(solved) = self.joint_newton(ln_p, p_rad, t, comp, (ln_rho, None), with_entropy)
         {
@@ -184,15 +190,27 @@ impl Plasma {
         with_entropy: bool,
     ) -> Option<Solved> {
         let (rlo, rhi) = self.rho_range_g_cm3;
-        let (llo, lhi) = (rlo.ln(), rhi.ln());
         let mut ln_rho = ln_rho_start;
         let mut psi: Option<f64> = psi_start;
         let mut at_edge = 0;
         let per_t = self.per_temperature(t, comp);
-        for _ in 0..40 {
-            let setup = self
-                .setup_with(ln_rho.exp().clamp(rlo, rhi), t, comp, &per_t)
-                .ok()?;
+        for iteration in 0..40 {
+            // The density domain is checked on rho itself (the exponential is needed anyway),
+            // so that no logarithm of its ends is taken unless a step leaves it. A start outside
+            // is moved to the nearer end; a step that leaves it counts towards the limit of
+            // two returns to the end.
+            let mut rho = ln_rho.exp();
+            if !(rho >= rlo && rho <= rhi) {
+                if iteration > 0 {
+                    at_edge += 1;
+                    if at_edge > 2 {
+                        return None;
+                    }
+                }
+                ln_rho = ln_rho.clamp(rlo.ln(), rhi.ln());
+                rho = ln_rho.exp().clamp(rlo, rhi);
+            }
+            let setup = self.setup_with(rho, ln_rho, t, comp, &per_t).ok()?;
             let ps = psi.unwrap_or(setup.psi_full).min(setup.psi_max);
             let stages = self.stages(&setup.inputs, ps);
             let el = self.integrals(ps);
@@ -222,13 +240,6 @@ impl Plasma {
                 .min(10.0 / d_psi.abs().max(1e-300));
             ln_rho -= scale * d_ln_rho;
             psi = Some(ps - scale * d_psi);
-            if ln_rho < llo || ln_rho > lhi {
-                at_edge += 1;
-                if at_edge > 2 {
-                    return None;
-                }
-                ln_rho = ln_rho.clamp(llo, lhi);
-            }
         }
         None
     }

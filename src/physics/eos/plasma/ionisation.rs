@@ -148,9 +148,9 @@ impl StageInputs {
         // Weights exp(L_k) with L_0 = 0, L_1 = l_1, L_2 = l_1 + l_2.
         let big_l2 = l_1 + l_2;
         let m = 0.0f64.max(l_1).max(big_l2);
-        let w0 = (-m).exp();
-        let w1 = (l_1 - m).exp();
-        let w2 = (big_l2 - m).exp();
+        // The largest weight is exp(0) = 1: two exponentials instead of three.
+        let weight = |l: f64| if l == m { 1.0 } else { (l - m).exp() };
+        let (w0, w1, w2) = (weight(0.0), weight(l_1), weight(big_l2));
         let sum = w0 + w1 + w2;
         let (f1, f2) = (w1 / sum, w2 / sum);
         let chi_1 = CHI_HE1_EV * EV_ERG;

@@ -13,6 +13,9 @@ use crate::physics::eos::coulomb::{
 };
 use crate::physics::eos::molecular::{MolecularAtTemperature, MolecularInputs};
 
+/// ln(m_u / 1 g), so that ln(rho / m_u) costs no logarithm when ln rho is known.
+const LN_M_U_G: f64 = -54.754_899_943_289_25;
+
 /// Everything at one (rho, T) that does not depend on psi.
 #[derive(Debug, Clone, Copy)]
 pub(super) struct Setup {
@@ -73,7 +76,7 @@ impl Plasma {
         t: f64,
         comp: &Composition,
     ) -> Result<Setup, PhysicsError> {
-        self.setup_with(rho, t, comp, &self.per_temperature(t, comp))
+        self.setup_with(rho, rho.ln(), t, comp, &self.per_temperature(t, comp))
     }
 
     /// What this law computes from T alone (an inversion at fixed T does it once).
@@ -123,10 +126,11 @@ impl Plasma {
         ]
     }
 
-    /// As [`Plasma::setup`], with the parts that depend on T alone given.
+    /// As [`Plasma::setup`], with ln rho and the parts that depend on T alone given.
     pub(super) fn setup_with(
         &self,
         rho: f64,
+        ln_rho: f64,
         t: f64,
         comp: &Composition,
         per_t: &PerTemperature,
@@ -140,7 +144,7 @@ impl Plasma {
         let n_e_max = x + 2.0 * y4 + z_e;
         let n_nuc = rho / M_U_G * n_ion;
         let q = Self::electron_density_coefficient() * t * t.sqrt();
-        let ln_n = (rho / M_U_G).ln();
+        let ln_n = ln_rho - LN_M_U_G;
         let ln_q_over_n = per_t.ln_q - ln_n;
         // Fully ionised electron density: bounds the psi bracket from above.
         let (psi_full, psi_max) = self
@@ -187,5 +191,15 @@ impl Plasma {
             Ionisation::Full => inputs.full(),
             Ionisation::Molecular => inputs.molecular(psi),
         }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn ln_atomic_mass_unit_is_the_logarithm_of_the_constant() {
+        assert!((LN_M_U_G - M_U_G.ln()).abs() <= 1e-15 * M_U_G.ln().abs());
     }
 }

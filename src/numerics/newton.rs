@@ -258,12 +258,30 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
         // twice.
         let mut accepted = None;
         let mut two_norm_candidate = None;
+        let mut remeasured = false;
         let mut lambda = 1.0;
         for _ in 0..=settings.max_halvings {
             let trial = u + du * lambda;
             report.residual_evaluations += 1;
             if let Ok(ft) = problem.residual(&trial) {
                 let nt = max_norm(&ft);
+                // A full step computed at a new accuracy is compared with F here at the old
+                // one; near convergence the change of accuracy alone can move F by more than
+                // the step gains (the integration error of a shooting leg at a coarse
+                // tolerance can be a hundred times the tolerance), and every shorter step
+                // would then be rejected too. So F here is measured again at the new accuracy
+                // and the step judged against that; if it still does not descend, the step
+                // itself was aimed with the old F and the iteration starts again from here.
+                if nt >= norm && lambda == 1.0 && trial_changed_accuracy {
+                    match reevaluate(problem, &u, &mut report) {
+                        Some((g, n)) => (f, norm) = (g, n),
+                        None => return report,
+                    }
+                    if nt >= norm {
+                        remeasured = true;
+                        break;
+                    }
+                }
                 if nt < norm {
                     accepted = Some((trial, ft, nt, lambda));
                     break;
@@ -273,6 +291,15 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
                 }
             }
             lambda *= 0.5;
+        }
+        if remeasured {
+            // F here is now at the new accuracy; aim again with the same Jacobian.
+            report.history.push(IterationRecord {
+                residual_norm: norm,
+                step_length: 0.0,
+            });
+            reusable = Some(jac);
+            continue;
         }
         let accepted = accepted.or(two_norm_candidate);
         let lambda = accepted.as_ref().map_or(0.0, |a| a.3);
@@ -386,5 +413,78 @@ mod tests {
             r.termination,
             Termination::Stalled | Termination::SingularJacobian
         ));
+    }
+
+    /// A linear F = u - 1 computed with an error that depends on the accuracy (coarse, then
+    /// fine once `prepare_trial` switches), as shooting legs integrated at two tolerances are.
+    /// With offsets (1e-6, -2e-6) from u = 1 + 1e-6 (F = 2e-6 coarse) the full Newton step
+    /// lands where the fine F is -3e-6: judged against the coarse F it does not descend, and
+    /// no shorter step would either.
+    struct TwoAccuracies {
+        /// The error of F at the coarse and at the fine accuracy.
+        offsets: (f64, f64),
+        fine: bool,
+        evaluations: usize,
+    }
+    impl NewtonProblem<1> for TwoAccuracies {
+        type Error = ();
+        fn residual(&mut self, u: &SVector<f64, 1>) -> Result<SVector<f64, 1>, ()> {
+            self.evaluations += 1;
+            let offset = if self.fine {
+                self.offsets.1
+            } else {
+                self.offsets.0
+            };
+            Ok(SVector::<f64, 1>::new(u[0] - 1.0 + offset))
+        }
+        fn jacobian(
+            &mut self,
+            _u: &SVector<f64, 1>,
+            _f: &SVector<f64, 1>,
+        ) -> Result<SMatrix<f64, 1, 1>, ()> {
+            Ok(SMatrix::<f64, 1, 1>::new(1.0))
+        }
+        fn prepare_trial(&mut self, _expected_norm: f64) -> bool {
+            let changed = !self.fine;
+            self.fine = true;
+            changed
+        }
+    }
+
+    /// The step computed at a new accuracy is judged against F measured again at that
+    /// accuracy: one re-evaluation, not a failed line search.
+    #[test]
+    fn a_step_at_a_new_accuracy_is_judged_at_that_accuracy() {
+        let mut problem = TwoAccuracies {
+            offsets: (1e-6, -2e-6),
+            fine: false,
+            evaluations: 0,
+        };
+        let settings = NewtonSettings {
+            tolerance: 1e-9,
+            ..Default::default()
+        };
+        let r = solve(&mut problem, SVector::<f64, 1>::new(1.0 + 1e-6), &settings);
+        assert!(r.converged(), "{r:?}");
+        assert!((r.solution[0] - (1.0 + 2e-6)).abs() < 1e-12, "{r:?}");
+        // Start, the full-step trial, F again at the fine accuracy, the step aimed with it.
+        assert_eq!(problem.evaluations, 4, "{r:?}");
+        let lengths: Vec<f64> = r.history.iter().map(|h| h.step_length).collect();
+        assert_eq!(lengths, [0.0, 1.0], "{r:?}");
+        assert_eq!(r.jacobian_evaluations, 1, "{r:?}");
+
+        // A step that is good at the fine accuracy but not against the coarse F: taken after
+        // F is measured again, without a line search.
+        let mut problem = TwoAccuracies {
+            offsets: (-0.9e-6, 1e-6),
+            fine: false,
+            evaluations: 0,
+        };
+        let r = solve(&mut problem, SVector::<f64, 1>::new(1.0 + 1e-6), &settings);
+        assert!(r.converged(), "{r:?}");
+        assert!((r.solution[0] - (1.0 - 1e-6)).abs() < 1e-12, "{r:?}");
+        assert_eq!(problem.evaluations, 4, "{r:?}");
+        let lengths: Vec<f64> = r.history.iter().map(|h| h.step_length).collect();
+        assert_eq!(lengths, [1.0, 1.0], "{r:?}");
     }
 }

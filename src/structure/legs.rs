@@ -334,17 +334,31 @@ pub struct LegRunner<'a> {
     last: Cell<Option<LastPoint>>,
 }
 
-/// The integrator's settings for the legs: the context's tolerance (relative and absolute), and
-/// a failed right-hand side shrinks the step by 3 (a trial stage can leave a law's domain while
-/// the solution does not).
+/// The integrator's settings for the legs: the context's tolerance (relative and absolute), a
+/// failed right-hand side shrinks the step by 3 (a trial stage can leave a law's domain while
+/// the solution does not), and the PI step-size controller (Gustafsson; weight
+/// [`LEG_STEP_BETA`], safety factor [`LEG_STEP_SAFETY`]).
 fn settings(tolerance: f64) -> Dop853Settings {
     Dop853Settings {
         rtol: tolerance,
         atol: tolerance,
         on_rhs_failure: RhsFailure::RejectStep { shrink: 1.0 / 3.0 },
+        beta: LEG_STEP_BETA,
+        safety: LEG_STEP_SAFETY,
         ..Dop853Settings::default()
     }
 }
+
+/// Weight of the previous step's error in the legs' step-size controller. The plain controller
+/// (0) lets the step grow after every accepted step and has the next one rejected where the
+/// error rises along the leg (every other step of the deep envelope at 1 M_sun); with 0.04 and
+/// [`LEG_STEP_SAFETY`] 0.8 the 40 masses 0.1-100 M_sun from the built-in guess need 12 per cent
+/// fewer right-hand sides at Z = 0.02 (300 000 -> 264 000), 4.5 at Z = 0.002, 8 at
+/// Z = 0.0005 and 1 at Z = 0.04 (measured with the Newton iterations unchanged to within
+/// 3 per cent).
+pub const LEG_STEP_BETA: f64 = 0.04;
+/// Safety factor of the legs' step-size controller (see [`LEG_STEP_BETA`]).
+pub const LEG_STEP_SAFETY: f64 = 0.8;
 
 impl<'a> LegRunner<'a> {
     /// A runner for `ctx`.

@@ -30,8 +30,9 @@ pub(super) struct Setup {
     pub(super) inputs: StageInputs,
     /// The Coulomb term (zero unless the law has it; pressure terms only).
     pub(super) coulomb: CoulombTerm,
-    /// The parts that depend on T alone.
-    pub(super) per_t: PerTemperature,
+    /// The Coulomb term's parts that depend on T alone (what the energy terms need of
+    /// [`PerTemperature`]; the rest is not kept, to keep the setup small to copy).
+    pub(super) coulomb_at_t: Option<CoulombAtTemperature>,
 }
 
 /// The parts of a [`Setup`] that depend on T alone.
@@ -126,7 +127,9 @@ impl Plasma {
         ]
     }
 
-    /// As [`Plasma::setup`], with ln rho and the parts that depend on T alone given.
+    /// As [`Plasma::setup`], with ln rho and the parts that depend on T alone given. Inlined:
+    /// the inversion calls it once per iteration and would otherwise copy the setup out.
+    #[inline(always)]
     pub(super) fn setup_with(
         &self,
         rho: f64,
@@ -181,7 +184,7 @@ impl Plasma {
             psi_max,
             inputs,
             coulomb,
-            per_t: *per_t,
+            coulomb_at_t: per_t.coulomb,
         })
     }
 

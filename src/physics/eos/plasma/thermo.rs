@@ -33,7 +33,7 @@ impl Plasma {
         let setup = self.setup(rho, t, comp)?;
         let stages = self.stages(&setup.inputs, psi);
         let el = self.integrals(psi);
-        let u_c = Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true).energy;
+        let u_c = Self::coulomb_at(rho, comp, setup.coulomb_at_t.as_ref(), true).energy;
         self.entropy_at(&AtPsi::new(&setup, psi, &stages, &el), comp, u_c)
     }
 
@@ -67,7 +67,7 @@ impl Plasma {
         // T S_e = (5/2) P_e V - N_e k T psi, per m_u: P_e m_u / (rho k T) = (2/3) q F_3/2 m_u / rho.
         let electrons =
             2.5 * (2.0 / 3.0) * setup.q * el.f_three_halves * M_U_G / rho - stages.n_e * psi;
-        let coulomb = if setup.per_t.coulomb.is_some() {
+        let coulomb = if setup.coulomb_at_t.is_some() {
             let f_c = coulomb_free_energy(
                 rho,
                 t,
@@ -99,7 +99,7 @@ impl Plasma {
         let (setup, psi, stages, el) = (at.setup, at.psi, at.stages, at.el);
         let Setup { rho, t, kt, q, .. } = *setup;
         // The inversion carried the Coulomb pressure only; the energy terms are added here.
-        let coul = &Self::coulomb_at(rho, comp, setup.per_t.coulomb.as_ref(), true);
+        let coul = &Self::coulomb_at(rho, comp, setup.coulomb_at_t.as_ref(), true);
         // Implicit derivatives of psi from G = ln F_1/2 + ln q(T) - ln(rho/m_u) - ln N_e = 0.
         let dln_ne = Grad {
             psi: stages.d_n_e.psi / stages.n_e,

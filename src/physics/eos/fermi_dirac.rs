@@ -21,6 +21,7 @@
 /// The exact quadrature behind the table, and the table's grid (shared with `build.rs`).
 pub mod quadrature;
 
+use crate::numerics::cube_root::cbrt;
 pub use quadrature::fermi_dirac_by_quadrature;
 use quadrature::{
     TABLE_NODES as NODES, TABLE_PSI_MAX as PSI_MAX, TABLE_PSI_MIN as PSI_MIN, TABLE_STEP as STEP,
@@ -191,12 +192,15 @@ fn table_ln(psi: f64) -> [f64; 3] {
 /// first-order non-degenerate inversion psi = ln u + u / sqrt(8), u = F / Gamma(3/2) (Joyce &
 /// Dixon 1977, Appl. Phys. Lett. 31, 354, first term) for u < 4, the Sommerfeld inversion
 /// psi = p (1 - (pi^2/12) p^-2), p = (3F/2)^(2/3), above.
+// Kept out of line (as is `inverse_upper_bound`): only degenerate points take the cube root,
+// and inlined into the inversion's loop it cost the other points more than the call saves.
+#[inline(never)]
 pub fn inverse_guess(f_half: f64) -> f64 {
     let u = f_half / GAMMA_HALF[1];
     if u < 4.0 {
         u.ln() + u * 0.353_553_390_593_273_7
     } else {
-        let p = (1.5 * f_half).cbrt().powi(2);
+        let p = cbrt(1.5 * f_half).powi(2);
         p * (1.0 - std::f64::consts::PI * std::f64::consts::PI / (12.0 * p * p))
     }
 }
@@ -204,12 +208,13 @@ pub fn inverse_guess(f_half: f64) -> f64 {
 /// A rigorous upper bound on the psi with F_1/2(psi) = `f_half` (> 0): F_1/2(psi) >=
 /// (2/3) psi^(3/2) for psi > 0 and F_1/2(psi) >= Gamma(3/2) e^psi / (1 + e^psi) (from
 /// 1/(e^(x-psi)+1) >= e^(psi-x)/(1+e^psi) for x >= 0), so F_1/2 >= `f_half` at the returned psi.
+#[inline(never)]
 pub fn inverse_upper_bound(f_half: f64) -> f64 {
     if f_half < 0.5 * GAMMA_HALF[1] {
         // Negative, so below the (positive) degenerate bound.
         (2.0 * f_half / GAMMA_HALF[1]).ln()
     } else {
-        (1.5 * f_half).cbrt().powi(2)
+        cbrt(1.5 * f_half).powi(2)
     }
 }
 

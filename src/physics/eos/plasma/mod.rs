@@ -118,7 +118,7 @@ impl Plasma {
     /// ([`super::coulomb::COULOMB_T_OFF_K`] to [`super::coulomb::COULOMB_T_ON_K`]), where
     /// `molecular` is least certain.
     pub fn caution(&self, rho: f64, t: f64, comp: &Composition) -> Option<&'static str> {
-        let gamma_e = 2.2747e5 * (rho / comp.mu_e()).cbrt() / t;
+        let gamma_e = 2.2747e5 * crate::numerics::cube_root::cbrt(rho / comp.mu_e()) / t;
         if gamma_e <= STRONG_COUPLING_GAMMA_E {
             return None;
         }

@@ -3,6 +3,7 @@
 pub mod brent;
 pub mod continuation;
 pub mod cube_root;
+pub mod exponential;
 pub mod interpolation;
 pub mod invalid;
 pub mod newton;

@@ -2,6 +2,8 @@
 //! a kink in a right-hand side is invisible to an embedded Runge–Kutta error estimate and costs
 //! tolerance-dependent errors in the integrated solution.
 
+use crate::numerics::exponential::FastExp;
+
 /// The weight h of the second regime and dh / dln(a/b) for a switch on the ratio a/b > 0: h = 0
 /// for a/b <= `r0`, h = 1 for a/b >= 1/`r0` (0 < r0 < 1), and between them the
 /// twice-differentiable h = 6 t^5 - 15 t^4 + 10 t^3 of t = ln(a / (r0 b)) / ln(1 / r0^2).
@@ -32,7 +34,7 @@ pub fn switch_weight_curved(a: f64, b: f64, r0: f64) -> (f64, f64, f64) {
     }
     let u = 1.0 - t;
     // h = 1 / (1 + exp(1/t - 1/u)), stable for any t in (0, 1).
-    let h = 1.0 / (1.0 + (1.0 / t - 1.0 / u).exp());
+    let h = 1.0 / (1.0 + (1.0 / t - 1.0 / u).fast_exp());
     let hh = h * (1.0 - h);
     let q = 1.0 / (t * t) + 1.0 / (u * u);
     let dq = 2.0 / (u * u * u) - 2.0 / (t * t * t);
@@ -66,13 +68,13 @@ mod tests {
         // dh / dln(a/b) against a central difference across the blend.
         for i in 1..100 {
             let ln_r = 0.8f64.ln() * (1.0 - 2.0 * i as f64 / 100.0);
-            let (_, dh) = switch_weight(ln_r.exp(), 1.0, 0.8);
+            let (_, dh) = switch_weight(ln_r.fast_exp(), 1.0, 0.8);
             let e = 1e-6;
-            let fd = (switch_weight((ln_r + e).exp(), 1.0, 0.8).0
-                - switch_weight((ln_r - e).exp(), 1.0, 0.8).0)
+            let fd = (switch_weight((ln_r + e).fast_exp(), 1.0, 0.8).0
+                - switch_weight((ln_r - e).fast_exp(), 1.0, 0.8).0)
                 / (2.0 * e);
             assert!((fd - dh).abs() < 1e-6, "{ln_r}: {fd} vs {dh}");
-            let curved = |r: f64| switch_weight_curved(r.exp(), 1.0, 0.8);
+            let curved = |r: f64| switch_weight_curved(r.fast_exp(), 1.0, 0.8);
             let (_, dh2, d2h) = curved(ln_r);
             let fd1 = (curved(ln_r + e).0 - curved(ln_r - e).0) / (2.0 * e);
             assert!((fd1 - dh2).abs() < 1e-6, "{ln_r}: {fd1} vs {dh2}");

@@ -13,6 +13,7 @@
 
 use crate::constants::G_CGS;
 use crate::error::PhysicsError;
+use crate::numerics::exponential::FastExp;
 use crate::physics::{convection, Composition, ConvectionPoint, EnergyRate, EosState, PhysicsSet};
 use std::f64::consts::PI;
 
@@ -43,7 +44,7 @@ impl LuminosityForm {
     /// L in erg s^-1 from the state component.
     pub fn luminosity_erg_s(&self, y_lum: f64) -> f64 {
         match self {
-            LuminosityForm::Log => y_lum.exp(),
+            LuminosityForm::Log => y_lum.fast_exp(),
             LuminosityForm::Linear { scale_erg_s } => y_lum * scale_erg_s,
         }
     }
@@ -208,9 +209,9 @@ pub fn derivatives_in_mass(
     form: LuminosityForm,
     near: Option<&EosState>,
 ) -> Result<(State, LocalPhysics), PhysicsError> {
-    let r = y[LN_R].exp();
-    let p = y[LN_P].exp();
-    let t = y[LN_T].exp();
+    let r = y[LN_R].fast_exp();
+    let p = y[LN_P].fast_exp();
+    let t = y[LN_T].fast_exp();
     let l = form.luminosity_erg_s(y[LUM]);
     let point = Point {
         mass_g,

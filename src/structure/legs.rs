@@ -22,6 +22,7 @@ use super::equations::{
 };
 use crate::error::PhysicsError;
 use crate::error::{LegCause, LegError, LegName};
+use crate::numerics::exponential::FastExp;
 use crate::numerics::ode::{
     AcceptedStep, Control, DenseOutput, Dop853, Dop853Settings, Observer, OdeError, OdeSystem,
     RhsFailure, Stop,
@@ -81,7 +82,7 @@ impl Leg {
 
     /// Mass coordinate m (g) and dm/dx at the leg's independent variable `x`.
     pub fn mass_and_jacobian(&self, x: f64, total_mass_g: f64) -> (f64, f64) {
-        let e = x.exp();
+        let e = x.fast_exp();
         match self {
             Leg::Outward => (total_mass_g * e, total_mass_g * e),
             Leg::Inward => (total_mass_g * (1.0 - e), -total_mass_g * e),
@@ -262,7 +263,7 @@ impl OdeSystem<STATE_LEN> for LegSystem<'_, '_> {
                 "structure",
                 "non-finite derivative",
                 self.last.get().map_or(f64::NAN, |p| p.eos.density_g_cm3),
-                y[super::equations::LN_T].exp(),
+                y[super::equations::LN_T].fast_exp(),
             ))
         }
     }

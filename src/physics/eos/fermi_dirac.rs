@@ -22,6 +22,7 @@
 pub mod quadrature;
 
 use crate::numerics::cube_root::cbrt;
+use crate::numerics::exponential::FastExp;
 pub use quadrature::fermi_dirac_by_quadrature;
 use quadrature::{
     TABLE_NODES as NODES, TABLE_PSI_MAX as PSI_MAX, TABLE_PSI_MIN as PSI_MIN, TABLE_STEP as STEP,
@@ -86,7 +87,7 @@ const SERIES: [[f64; 5]; 3] = [
 
 /// Series for psi <= PSI_MIN: F_j = Gamma(j+1) sum_k (-1)^(k+1) e^(k psi) / k^(j+1).
 fn series(psi: f64) -> FermiDirac {
-    let e = psi.exp();
+    let e = psi.fast_exp();
     let mut out = [0.0; 3];
     for (jj, o) in out.iter_mut().enumerate() {
         let c = &SERIES[jj];
@@ -127,9 +128,9 @@ pub fn fermi_dirac(psi: f64) -> FermiDirac {
     }
     let [m, h, t] = table_ln(psi);
     FermiDirac {
-        f_minus_half: m.exp(),
-        f_half: h.exp(),
-        f_three_halves: t.exp(),
+        f_minus_half: m.fast_exp(),
+        f_half: h.fast_exp(),
+        f_three_halves: t.fast_exp(),
     }
 }
 
@@ -153,7 +154,7 @@ pub fn ln_fermi_dirac(psi: f64) -> [f64; 3] {
 /// above. Ratios of the F_j then need no exponential.
 pub fn series_corrections(psi: f64) -> Option<(f64, [f64; 3])> {
     (psi <= PSI_MIN).then(|| {
-        let e = psi.exp();
+        let e = psi.fast_exp();
         (
             e,
             SERIES.map(|c| e * (c[1] + e * (c[2] + e * (c[3] + e * c[4])))),

@@ -7,6 +7,7 @@ use super::plasma::CHI_H_EV;
 use super::plasma::{plasma_law, Electrons, Grad, Ionisation, Plasma, StageInputs, Stages};
 use crate::constants::{EV_ERG, K_B_ERG_K};
 use crate::error::PhysicsError;
+use crate::numerics::exponential::FastExp;
 use crate::physics::composition::Composition;
 
 /// Ionisation energy of the representative electron-donor metal, eV: magnesium, 7.646 eV (NIST,
@@ -176,7 +177,7 @@ impl MolecularAtTemperature {
             donor_factor: (-(LN_DONOR_WEIGHT_RATIO
                 + std::f64::consts::LN_2
                 + (CHI_H_EV - DONOR_CHI_EV) * EV_ERG / kt))
-                .exp(),
+                .fast_exp(),
         }
     }
 }
@@ -218,7 +219,7 @@ impl StageInputs {
         // One exponential for hydrogen and the donors: e = exp(-l) (inf or 0 at the extremes,
         // where the forms below take their limits), sigma = 1/(1 + e),
         // ln(1 - sigma) = -ln(1 + 1/e).
-        let e = (-l_h).exp();
+        let e = (-l_h).fast_exp();
         let sigma = 1.0 / (1.0 + e);
         // Below beta = 1e-18, sqrt(1 + 8 beta X) rounds to 1: no molecules to this precision.
         // ln(1 - sigma) <= -max(l, 0) bounds ln beta without a logarithm.
@@ -230,7 +231,7 @@ impl StageInputs {
             if negligible(ln_beta) {
                 (x, 0.0)
             } else {
-                let beta = ln_beta.exp();
+                let beta = ln_beta.fast_exp();
                 let x_at = 2.0 * x / (1.0 + (1.0 + 8.0 * beta * x).sqrt());
                 (x_at, 2.0 * beta * x_at * x_at / (1.0 + 4.0 * beta * x_at))
             }

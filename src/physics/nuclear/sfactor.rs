@@ -5,6 +5,7 @@ use super::{EnergyGeneration, EnergyRate};
 use crate::constants::{E_ESU, HBAR_ERG_S, K_B_ERG_K, MEV_ERG, M_E_G, M_P_G, M_U_G};
 use crate::error::PhysicsError;
 use crate::numerics::cube_root::cbrt;
+use crate::numerics::exponential::FastExp;
 use crate::physics::composition::{Composition, METAL_MEAN_MASS_NUMBER};
 use crate::physics::opacity::check_point;
 
@@ -136,7 +137,7 @@ impl Reaction {
             * kt.powf(-1.5)
             * self.s0_erg_cm2
             * s_ratio
-            * (-tau).exp();
+            * (-tau).fast_exp();
         // d ln S_eff / d ln T: tau ~ T^(-1/3), E_0 ~ T^(2/3).
         let ds =
             (corr1 / 3.0 + self.s_slope_per_erg * (2.0 / 3.0 * e0 + 35.0 * kt / 36.0)) / s_ratio;
@@ -305,7 +306,7 @@ fn screened(r: &Prepared, c: &Conditions) -> (f64, f64) {
     let weak = r.z1z2 * c.weak_unit;
     let strong = r.strong * c.strong_unit;
     let (ln_f, dln_f) = bridge(weak, strong);
-    let value = r.prefactor * delta / (c.kt * c.kt_sqrt) * s_ratio * (ln_f - tau).exp();
+    let value = r.prefactor * delta / (c.kt * c.kt_sqrt) * s_ratio * (ln_f - tau).fast_exp();
     (value, (tau - 2.0) / 3.0 + ds + dln_f)
 }
 
@@ -402,7 +403,7 @@ mod bridge_tests {
     fn bridge_is_smooth_and_exact_outside_the_blend() {
         assert_eq!(bridge(0.5, 1.0).0, 0.5);
         assert_eq!(bridge(2.0, 1.0).0, 1.0);
-        let at = |ln_t: f64| bridge(0.3 * (-1.5 * ln_t).exp(), 0.3 * (-ln_t).exp());
+        let at = |ln_t: f64| bridge(0.3 * (-1.5 * ln_t).fast_exp(), 0.3 * (-ln_t).fast_exp());
         let mut previous = at(-1.0).0;
         for i in 1..4000 {
             let x = -1.0 + i as f64 * 5e-4;

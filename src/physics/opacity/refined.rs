@@ -8,6 +8,7 @@ use super::kramers::Kramers;
 use super::{check_point, Opacity};
 use crate::constants::{EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
 use crate::error::{Error, PhysicsError, Result};
+use crate::numerics::exponential::FastExp;
 use crate::numerics::smooth::switch_weight;
 use crate::physics::composition::Composition;
 
@@ -159,7 +160,7 @@ pub fn hydrogen_ionised_fraction(rho: f64, t: f64, comp: &Composition) -> f64 {
     let n_h = rho / M_U_G * comp.x().max(1e-6);
     let kt = K_B_ERG_K * t;
     let thermal = 2.0 * std::f64::consts::PI * M_E_G * kt / (H_ERG_S * H_ERG_S);
-    let s = thermal * thermal.sqrt() * (-13.598 * EV_ERG / kt).exp() / n_h;
+    let s = thermal * thermal.sqrt() * (-13.598 * EV_ERG / kt).fast_exp() / n_h;
     if s <= 0.0 {
         return 0.0;
     }

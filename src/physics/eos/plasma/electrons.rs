@@ -2,6 +2,7 @@
 //! first guess and upper bound of the psi of a given electron density.
 
 use super::{Electrons, Plasma};
+use crate::numerics::exponential::FastExp;
 use crate::physics::eos::fermi_dirac::{
     inverse_guess, inverse_upper_bound, ln_fermi_dirac, ln_one_plus_small, series_corrections,
     GAMMA_HALF,
@@ -26,7 +27,7 @@ impl Plasma {
             Electrons::Classical => ElectronIntegrals {
                 ln_f_half: psi + LN_GAMMA_THREE_HALVES,
                 slope_half: 1.0,
-                f_three_halves: 0.75 * SQRT_PI * psi.exp(),
+                f_three_halves: 0.75 * SQRT_PI * psi.fast_exp(),
                 slope_three_halves: 1.0,
             },
             Electrons::FermiDirac => {
@@ -46,9 +47,9 @@ impl Plasma {
                 let [ln_m, ln_h, ln_3] = ln_fermi_dirac(psi);
                 ElectronIntegrals {
                     ln_f_half: ln_h,
-                    slope_half: 0.5 * (ln_m - ln_h).exp(),
-                    f_three_halves: ln_3.exp(),
-                    slope_three_halves: 1.5 * (ln_h - ln_3).exp(),
+                    slope_half: 0.5 * (ln_m - ln_h).fast_exp(),
+                    f_three_halves: ln_3.fast_exp(),
+                    slope_three_halves: 1.5 * (ln_h - ln_3).fast_exp(),
                 }
             }
         }

@@ -7,6 +7,7 @@ use super::point::{AtPsi, Setup};
 use super::{Plasma, Solved};
 use crate::constants::{A_RAD_CGS, K_B_ERG_K, M_U_G};
 use crate::error::PhysicsError;
+use crate::numerics::exponential::FastExp;
 use crate::physics::composition::Composition;
 use crate::physics::eos::EosState;
 
@@ -136,7 +137,7 @@ impl Plasma {
         // Fallback: nested iteration, slower but bracketed.
         let mut psi_guess = None;
         for _ in 0..100 {
-            let solved = self.solve(ln_rho.exp().clamp(rlo, rhi), t, comp, psi_guess)?;
+            let solved = self.solve(ln_rho.fast_exp().clamp(rlo, rhi), t, comp, psi_guess)?;
             let s = solved.state;
             let f = s.pressure_dyn_cm2.ln() - ln_p;
             if f.abs() < 1e-12 {
@@ -199,7 +200,7 @@ impl Plasma {
             // so that no logarithm of its ends is taken unless a step leaves it. A start outside
             // is moved to the nearer end; a step that leaves it counts towards the limit of
             // two returns to the end.
-            let mut rho = ln_rho.exp();
+            let mut rho = ln_rho.fast_exp();
             if !(rho >= rlo && rho <= rhi) {
                 if iteration > 0 {
                     at_edge += 1;
@@ -208,7 +209,7 @@ impl Plasma {
                     }
                 }
                 ln_rho = ln_rho.clamp(rlo.ln(), rhi.ln());
-                rho = ln_rho.exp().clamp(rlo, rhi);
+                rho = ln_rho.fast_exp().clamp(rlo, rhi);
             }
             let setup = self.setup_with(rho, ln_rho, t, comp, &per_t).ok()?;
             let ps = psi.unwrap_or(setup.psi_full).min(setup.psi_max);

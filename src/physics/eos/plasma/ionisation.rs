@@ -4,6 +4,7 @@
 
 use super::{BOHR_RADIUS_CM, CHI_HE1_EV, CHI_HE2_EV, CHI_H_EV};
 use crate::constants::EV_ERG;
+use crate::numerics::exponential::FastExp;
 use crate::physics::eos::molecular::MolecularInputs;
 
 /// Derivatives of one quantity with respect to (psi, ln T, ln rho).
@@ -53,10 +54,10 @@ pub(super) fn occupation(s: f64) -> (f64, f64) {
         let e = 1.0 + s * (1.0 + 0.5 * s);
         (-s * e, -s * (1.0 + s) * e)
     } else if s < 15.0 {
-        let e = s.exp();
+        let e = s.fast_exp();
         (-s * e, -s * (1.0 + s) * e)
     } else {
-        let e = 15f64.exp();
+        let e = 15f64.fast_exp();
         (-s * e, -s * e)
     }
 }
@@ -149,7 +150,7 @@ impl StageInputs {
         let big_l2 = l_1 + l_2;
         let m = 0.0f64.max(l_1).max(big_l2);
         // The largest weight is exp(0) = 1: two exponentials instead of three.
-        let weight = |l: f64| if l == m { 1.0 } else { (l - m).exp() };
+        let weight = |l: f64| if l == m { 1.0 } else { (l - m).fast_exp() };
         let (w0, w1, w2) = (weight(0.0), weight(l_1), weight(big_l2));
         let sum = w0 + w1 + w2;
         let (f1, f2) = (w1 / sum, w2 / sum);
@@ -187,7 +188,7 @@ impl StageInputs {
     /// Saha stages at `psi` with derivatives; stable for any size of the ln ratios.
     pub(super) fn saha(&self, psi: f64) -> Stages {
         let (l_h, dl_h) = self.hydrogen_ratio(psi);
-        let x_h = 1.0 / (1.0 + (-l_h).exp());
+        let x_h = 1.0 / (1.0 + (-l_h).fast_exp());
         let he = self.helium(psi);
         let chi_h = CHI_H_EV * EV_ERG;
         let dxh = |d: f64| x_h * (1.0 - x_h) * d;

@@ -23,7 +23,7 @@ pub trait TauRelation: Send + Sync + std::fmt::Debug {
 
     /// Temperature at optical depth `tau` for effective temperature `teff_k`, K.
     fn temperature_k(&self, teff_k: f64, tau: f64) -> f64 {
-        teff_k * (0.75 * (tau + self.q(tau))).powf(0.25)
+        teff_k * (0.75 * (tau + self.q(tau))).sqrt().sqrt()
     }
 
     /// The optical depth where T = T_eff: tau + q(tau) = 4/3, by bisection (q is increasing and

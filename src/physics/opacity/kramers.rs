@@ -41,7 +41,8 @@ impl Kramers {
 
     /// (kappa_ff, kappa_bf) in cm^2 g^-1 without checks (callers check the point).
     pub fn parts(&self, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
-        let common = (1.0 + comp.x()) * rho * t.powf(-3.5);
+        // T^-3.5 with a square root instead of a power.
+        let common = (1.0 + comp.x()) * rho / (t * t * t * t.sqrt());
         (
             3.68e22 * (1.0 - comp.z()) * common,
             4.34e25 * comp.z() / self.guillotine * common,

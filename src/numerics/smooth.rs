@@ -23,9 +23,14 @@ pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
 /// With q = 1/t^2 + 1/(1-t)^2: h' = h (1 - h) q and h'' = h (1 - h) [q^2 (1 - 2h) + q'],
 /// q' = 2/(1-t)^3 - 2/t^3 (derivatives in t).
 pub fn switch_weight_curved(a: f64, b: f64, r0: f64) -> (f64, f64, f64) {
+    switch_weight_curved_ln((a / b).ln(), r0)
+}
+
+/// [`switch_weight_curved`] with ln(a/b) given (a caller that has the logarithm saves one).
+pub fn switch_weight_curved_ln(ln_ratio: f64, r0: f64) -> (f64, f64, f64) {
     let lo = r0.ln();
     let width = -2.0 * lo;
-    let t = ((a / b).ln() - lo) / width;
+    let t = (ln_ratio - lo) / width;
     if t <= 0.0 {
         return (0.0, 0.0, 0.0);
     }

@@ -37,7 +37,7 @@
 
 use crate::constants::{E_ESU, K_B_ERG_K, M_U_G};
 use crate::numerics::cube_root::cbrt;
-use crate::numerics::smooth::switch_weight_curved;
+use crate::numerics::smooth::switch_weight_curved_ln;
 
 const A1: f64 = -0.907_347;
 const A2: f64 = 0.628_49;
@@ -120,9 +120,13 @@ pub const Z53_METALS: f64 = 25.615_139_970_160_804;
 /// the second derivative of S, stay smooth (a switch whose higher derivatives jump leaves a kink
 /// in nabla_ad, which costs the integrator accuracy).
 fn switch(t: f64) -> (f64, f64, f64) {
-    switch_weight_curved(
-        t,
-        (COULOMB_T_OFF_K * COULOMB_T_ON_K).sqrt(),
+    switch_ln(t.ln())
+}
+
+/// [`switch`] at ln T.
+fn switch_ln(ln_t: f64) -> (f64, f64, f64) {
+    switch_weight_curved_ln(
+        ln_t - (COULOMB_T_OFF_K * COULOMB_T_ON_K).sqrt().ln(),
         (COULOMB_T_OFF_K / COULOMB_T_ON_K).sqrt(),
     )
 }
@@ -162,7 +166,12 @@ impl CoulombAtTemperature {
     /// At temperature `t` for `electrons_per_mu` electrons per m_u; `None` where the switch is
     /// off.
     pub fn new(t: f64, electrons_per_mu: f64) -> Option<Self> {
-        let switch = switch(t);
+        Self::with_ln(t, t.ln(), electrons_per_mu)
+    }
+
+    /// [`CoulombAtTemperature::new`] with ln T given.
+    pub fn with_ln(t: f64, ln_t: f64, electrons_per_mu: f64) -> Option<Self> {
+        let switch = switch_ln(ln_t);
         (switch.0 > 0.0).then(|| Self {
             switch,
             per_mass: K_B_ERG_K * t / M_U_G,

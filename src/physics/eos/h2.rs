@@ -50,6 +50,11 @@ pub struct Dissociation {
 
 /// Q_H2 and K(T) with their temperature derivatives at `t` K (t > 0).
 pub fn dissociation(t: f64) -> Dissociation {
+    dissociation_with_ln(t, t.ln())
+}
+
+/// [`dissociation`] with ln T given (an inversion at fixed T shares it).
+pub fn dissociation_with_ln(t: f64, ln_t: f64) -> Dissociation {
     // Rotation: ln Q_rot = ln(T / 2 theta_r) + ln p(r), p = 1 + r/3 + r^2/15 + 4 r^3/315.
     let r = H2_THETA_ROT_K / t;
     let p = 1.0 + r * (1.0 / 3.0 + r * (1.0 / 15.0 + r * 4.0 / 315.0));
@@ -65,11 +70,11 @@ pub fn dissociation(t: f64) -> Dissociation {
     let vib_e = x / em1;
     // d(vib_e)/dln T = -x d(vib_e)/dx = x^2 e^x / (e^x - 1)^2 - vib_e.
     let vib_c = x * x * (em1 + 1.0) / (em1 * em1);
-    let ln_q = (t / (2.0 * H2_THETA_ROT_K)).ln() + p.ln() - (-(-x).exp_m1()).ln();
+    let ln_q = ln_t - (2.0 * H2_THETA_ROT_K).ln() + p.ln() - (-(-x).exp_m1()).ln();
     let thermal = std::f64::consts::PI * H_ATOM_MASS_U * M_U_G * K_B_ERG_K / (H_ERG_S * H_ERG_S);
     let internal = rot_e + vib_e;
     Dissociation {
-        ln_k_cm3: 1.5 * (thermal * t).ln() + 4f64.ln() - ln_q - H2_DISSOCIATION_K / t,
+        ln_k_cm3: 1.5 * (thermal.ln() + ln_t) + 4f64.ln() - ln_q - H2_DISSOCIATION_K / t,
         dln_k_dln_t: 1.5 - internal + H2_DISSOCIATION_K / t,
         ln_q,
         internal_energy_kt: internal,

@@ -2,7 +2,7 @@
 //! hydrogen-burning limit up: the `refined` plasma plus H2 molecules, partly ionised metals and
 //! the Coulomb correction of the ions.
 
-use super::h2::{dissociation, Dissociation, H_ATOM_MASS_U};
+use super::h2::{dissociation_with_ln, Dissociation, H_ATOM_MASS_U};
 use super::plasma::CHI_H_EV;
 use super::plasma::{plasma_law, Electrons, Grad, Ionisation, Plasma, StageInputs, Stages};
 use crate::constants::{EV_ERG, K_B_ERG_K};
@@ -163,8 +163,9 @@ pub(super) struct MolecularAtTemperature {
 }
 
 impl MolecularAtTemperature {
-    pub(super) fn new(t: f64) -> Self {
-        let d = dissociation(t);
+    /// At temperature `t` with `ln_t` = ln T.
+    pub(super) fn new(t: f64, ln_t: f64) -> Self {
+        let d = dissociation_with_ln(t, ln_t);
         let kt = K_B_ERG_K * t;
         let d0 = super::h2::H2_DISSOCIATION_K * K_B_ERG_K;
         Self {

@@ -82,12 +82,14 @@ impl Plasma {
 
     /// What this law computes from T alone (an inversion at fixed T does it once).
     pub(super) fn per_temperature(&self, t: f64, comp: &Composition) -> PerTemperature {
+        // One logarithm of T serves the molecules, the electrons and the Coulomb switch.
+        let ln_t = t.ln();
         PerTemperature {
             molecular: (self.ionisation == Ionisation::Molecular)
-                .then(|| MolecularAtTemperature::new(t)),
-            ln_q: (Self::electron_density_coefficient() * t * t.sqrt()).ln(),
+                .then(|| MolecularAtTemperature::new(t, ln_t)),
+            ln_q: Self::electron_density_coefficient().ln() + 1.5 * ln_t,
             coulomb: if self.coulomb {
-                CoulombAtTemperature::new(t, Self::electrons_fully_ionised(comp))
+                CoulombAtTemperature::with_ln(t, ln_t, Self::electrons_fully_ionised(comp))
             } else {
                 None
             },

@@ -8,9 +8,17 @@ use crate::numerics::exponential::FastExp;
 /// for a/b <= `r0`, h = 1 for a/b >= 1/`r0` (0 < r0 < 1), and between them the
 /// twice-differentiable h = 6 t^5 - 15 t^4 + 10 t^3 of t = ln(a / (r0 b)) / ln(1 / r0^2).
 pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
+    // Outside the blend the weight is exactly 0 or 1 and its slope 0: no logarithm needed.
+    let ratio = a / b;
+    if ratio <= r0 {
+        return (0.0, 0.0);
+    }
+    if ratio >= 1.0 / r0 {
+        return (1.0, 0.0);
+    }
     let lo = r0.ln();
     let width = -2.0 * lo;
-    let t = (((a / b).ln() - lo) / width).clamp(0.0, 1.0);
+    let t = ((ratio.ln() - lo) / width).clamp(0.0, 1.0);
     let h = t * t * t * (10.0 + t * (6.0 * t - 15.0));
     let dh_dt = 30.0 * t * t * (1.0 - t) * (1.0 - t);
     (h, dh_dt / width)
@@ -23,10 +31,20 @@ pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
 /// With q = 1/t^2 + 1/(1-t)^2: h' = h (1 - h) q and h'' = h (1 - h) [q^2 (1 - 2h) + q'],
 /// q' = 2/(1-t)^3 - 2/t^3 (derivatives in t).
 pub fn switch_weight_curved(a: f64, b: f64, r0: f64) -> (f64, f64, f64) {
-    switch_weight_curved_ln((a / b).ln(), r0)
+    // Outside the blend: exactly 0 or 1, every derivative 0, no logarithm needed.
+    let ratio = a / b;
+    if ratio <= r0 {
+        return (0.0, 0.0, 0.0);
+    }
+    if ratio >= 1.0 / r0 {
+        return (1.0, 0.0, 0.0);
+    }
+    switch_weight_curved_ln(ratio.ln(), r0)
 }
 
 /// [`switch_weight_curved`] with ln(a/b) given (a caller that has the logarithm saves one).
+/// Inlined, so that ln r0 of a constant r0 is computed at compile time.
+#[inline]
 pub fn switch_weight_curved_ln(ln_ratio: f64, r0: f64) -> (f64, f64, f64) {
     let lo = r0.ln();
     let width = -2.0 * lo;

@@ -128,7 +128,9 @@ pub struct Point<'a> {
     pub near: Option<&'a EosState>,
 }
 
-/// Evaluate every law at `point`.
+/// Evaluate every law at `point`. Inlined, as is [`derivatives_in_mass`]: each returns the
+/// whole local physics, which the right-hand side would otherwise copy at every call.
+#[inline]
 pub fn local_physics(
     physics: &PhysicsSet,
     comp: &Composition,
@@ -200,6 +202,7 @@ pub fn local_physics_with_eos(
 }
 
 /// dy/dm at mass `mass_g` for the state `y`, together with the local physics.
+#[inline]
 pub fn derivatives_in_mass(
     physics: &PhysicsSet,
     comp: &Composition,

@@ -70,7 +70,8 @@ pub fn dissociation_with_ln(t: f64, ln_t: f64) -> Dissociation {
     let vib_e = x / em1;
     // d(vib_e)/dln T = -x d(vib_e)/dx = x^2 e^x / (e^x - 1)^2 - vib_e.
     let vib_c = x * x * (em1 + 1.0) / (em1 * em1);
-    let ln_q = ln_t - (2.0 * H2_THETA_ROT_K).ln() + p.ln() - (-(-x).exp_m1()).ln();
+    // ln Q_vib = -ln(1 - e^-x), with 1 - e^-x = (e^x - 1) / e^x from the same expm1.
+    let ln_q = ln_t - (2.0 * H2_THETA_ROT_K).ln() + p.ln() - (em1 / (em1 + 1.0)).ln();
     let thermal = std::f64::consts::PI * H_ATOM_MASS_U * M_U_G * K_B_ERG_K / (H_ERG_S * H_ERG_S);
     let internal = rot_e + vib_e;
     Dissociation {

@@ -35,8 +35,11 @@ pub trait NewtonProblem<const N: usize> {
     /// Told, before the trial of a Newton step, the mismatch expected after it, so that a
     /// problem can evaluate the trial at the accuracy that mismatch calls for instead of the
     /// current one (one evaluation fewer when the step is good). Returns true if it changed how
-    /// F is computed (the driver then keeps the Jacobian instead of updating it by Broyden's
-    /// formula from two differently computed values of F). The default ignores it.
+    /// F is computed: the driver then keeps the Jacobian instead of updating it by Broyden's
+    /// formula from two differently computed values of F, and if a trial does not lower the
+    /// mismatch it measures F at the current point again at the new accuracy before judging
+    /// the step (and aims again from there if the step still does not descend). The default
+    /// ignores it.
     fn prepare_trial(&mut self, _expected_norm: f64) -> bool {
         false
     }
@@ -195,6 +198,7 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
     let mut norm = max_norm(&f);
     report.residual_norm = norm;
     let mut reusable: Option<SMatrix<f64, N, N>> = None;
+    let mut remeasures = 0usize;
     while report.iterations < settings.max_iterations {
         // A change of accuracy keeps the Jacobian: F moves by about the old accuracy, its
         // derivatives hardly at all, and a Jacobian that no longer serves is replaced anyway
@@ -252,7 +256,9 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             _ => norm.sqrt(),
         };
         let trial_changed_accuracy = problem.prepare_trial(norm * contraction.min(1.0));
-        let norm2 = two_norm(&f);
+        let mut norm2 = two_norm(&f);
+        // Whether F here is still at the old accuracy while the trials are at the new one.
+        let mut stale = trial_changed_accuracy;
         // One pass over the step lengths serves both criteria: the first length that lowers
         // the 2-norm is remembered while the max-norm is tried, so that no trial is computed
         // twice.
@@ -265,18 +271,21 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             report.residual_evaluations += 1;
             if let Ok(ft) = problem.residual(&trial) {
                 let nt = max_norm(&ft);
-                // A full step computed at a new accuracy is compared with F here at the old
+                // A trial computed at a new accuracy would be compared with F here at the old
                 // one; near convergence the change of accuracy alone can move F by more than
                 // the step gains (the integration error of a shooting leg at a coarse
                 // tolerance can be a hundred times the tolerance), and every shorter step
-                // would then be rejected too. So F here is measured again at the new accuracy
-                // and the step judged against that; if it still does not descend, the step
-                // itself was aimed with the old F and the iteration starts again from here.
-                if nt >= norm && lambda == 1.0 && trial_changed_accuracy {
+                // would then be rejected too. So the first trial that does not descend has F
+                // here measured again at the new accuracy and is judged against that; if it
+                // still does not descend, the step itself was aimed with the old F and the
+                // iteration starts again from here.
+                if nt >= norm && stale {
                     match reevaluate(problem, &u, &mut report) {
                         Some((g, n)) => (f, norm) = (g, n),
                         None => return report,
                     }
+                    norm2 = two_norm(&f);
+                    stale = false;
                     if nt >= norm {
                         remeasured = true;
                         break;
@@ -293,11 +302,14 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             lambda *= 0.5;
         }
         if remeasured {
-            // F here is now at the new accuracy; aim again with the same Jacobian.
-            report.history.push(IterationRecord {
-                residual_norm: norm,
-                step_length: 0.0,
-            });
+            // F here is now at the new accuracy: aim again from here with the same Jacobian.
+            // Not an iteration of its own (no history record; the next iteration starts from
+            // the re-measured mismatch), unless the problem keeps changing its accuracy: past
+            // `max_iterations` re-measurements they count, so the loop ends.
+            remeasures += 1;
+            if remeasures <= settings.max_iterations {
+                report.iterations -= 1;
+            }
             reusable = Some(jac);
             continue;
         }
@@ -311,11 +323,11 @@ pub fn solve<const N: usize, P: NewtonProblem<N>>(
             Some((trial, ft, nt, _)) => {
                 // Broyden's update J += (df - J du) du^T / (du^T du) after a full step; any
                 // damped step means the local model was poor, so the next Jacobian is fresh.
-                // When the trial was computed at another accuracy than F here, df holds the
-                // change of accuracy as well (often larger than the step's own change near
-                // convergence): the Jacobian is kept as it is instead, as after a change of
-                // accuracy at the start of an iteration.
-                if settings.broyden && lambda == 1.0 && trial_changed_accuracy {
+                // When the trial was computed at another accuracy than F here (and F was not
+                // measured again), df holds the change of accuracy as well (often larger than
+                // the step's own change near convergence): the Jacobian is kept as it is
+                // instead, as after a change of accuracy at the start of an iteration.
+                if settings.broyden && lambda == 1.0 && stale {
                     reusable = Some(jac);
                 } else if settings.broyden && lambda == 1.0 {
                     let step = trial - u;
@@ -418,11 +430,13 @@ mod tests {
     /// A linear F = u - 1 computed with an error that depends on the accuracy (coarse, then
     /// fine once `prepare_trial` switches), as shooting legs integrated at two tolerances are.
     /// With offsets (1e-6, -2e-6) from u = 1 + 1e-6 (F = 2e-6 coarse) the full Newton step
-    /// lands where the fine F is -3e-6: judged against the coarse F it does not descend, and
-    /// no shorter step would either.
+    /// lands where the fine F is -3e-6: it does not descend, and the step was aimed the wrong
+    /// way (judged against the coarse F, a quarter step would be taken, away from the root).
     struct TwoAccuracies {
         /// The error of F at the coarse and at the fine accuracy.
         offsets: (f64, f64),
+        /// F cannot be evaluated strictly inside this interval of u.
+        hole: (f64, f64),
         fine: bool,
         evaluations: usize,
     }
@@ -430,6 +444,9 @@ mod tests {
         type Error = ();
         fn residual(&mut self, u: &SVector<f64, 1>) -> Result<SVector<f64, 1>, ()> {
             self.evaluations += 1;
+            if u[0] > self.hole.0 && u[0] < self.hole.1 {
+                return Err(());
+            }
             let offset = if self.fine {
                 self.offsets.1
             } else {
@@ -457,6 +474,7 @@ mod tests {
     fn a_step_at_a_new_accuracy_is_judged_at_that_accuracy() {
         let mut problem = TwoAccuracies {
             offsets: (1e-6, -2e-6),
+            hole: (0.0, 0.0),
             fine: false,
             evaluations: 0,
         };
@@ -467,16 +485,19 @@ mod tests {
         let r = solve(&mut problem, SVector::<f64, 1>::new(1.0 + 1e-6), &settings);
         assert!(r.converged(), "{r:?}");
         assert!((r.solution[0] - (1.0 + 2e-6)).abs() < 1e-12, "{r:?}");
-        // Start, the full-step trial, F again at the fine accuracy, the step aimed with it.
+        // Start, the full-step trial, F again at the fine accuracy, the step aimed with it; the
+        // re-measurement is not an iteration of its own.
         assert_eq!(problem.evaluations, 4, "{r:?}");
         let lengths: Vec<f64> = r.history.iter().map(|h| h.step_length).collect();
-        assert_eq!(lengths, [0.0, 1.0], "{r:?}");
+        assert_eq!(lengths, [1.0], "{r:?}");
+        assert_eq!(r.iterations, 1, "{r:?}");
         assert_eq!(r.jacobian_evaluations, 1, "{r:?}");
 
         // A step that is good at the fine accuracy but not against the coarse F: taken after
         // F is measured again, without a line search.
         let mut problem = TwoAccuracies {
             offsets: (-0.9e-6, 1e-6),
+            hole: (0.0, 0.0),
             fine: false,
             evaluations: 0,
         };
@@ -486,5 +507,23 @@ mod tests {
         assert_eq!(problem.evaluations, 4, "{r:?}");
         let lengths: Vec<f64> = r.history.iter().map(|h| h.step_length).collect();
         assert_eq!(lengths, [1.0, 1.0], "{r:?}");
+
+        // The full step cannot be evaluated (it lands in a hole of F's domain): the first
+        // shorter trial that does not descend against the coarse F is judged again at the fine
+        // accuracy. Offsets (1e-6, 2.5e-6): the half step has F = 2.5e-6 fine, above the coarse
+        // 2e-6 but below the fine 3.5e-6 at the start.
+        let mut problem = TwoAccuracies {
+            offsets: (1e-6, 2.5e-6),
+            hole: (1.0 - 1.5e-6, 1.0 - 0.5e-6),
+            fine: false,
+            evaluations: 0,
+        };
+        let r = solve(&mut problem, SVector::<f64, 1>::new(1.0 + 1e-6), &settings);
+        assert!(r.converged(), "{r:?}");
+        assert!((r.solution[0] - (1.0 - 2.5e-6)).abs() < 1e-12, "{r:?}");
+        // Start, the full step (not evaluable), the half step, F again, the next full step.
+        assert_eq!(problem.evaluations, 5, "{r:?}");
+        let lengths: Vec<f64> = r.history.iter().map(|h| h.step_length).collect();
+        assert_eq!(lengths, [0.5, 1.0], "{r:?}");
     }
 }

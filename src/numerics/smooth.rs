@@ -8,9 +8,10 @@ use crate::numerics::exponential::FastExp;
 /// for a/b <= `r0`, h = 1 for a/b >= 1/`r0` (0 < r0 < 1), and between them the
 /// twice-differentiable h = 6 t^5 - 15 t^4 + 10 t^3 of t = ln(a / (r0 b)) / ln(1 / r0^2).
 pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
-    // Outside the blend the weight is exactly 0 or 1 and its slope 0: no logarithm needed.
+    // Outside the blend the weight is exactly 0 or 1 and its slope 0: no logarithm needed (a
+    // ratio that is not positive goes on to the logarithm and gives NaN, as it always did).
     let ratio = a / b;
-    if ratio <= r0 {
+    if ratio > 0.0 && ratio <= r0 {
         return (0.0, 0.0);
     }
     if ratio >= 1.0 / r0 {
@@ -31,9 +32,10 @@ pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
 /// With q = 1/t^2 + 1/(1-t)^2: h' = h (1 - h) q and h'' = h (1 - h) [q^2 (1 - 2h) + q'],
 /// q' = 2/(1-t)^3 - 2/t^3 (derivatives in t).
 pub fn switch_weight_curved(a: f64, b: f64, r0: f64) -> (f64, f64, f64) {
-    // Outside the blend: exactly 0 or 1, every derivative 0, no logarithm needed.
+    // Outside the blend: exactly 0 or 1, every derivative 0, no logarithm needed (a ratio that
+    // is not positive goes on to the logarithm and gives NaN, as it always did).
     let ratio = a / b;
-    if ratio <= r0 {
+    if ratio > 0.0 && ratio <= r0 {
         return (0.0, 0.0, 0.0);
     }
     if ratio >= 1.0 / r0 {

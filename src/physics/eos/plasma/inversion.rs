@@ -11,6 +11,9 @@ use crate::numerics::exponential::FastExp;
 use crate::physics::composition::Composition;
 use crate::physics::eos::EosState;
 
+/// Relative slack of the density domain's ends in the joint iteration (see `joint_newton`).
+const DOMAIN_SLACK: f64 = 1e-14;
+
 impl Plasma {
     /// psi from charge neutrality G(psi) = ln F_1/2(psi) + ln q - ln(rho/m_u) - ln N_e(psi) = 0,
     /// G increasing: Newton steps kept inside the bracket (lo, hi], bisection or a downward
@@ -199,9 +202,10 @@ impl Plasma {
             // The density domain is checked on rho itself (the exponential is needed anyway),
             // so that no logarithm of its ends is taken unless a step leaves it. A start outside
             // is moved to the nearer end; a step that leaves it counts towards the limit of
-            // two returns to the end.
+            // two returns to the end. The slack of a few ulp keeps an iterate at an end (whose
+            // exponential can round just past it) from counting as leaving.
             let mut rho = ln_rho.fast_exp();
-            if !(rho >= rlo && rho <= rhi) {
+            if !(rho >= rlo * (1.0 - DOMAIN_SLACK) && rho <= rhi * (1.0 + DOMAIN_SLACK)) {
                 if iteration > 0 {
                     at_edge += 1;
                     if at_edge > 2 {
@@ -211,7 +215,9 @@ impl Plasma {
                 ln_rho = ln_rho.clamp(rlo.ln(), rhi.ln());
                 rho = ln_rho.fast_exp().clamp(rlo, rhi);
             }
-            let setup = self.setup_with(rho, ln_rho, t, comp, &per_t).ok()?;
+            let setup = self
+                .setup_with(rho.clamp(rlo, rhi), ln_rho, t, comp, &per_t)
+                .ok()?;
             let ps = psi.unwrap_or(setup.psi_full).min(setup.psi_max);
             let stages = self.stages(&setup.inputs, ps);
             let el = self.integrals(ps);

@@ -1,8 +1,9 @@
 """Shared helpers: the command-line program (the reference every value is checked against)
 and value comparison.
 
-The program is target/release/starpoise of this repository (scripts/test builds it before
-running pytest), or the path in the environment variable STARPOISE_BIN.
+The program is target/release/starpoise of this repository (in CARGO_TARGET_DIR if that is
+set; scripts/test builds it before running pytest), or the path in the environment variable
+STARPOISE_BIN.
 """
 
 from __future__ import annotations
@@ -25,7 +26,9 @@ SAME_NUMBER_REL = 1e-12
 
 
 def program() -> Path:
-    path = Path(os.environ.get("STARPOISE_BIN", REPO / "target" / "release" / "starpoise"))
+    # Cargo's target folder: CARGO_TARGET_DIR if set (relative to the repository), else target/.
+    target = REPO / os.environ.get("CARGO_TARGET_DIR", "target")
+    path = Path(os.environ.get("STARPOISE_BIN", target / "release" / "starpoise"))
     if not path.exists():
         subprocess.run(
             ["cargo", "build", "--release", "--locked", "--bin", "starpoise"],

@@ -298,16 +298,30 @@ pub(crate) fn profile(
     Ok(rows)
 }
 
-/// The equation-of-state results of the last three rows, to start the next row's inversion
-/// rho(P, T) close to its answer.
+/// The equation-of-state results of the last three rows (with their ln P and ln rho, taken once
+/// per row), to start the next row's inversion rho(P, T) close to its answer. Fixed-size: no
+/// allocation per row.
 #[derive(Debug, Default)]
 struct History {
-    states: [Option<EosState>; 3],
+    rows: [Option<Remembered>; 3],
+}
+
+/// One row's equation-of-state result with ln P and ln rho.
+#[derive(Debug, Clone, Copy)]
+struct Remembered {
+    state: EosState,
+    ln_p: f64,
+    ln_rho: f64,
 }
 
 impl History {
     fn push(&mut self, state: EosState) {
-        self.states = [Some(state), self.states[0], self.states[1]];
+        let row = Remembered {
+            state,
+            ln_p: state.pressure_dyn_cm2.ln(),
+            ln_rho: state.density_g_cm3.ln(),
+        };
+        self.rows = [Some(row), self.rows[0], self.rows[1]];
     }
 
     /// A start for the inversion at (`p`, `t`): the last row's state with ln rho and psi
@@ -320,35 +334,33 @@ impl History {
     /// or two steps instead of three or four; its answer does not depend on the start
     /// ([`crate::physics::EquationOfState::state_at_pressure_near`]).
     fn start(&self, p: f64, t: f64) -> Option<EosState> {
-        let last = self.states[0]?;
+        let last = self.rows[0]?.state;
         let x = p.ln();
-        let points: Vec<(f64, f64, f64)> = self
-            .states
-            .iter()
-            .flatten()
-            .map(|s| {
-                (
-                    s.pressure_dyn_cm2.ln(),
-                    s.density_g_cm3.ln(),
-                    s.degeneracy_psi,
-                )
-            })
-            .collect();
+        // (ln P, ln rho, psi) of the rows known so far (a prefix: rows are pushed in front).
+        let mut points = [(0.0, 0.0, 0.0); 3];
+        let mut known = 0;
+        for r in self.rows.iter().flatten() {
+            points[known] = (r.ln_p, r.ln_rho, r.state.degeneracy_psi);
+            known += 1;
+        }
+        let points = &points[..known];
         // Lagrange weights at x through the distinct abscissae.
-        let weights: Vec<f64> = (0..points.len())
-            .map(|i| {
-                (0..points.len())
-                    .filter(|&j| j != i)
-                    .map(|j| (x - points[j].0) / (points[i].0 - points[j].0))
-                    .product()
-            })
-            .collect();
+        let mut weights = [0.0; 3];
+        for (i, w) in weights.iter_mut().enumerate().take(known) {
+            *w = points
+                .iter()
+                .enumerate()
+                .filter(|&(j, _)| j != i)
+                .map(|(_, q)| (x - q.0) / (points[i].0 - q.0))
+                .product();
+        }
+        let weights = &weights[..known];
         if !weights.iter().all(|w| w.is_finite()) {
             return Some(last);
         }
-        let ln_rho: f64 = points.iter().zip(&weights).map(|(q, w)| w * q.1).sum();
+        let ln_rho: f64 = points.iter().zip(weights).map(|(q, w)| w * q.1).sum();
         let psi = if points.iter().all(|q| q.2.is_finite()) {
-            points.iter().zip(&weights).map(|(q, w)| w * q.2).sum()
+            points.iter().zip(weights).map(|(q, w)| w * q.2).sum()
         } else {
             last.degeneracy_psi
         };

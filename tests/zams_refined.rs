@@ -55,6 +55,34 @@ fn forty_masses_converge_for_three_compositions() {
     );
 }
 
+/// The work of a solve from the built-in guess stays bounded at Z = 0.02: none of 40 masses
+/// 0.1–100 M_sun, nor 0.242446 and 0.492388 M_sun, needs more than 25 000 right-hand-side
+/// evaluations (the median is about 7 000, the most about 15 500). This project's own
+/// measurement, not a published one: before the line search judged a step tried at a new
+/// integrator tolerance against the mismatch measured again at that tolerance, 0.492388 M_sun
+/// needed 65 000 (and 0.242446 M_sun 57 000 at one stage of this work), every step length
+/// failing on the change of tolerance alone (README, Speed).
+#[test]
+fn no_mass_at_solar_composition_runs_away_in_the_line_search() {
+    let masses = (0..40)
+        .map(|i| 0.1 * 1000f64.powf(i as f64 / 39.0))
+        .chain([0.242446, 0.492388]);
+    let mut costly = Vec::new();
+    for mass in masses {
+        let s = ZamsSettings::new(
+            mass,
+            Composition::new(0.70, 0.02).unwrap(),
+            PhysicsSet::refined(),
+        )
+        .unwrap();
+        let m = solve(&s).unwrap_or_else(|e| panic!("{mass} M_sun: {e}"));
+        if m.stats.rhs_evaluations > 25_000 {
+            costly.push(format!("{mass:.6}: {} RHS", m.stats.rhs_evaluations));
+        }
+    }
+    assert!(costly.is_empty(), "{}", costly.join("\n"));
+}
+
 /// The ZAMS Sun beyond the figures `verify` checks (L, R, T_c, rho_c live in
 /// `starpoise::verify` and run in tests/verify.rs, one place for those values).
 #[test]

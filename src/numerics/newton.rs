@@ -468,13 +468,16 @@ mod tests {
         }
     }
 
-    /// The step computed at a new accuracy is judged against F measured again at that
-    /// accuracy: one re-evaluation, not a failed line search.
-    #[test]
-    fn a_step_at_a_new_accuracy_is_judged_at_that_accuracy() {
+    /// Solve a [`TwoAccuracies`] problem with `offsets` and `hole` from u = 1 + 1e-6 to a
+    /// mismatch of 1e-9, check that it converged to its root 1 - (fine offset), and return the
+    /// report, the evaluations of F and the step lengths of the history.
+    fn two_accuracies(
+        offsets: (f64, f64),
+        hole: (f64, f64),
+    ) -> (NewtonReport<1, ()>, usize, Vec<f64>) {
         let mut problem = TwoAccuracies {
-            offsets: (1e-6, -2e-6),
-            hole: (0.0, 0.0),
+            offsets,
+            hole,
             fine: false,
             evaluations: 0,
         };
@@ -484,46 +487,37 @@ mod tests {
         };
         let r = solve(&mut problem, SVector::<f64, 1>::new(1.0 + 1e-6), &settings);
         assert!(r.converged(), "{r:?}");
-        assert!((r.solution[0] - (1.0 + 2e-6)).abs() < 1e-12, "{r:?}");
+        assert!((r.solution[0] - (1.0 - offsets.1)).abs() < 1e-12, "{r:?}");
+        let lengths = r.history.iter().map(|h| h.step_length).collect();
+        (r, problem.evaluations, lengths)
+    }
+
+    /// The step computed at a new accuracy is judged against F measured again at that
+    /// accuracy: one re-evaluation, not a failed line search.
+    #[test]
+    fn a_step_at_a_new_accuracy_is_judged_at_that_accuracy() {
         // Start, the full-step trial, F again at the fine accuracy, the step aimed with it; the
         // re-measurement is not an iteration of its own.
-        assert_eq!(problem.evaluations, 4, "{r:?}");
-        let lengths: Vec<f64> = r.history.iter().map(|h| h.step_length).collect();
+        let (r, evaluations, lengths) = two_accuracies((1e-6, -2e-6), (0.0, 0.0));
+        assert_eq!(evaluations, 4, "{r:?}");
         assert_eq!(lengths, [1.0], "{r:?}");
         assert_eq!(r.iterations, 1, "{r:?}");
         assert_eq!(r.jacobian_evaluations, 1, "{r:?}");
 
         // A step that is good at the fine accuracy but not against the coarse F: taken after
         // F is measured again, without a line search.
-        let mut problem = TwoAccuracies {
-            offsets: (-0.9e-6, 1e-6),
-            hole: (0.0, 0.0),
-            fine: false,
-            evaluations: 0,
-        };
-        let r = solve(&mut problem, SVector::<f64, 1>::new(1.0 + 1e-6), &settings);
-        assert!(r.converged(), "{r:?}");
-        assert!((r.solution[0] - (1.0 - 1e-6)).abs() < 1e-12, "{r:?}");
-        assert_eq!(problem.evaluations, 4, "{r:?}");
-        let lengths: Vec<f64> = r.history.iter().map(|h| h.step_length).collect();
+        let (r, evaluations, lengths) = two_accuracies((-0.9e-6, 1e-6), (0.0, 0.0));
+        assert_eq!(evaluations, 4, "{r:?}");
         assert_eq!(lengths, [1.0, 1.0], "{r:?}");
 
         // The full step cannot be evaluated (it lands in a hole of F's domain): the first
         // shorter trial that does not descend against the coarse F is judged again at the fine
         // accuracy. Offsets (1e-6, 2.5e-6): the half step has F = 2.5e-6 fine, above the coarse
-        // 2e-6 but below the fine 3.5e-6 at the start.
-        let mut problem = TwoAccuracies {
-            offsets: (1e-6, 2.5e-6),
-            hole: (1.0 - 1.5e-6, 1.0 - 0.5e-6),
-            fine: false,
-            evaluations: 0,
-        };
-        let r = solve(&mut problem, SVector::<f64, 1>::new(1.0 + 1e-6), &settings);
-        assert!(r.converged(), "{r:?}");
-        assert!((r.solution[0] - (1.0 - 2.5e-6)).abs() < 1e-12, "{r:?}");
-        // Start, the full step (not evaluable), the half step, F again, the next full step.
-        assert_eq!(problem.evaluations, 5, "{r:?}");
-        let lengths: Vec<f64> = r.history.iter().map(|h| h.step_length).collect();
+        // 2e-6 but below the fine 3.5e-6 at the start. Start, the full step (not evaluable),
+        // the half step, F again, the next full step.
+        let (r, evaluations, lengths) =
+            two_accuracies((1e-6, 2.5e-6), (1.0 - 1.5e-6, 1.0 - 0.5e-6));
+        assert_eq!(evaluations, 5, "{r:?}");
         assert_eq!(lengths, [0.5, 1.0], "{r:?}");
     }
 }

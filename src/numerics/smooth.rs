@@ -8,14 +8,9 @@ use crate::numerics::exponential::FastExp;
 /// for a/b <= `r0`, h = 1 for a/b >= 1/`r0` (0 < r0 < 1), and between them the
 /// twice-differentiable h = 6 t^5 - 15 t^4 + 10 t^3 of t = ln(a / (r0 b)) / ln(1 / r0^2).
 pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
-    // Outside the blend the weight is exactly 0 or 1 and its slope 0: no logarithm needed (a
-    // ratio that is not positive goes on to the logarithm and gives NaN, as it always did).
     let ratio = a / b;
-    if ratio > 0.0 && ratio <= r0 {
-        return (0.0, 0.0);
-    }
-    if ratio >= 1.0 / r0 {
-        return (1.0, 0.0);
+    if let Some(h) = outside_blend(ratio, r0) {
+        return (h, 0.0);
     }
     let lo = r0.ln();
     let width = -2.0 * lo;
@@ -32,16 +27,26 @@ pub fn switch_weight(a: f64, b: f64, r0: f64) -> (f64, f64) {
 /// With q = 1/t^2 + 1/(1-t)^2: h' = h (1 - h) q and h'' = h (1 - h) [q^2 (1 - 2h) + q'],
 /// q' = 2/(1-t)^3 - 2/t^3 (derivatives in t).
 pub fn switch_weight_curved(a: f64, b: f64, r0: f64) -> (f64, f64, f64) {
-    // Outside the blend: exactly 0 or 1, every derivative 0, no logarithm needed (a ratio that
-    // is not positive goes on to the logarithm and gives NaN, as it always did).
     let ratio = a / b;
-    if ratio > 0.0 && ratio <= r0 {
-        return (0.0, 0.0, 0.0);
-    }
-    if ratio >= 1.0 / r0 {
-        return (1.0, 0.0, 0.0);
+    if let Some(h) = outside_blend(ratio, r0) {
+        return (h, 0.0, 0.0);
     }
     switch_weight_curved_ln(ratio.ln(), r0)
+}
+
+/// The weight of either switch where the ratio a/b lies outside the blend: exactly 0 at or
+/// below `r0`, 1 at or above 1/`r0` (every derivative 0 there), found without a logarithm;
+/// `None` inside the blend, and for a ratio that is not positive, which goes on to the
+/// logarithm and gives NaN as it always did.
+#[inline]
+fn outside_blend(ratio: f64, r0: f64) -> Option<f64> {
+    if ratio > 0.0 && ratio <= r0 {
+        Some(0.0)
+    } else if ratio >= 1.0 / r0 {
+        Some(1.0)
+    } else {
+        None
+    }
 }
 
 /// [`switch_weight_curved`] with ln(a/b) given (a caller that has the logarithm saves one).

@@ -60,7 +60,8 @@ struct Table {
 // `static TABLE: Table`, tabulated by build.rs with `quadrature::table_node` at every node.
 include!(concat!(env!("OUT_DIR"), "/fermi_dirac_table.rs"));
 
-/// (-1)^(k+1) / k^(j+1) for k = 1..5 and j + 1 = 1/2, 3/2, 5/2.
+/// (-1)^(k+1) / k^(j+1) for k = 1..5 and j + 1 = 1/2, 3/2, 5/2 (the k = 1 term is 1: the
+/// series is e^psi (1 + x_j), [`series_corrections`]).
 const SERIES: [[f64; 5]; 3] = [
     [
         1.0,
@@ -85,20 +86,14 @@ const SERIES: [[f64; 5]; 3] = [
     ],
 ];
 
-/// Series for psi <= PSI_MIN: F_j = Gamma(j+1) sum_k (-1)^(k+1) e^(k psi) / k^(j+1).
-fn series(psi: f64) -> FermiDirac {
-    let e = psi.fast_exp();
-    let mut out = [0.0; 3];
-    for (jj, o) in out.iter_mut().enumerate() {
-        let c = &SERIES[jj];
-        // Horner in e: e (c0 + e (c1 + e (c2 + e (c3 + e c4)))).
-        let sum = e * (c[0] + e * (c[1] + e * (c[2] + e * (c[3] + e * c[4]))));
-        *o = GAMMA_HALF[jj] * sum;
-    }
+/// Series for psi <= PSI_MIN: F_j = Gamma(j+1) sum_k (-1)^(k+1) e^(k psi) / k^(j+1), that is
+/// Gamma(j+1) e^psi (1 + x_j) from [`series_corrections`]'s e = e^psi and x_j.
+fn series(e: f64, x: [f64; 3]) -> FermiDirac {
+    let [m, h, t] = [0, 1, 2].map(|j| GAMMA_HALF[j] * (e * (1.0 + x[j])));
     FermiDirac {
-        f_minus_half: out[0],
-        f_half: out[1],
-        f_three_halves: out[2],
+        f_minus_half: m,
+        f_half: h,
+        f_three_halves: t,
     }
 }
 
@@ -120,8 +115,8 @@ fn sommerfeld(psi: f64) -> FermiDirac {
 
 /// F_-1/2, F_1/2 and F_3/2 at `psi` (any finite psi; accuracy about 1e-8 relative).
 pub fn fermi_dirac(psi: f64) -> FermiDirac {
-    if psi <= PSI_MIN {
-        return series(psi);
+    if let Some((e, x)) = series_corrections(psi) {
+        return series(e, x);
     }
     if psi >= PSI_MAX {
         return sommerfeld(psi);

@@ -213,7 +213,7 @@ impl Plasma {
                     }
                 }
                 ln_rho = ln_rho.clamp(rlo.ln(), rhi.ln());
-                rho = ln_rho.fast_exp().clamp(rlo, rhi);
+                rho = ln_rho.fast_exp();
             }
             let setup = self
                 .setup_with(rho.clamp(rlo, rhi), ln_rho, t, comp, &per_t)

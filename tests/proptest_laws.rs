@@ -47,15 +47,6 @@ proptest! {
         let laws: [&dyn EquationOfState; 5] =
             [&IdealGas, &SahaGas, &DegenerateGas, &RefinedEos, &MolecularEos];
         for law in laws {
-            // `molecular` documents one region where it may refuse (its Coulomb switch at
-            // strong coupling): between 1e5 and 2.5e6 K where Gamma_e > 1 (rho above
-            // ~300-1000 g/cm^3 at 1e6 K), Gamma_e = 2.2747e5 (rho Y_e)^(1/3) / T
-            // (docs/references.md §8.2).
-            let y_e = c.x() + c.y() / 2.0 + c.z() * 7.0 / 16.0;
-            let gamma_e = 2.2747e5 * (rho * y_e).cbrt() / t;
-            if law.name() == "molecular" && gamma_e > 1.0 && (1e5..2.5e6).contains(&t) {
-                continue;
-            }
             if law.name() == "saha" && rho > 1e3 {
                 prop_assert!(law.state(rho, t, &c).is_err());
                 continue;

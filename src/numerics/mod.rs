@@ -8,5 +8,6 @@ pub mod interpolation;
 pub mod invalid;
 pub mod newton;
 pub mod ode;
+pub mod quintic;
 pub mod scalar;
 pub mod smooth;

@@ -34,14 +34,12 @@ pub const LIMIT_TABLE_Z: [f64; 5] = [0.001, 0.004, 0.01, 0.02, 0.04];
 /// The hydrogen-burning minimum mass of the `refined` preset, M_sun, at each X (rows, in the
 /// order of [`LIMIT_TABLE_X`]) and Z (columns, [`LIMIT_TABLE_Z`]): computed by
 /// [`hydrogen_burning_limit`] (`cargo run --release --example limit_table`; regenerate it when
-/// the refined laws change): for every entry today the lowest mass the laws reach, where the
-/// molecular equation of state turns thermodynamically unstable (rho ~ 1.4e3 g/cm^3, T ~ 4e5
-/// K, in the strongly coupled plasma) just before the turning point. NaN would mark a
-/// composition whose limit cannot be found.
+/// the refined laws change): for every entry today the turning point of the ZAMS branch. NaN
+/// would mark a composition whose limit cannot be found.
 pub const REFINED_LIMITS: [[f64; 5]; 3] = [
-    [0.074099, 0.070068, 0.067456, 0.065691, 0.063607],
-    [0.078863, 0.074626, 0.071881, 0.069833, 0.067808],
-    [0.084284, 0.079324, 0.077957, 0.074292, 0.072142],
+    [0.080737, 0.077429, 0.074981, 0.073013, 0.070943],
+    [0.086079, 0.082727, 0.080226, 0.078194, 0.076041],
+    [0.091566, 0.088160, 0.085608, 0.083516, 0.081282],
 ];
 
 /// How far below the tabulated limit a mass must lie to be refused (the interpolation accuracy

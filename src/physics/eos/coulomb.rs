@@ -10,34 +10,33 @@
 //! F = kT sum_j N_j f(Gamma_j), Gamma_j = Z_j^(5/3) Gamma_e, Gamma_e = e^2 / (a_e kT),
 //! a_e = (3 / (4 pi n_e))^(1/3) (Chabrier & Potekhin 1998, PRE 58, 4941).
 //!
-//! How it enters the `molecular` law, and what is left out:
-//! - The ions are taken with their full charges (H+, He++, metals of charge 7) and n_e of the
-//!   fully ionised mixture, so F_C is an explicit function of (rho, T), multiplied by a switch
-//!   S(T) that rises from 0 at [`COULOMB_T_OFF_K`] to 1 at [`COULOMB_T_ON_K`]:
-//!   F = S(T) F_OCP(rho, T). Since F is a function of (rho, T) alone, P, U and the entropy derived
-//!   from it are thermodynamically consistent with each other and with the ideal part, and an
-//!   adiabat maps the (ideal) photosphere onto the (fully coupled) interior correctly whatever
-//!   happens in between. The switch is off where hydrogen recombines, where the fully ionised
-//!   OCP does not describe the plasma, and fully on in the cores of all hydrogen-burning stars.
-//!   Its temperature dependence adds -F_OCP dS/dln T to U and its derivative to c_V: an artefact
-//!   of switching, which raises nabla_ad where Gamma_e ~ 1 in the switch (to about 0.45 in a
-//!   0.1 M_sun star and 0.6 at 0.075 M_sun, near 1e6 K; below 0.42 from 0.2 M_sun up). S is
-//!   infinitely differentiable (a switch whose higher derivatives jump leaves a kink in nabla_ad,
-//!   which costs the integrator accuracy). A self-consistent treatment (the Coulomb term in the
-//!   ionisation balance) would remove the artefact.
+//! How it enters the `molecular` law (a choice of this project), and what is left out:
+//! - **Charges in proportion to the free electrons.** The Coulomb free energy is carried by the
+//!   free electrons and the charge they leave on the ions: with N_e free electrons,
+//!   F_C = N_e kT phi(Gamma_e), phi(G) = sum_j (nu_j / nu_e) f(Z_j^(5/3) G), where nu_j / nu_e
+//!   are the ions of each species per electron of the fully ionised mixture (H+, He++, metals of
+//!   charge 7) and Gamma_e is taken at the actual free-electron density. Fully ionised, this is
+//!   the linear-mixing OCP above; in neutral gas it vanishes with N_e, so no switch in
+//!   temperature is needed.
+//! - **In the ionisation balance.** Minimising the free energy over the stages adds
+//!   mu_C = dF_C / dN_e = kT (phi + u_phi / 3), u_phi = G dphi/dG, to the electron chemical
+//!   potential in every Saha equation (the Coulomb lowering of the ionisation energies, which
+//!   ionises dense gas). Because the balance minimises the total free energy, P, U and the
+//!   entropy follow from F_C at fixed stages: P_C = n_e kT u_phi / 3, U_C = 3 P_C / rho per gram
+//!   (the virial of a 1/r potential), S_C = (U_C - F_C) / T, thermodynamically consistent with
+//!   each other and with the ideal part, with no terms from a switch.
 //! - No electron screening (electron–ion polarisation) and no exchange–correlation of the
 //!   electrons: exact for a rigid background (degenerate electrons); for non-degenerate
 //!   electrons the Debye–Hückel screening by electrons, left out, adds a comparable term.
 //! - Liquid at any Gamma (no crystallisation; the solid is stable above Gamma_j ~ 175, reached
-//!   only by metal ions at Gamma_e > 5.5, far above the Gamma_e < 1 of ZAMS stars).
+//!   only by metal ions at Gamma_e > 5.5, far above the Gamma_e < 2 of ZAMS stars).
 //!
-//! Pressure: P_C = n_ion kT u/3 >= -n_ion kT 0.3 Gamma: never negative in total wherever
-//! electrons or ions carry the pressure, since Gamma_e ~ 1 needs rho above 1 g/cm^3 at 1e5 K, where
-//! the electrons are degenerate (tested over the law's domain).
+//! Pressure: P_C = n_e kT u_phi / 3 >= -n_e kT 0.3 Gamma_e (u >= -0.9 Gamma): never more negative
+//! than the electrons' own pressure where Gamma_e < 3 (tested over the law's domain).
 
-use crate::constants::{E_ESU, K_B_ERG_K, M_U_G};
-use crate::numerics::cube_root::cbrt;
-use crate::numerics::smooth::switch_weight_curved_ln;
+use crate::constants::{E_ESU, K_B_ERG_K};
+use crate::numerics::quintic::QuinticTable;
+use std::sync::OnceLock;
 
 const A1: f64 = -0.907_347;
 const A2: f64 = 0.628_49;
@@ -51,22 +50,50 @@ fn a3() -> f64 {
     -0.75f64.sqrt() - A1 / A2.sqrt()
 }
 
-/// Temperature below which the Coulomb term is off, K (hydrogen recombines below it in ZAMS
-/// envelopes).
-pub const COULOMB_T_OFF_K: f64 = 1.0e5;
-/// Temperature above which the Coulomb term is fully on, K: below the central temperature of
-/// the lowest-mass stars (3e6 K at 0.075 M_sun), and far enough from [`COULOMB_T_OFF_K`] that the
-/// switch's own terms stay small.
-pub const COULOMB_T_ON_K: f64 = 2.5e6;
-
 /// The OCP free energy per ion f(Gamma) = F / (N kT) (Potekhin & Chabrier 2000 liquid fit).
+/// Written as A1 A2 b(sqrt(G/A2)) + 2 A3 c(sqrt G) + ..., with b(y) = y sqrt(1 + y^2) - asinh y
+/// and c(s) = s - arctan s evaluated without cancellation at small arguments.
 pub fn ocp_free_energy(gamma: f64) -> f64 {
     let g = gamma;
-    let s = g.sqrt();
-    A1 * ((g * (A2 + g)).sqrt() - A2 * ((g / A2).sqrt() + (1.0 + g / A2).sqrt()).ln())
-        + 2.0 * a3() * (s - s.atan())
+    A1 * A2 * root_minus_asinh((g / A2).sqrt())
+        + 2.0 * a3() * minus_arctan(g.sqrt())
         + B1 * (g - B2 * (g / B2).ln_1p())
         + 0.5 * B3 * (g * g / B4).ln_1p()
+}
+
+/// Below this argument the differences b(y) and c(s) are summed as series (terms falling by
+/// y^2 <= 0.01, twelve of them: below 1e-16 relative); above, the closed forms lose at most
+/// about 1e-14 to cancellation.
+const SERIES_ARGUMENT: f64 = 0.1;
+
+/// b(y) = y sqrt(1 + y^2) - asinh y = int_0^y 2 t^2 / sqrt(1 + t^2) dt
+/// = 2 sum_n binom(-1/2, n) y^(2n+3) / (2n + 3).
+fn root_minus_asinh(y: f64) -> f64 {
+    if y > SERIES_ARGUMENT {
+        return y * (1.0 + y * y).sqrt() - y.asinh();
+    }
+    let (y2, mut power, mut binomial, mut sum) = (y * y, y * y * y, 1.0, 0.0);
+    for n in 0..12 {
+        sum += binomial * power / (2 * n + 3) as f64;
+        // binom(-1/2, n + 1) = binom(-1/2, n) (-1/2 - n) / (n + 1).
+        binomial *= -(0.5 + n as f64) / (n + 1) as f64;
+        power *= y2;
+    }
+    2.0 * sum
+}
+
+/// c(s) = s - arctan s = sum_(n >= 1) (-1)^(n+1) s^(2n+1) / (2n + 1).
+fn minus_arctan(s: f64) -> f64 {
+    if s > SERIES_ARGUMENT {
+        return s - s.atan();
+    }
+    let (s2, mut power, mut sign, mut sum) = (s * s, s * s * s, 1.0, 0.0);
+    for n in 1..13 {
+        sum += sign * power / (2 * n + 1) as f64;
+        sign = -sign;
+        power *= s2;
+    }
+    sum
 }
 
 /// The OCP internal energy per ion u(Gamma) = U / (N kT) = Gamma df/dGamma, and du/dGamma.
@@ -84,26 +111,72 @@ pub fn ocp_energy(gamma: f64) -> (f64, f64) {
     (u, du)
 }
 
-/// The Coulomb contribution at one (rho, T), per unit mass, with the derivatives the
-/// equation of state needs.
-#[derive(Debug, Clone, Copy, Default, PartialEq)]
-pub struct CoulombTerm {
-    /// Pressure P_C, dyn cm^-2.
-    pub pressure: f64,
-    /// (dP_C / dln rho)_T, dyn cm^-2.
-    pub dp_dln_rho: f64,
-    /// (dP_C / dln T)_rho, dyn cm^-2.
-    pub dp_dln_t: f64,
-    /// Specific internal energy U_C, erg g^-1.
-    pub energy: f64,
-    /// (dU_C / dln T)_rho, erg g^-1.
-    pub de_dln_t: f64,
-    /// Electron coupling parameter Gamma_e of the fully ionised mixture.
-    pub gamma_e: f64,
-    /// Phi_1 = sum_j nu_j u(Gamma_j), per m_u (nu_j ions per m_u).
-    pub ion_energy_sum: f64,
-    /// Phi_2 = sum_j nu_j Gamma_j du/dGamma(Gamma_j), per m_u.
-    pub ion_energy_slope_sum: f64,
+/// ln Gamma of the lower end of the table of f ([`ocp_at_ln`]), Gamma = 2.96e-4: below it the
+/// fit's series ([`ocp_series`]), exact to 1e-13 there.
+const SERIES_LN_GAMMA: f64 = -8.125;
+/// ln Gamma of the upper end of the table, Gamma = 3.4e5 (above it, the formula).
+const TABLE_TOP_LN_GAMMA: f64 = 12.75;
+/// Intervals of the table: spacing 1/16 in ln Gamma, where the interpolation errors of f, u and
+/// Gamma du/dGamma are below 1.5e-11, 1.9e-9 and 2e-7 of them (tested against the formula).
+const TABLE_INTERVALS: usize = 334;
+
+/// The fit's expansion at small Gamma, with its derivatives in ln Gamma:
+/// f = -G^(3/2)/sqrt(3) + c5 G^(5/2) + c7 G^(7/2) + c9 G^(9/2) + d2 G^2 + d3 G^3 + d4 G^4, from
+/// y sqrt(1 + y^2) - asinh y = (2/3) y^3 - y^5/5 + (3/28) y^7 - (5/72) y^9 (y^2 = G/A2),
+/// s - arctan s = s^3/3 - s^5/5 + s^7/7 - s^9/9 (s^2 = G) and the logarithms' series; the next
+/// terms are below 1e-13 of f for Gamma < 3e-4 (checked against 40-digit arithmetic when
+/// written).
+pub fn ocp_series(ln_gamma: f64) -> [f64; 3] {
+    let a3 = a3();
+    let c3 = -1.0 / 3f64.sqrt();
+    let c5 = -(A1 / A2.powf(1.5) + 2.0 * a3) / 5.0;
+    let c7 = 3.0 / 28.0 * A1 / A2.powf(2.5) + 2.0 / 7.0 * a3;
+    let c9 = -5.0 / 72.0 * A1 / A2.powf(3.5) - 2.0 / 9.0 * a3;
+    let d2 = B1 / (2.0 * B2) + B3 / (2.0 * B4);
+    let d3 = -B1 / (3.0 * B2 * B2);
+    let d4 = -B3 / (4.0 * B4 * B4);
+    let terms = [
+        (c3, 1.5),
+        (d2, 2.0),
+        (c5, 2.5),
+        (d3, 3.0),
+        (c7, 3.5),
+        (d4, 4.0),
+        (c9, 4.5),
+    ];
+    let mut out = [0.0; 3];
+    for (c, k) in terms {
+        let t = c * (k * ln_gamma).exp();
+        out[0] += t;
+        out[1] += k * t;
+        out[2] += k * k * t;
+    }
+    out
+}
+
+/// The OCP's (f, u, Gamma du/dGamma) at x = ln Gamma: the value and first two derivatives of f
+/// in ln Gamma, so that the three are derivatives of one function to rounding. From a quintic
+/// Hermite table of the fit ([`crate::numerics::quintic`], built once per process) between
+/// Gamma = 2.96e-4 and 3.4e5; below, the fit's series [`ocp_series`]; above, the formula.
+pub fn ocp_at_ln(ln_gamma: f64) -> [f64; 3] {
+    static TABLE: OnceLock<Option<QuinticTable>> = OnceLock::new();
+    let formula = |x: f64| {
+        let g = x.exp();
+        let (u, du) = ocp_energy(g);
+        [ocp_free_energy(g), u, g * du]
+    };
+    if ln_gamma <= SERIES_LN_GAMMA {
+        return ocp_series(ln_gamma);
+    }
+    let table = TABLE.get_or_init(|| {
+        QuinticTable::new(SERIES_LN_GAMMA, TABLE_TOP_LN_GAMMA, TABLE_INTERVALS, |x| {
+            formula(x)
+        })
+    });
+    table
+        .as_ref()
+        .and_then(|t| t.at(ln_gamma))
+        .unwrap_or_else(|| formula(ln_gamma))
 }
 
 /// Ion species for the mixture: (ions per m_u, Z^(5/3) of the charge Z).
@@ -114,153 +187,95 @@ pub const Z53_HELIUM: f64 = 3.174_802_103_936_399;
 /// 7^(5/3), for the metal ions of charge 7.
 pub const Z53_METALS: f64 = 25.615_139_970_160_804;
 
-/// The switch S(T) with dS/dln T and d^2S/dln T^2: 0 below [`COULOMB_T_OFF_K`], 1 above
-/// [`COULOMB_T_ON_K`], infinitely differentiable in between
-/// ([`crate::numerics::smooth::switch_weight_curved`]), so that c_V and nabla_ad, which contain
-/// the second derivative of S, stay smooth (a switch whose higher derivatives jump leaves a kink
-/// in nabla_ad, which costs the integrator accuracy).
-fn switch(t: f64) -> (f64, f64, f64) {
-    switch_ln(t.ln())
+/// ln[e^2 (4 pi / 3)^(1/3) / k], so that ln Gamma_e = this - ln T + (1/3) ln n_e (cgs).
+pub fn ln_coupling_constant() -> f64 {
+    (E_ESU * E_ESU / K_B_ERG_K).ln() + (4.0 / 3.0 * std::f64::consts::PI).ln() / 3.0
 }
 
-/// [`switch`] at ln T.
-fn switch_ln(ln_t: f64) -> (f64, f64, f64) {
-    switch_weight_curved_ln(
-        ln_t - (COULOMB_T_OFF_K * COULOMB_T_ON_K).sqrt().ln(),
-        (COULOMB_T_OFF_K / COULOMB_T_ON_K).sqrt(),
-    )
+/// Gamma_e = e^2 / (a_e kT), a_e = (3 / (4 pi n_e))^(1/3), for `n_e_cm3` free electrons per cm^3
+/// at temperature `t` (K).
+pub fn electron_coupling(n_e_cm3: f64, t: f64) -> f64 {
+    (ln_coupling_constant() - t.ln() + n_e_cm3.ln() / 3.0).exp()
 }
 
-/// Gamma_e = e^2 / (a_e kT) for `electrons_per_mu` electrons per m_u at (rho, T).
-fn electron_coupling(rho: f64, t: f64, electrons_per_mu: f64) -> f64 {
-    let n_e = rho / M_U_G * electrons_per_mu;
-    let a_e = (3.0 / (4.0 * std::f64::consts::PI * n_e)).cbrt();
-    E_ESU * E_ESU / (a_e * K_B_ERG_K * t)
-}
-
-/// The switched specific free energy F_C = S(T) (kT / m_u) sum_j nu_j f(Z_j^(5/3) Gamma_e),
-/// erg g^-1 (what [`coulomb_term`] differentiates).
-pub fn coulomb_free_energy(rho: f64, t: f64, ions: &IonSpecies, electrons_per_mu: f64) -> f64 {
-    let gamma_e = electron_coupling(rho, t, electrons_per_mu);
-    let phi: f64 = ions
-        .iter()
-        .filter(|(nu, _)| *nu > 0.0)
-        .map(|&(nu, z53)| nu * ocp_free_energy(z53 * gamma_e))
-        .sum();
-    switch(t).0 * K_B_ERG_K * t / M_U_G * phi
-}
-
-/// The parts of the switched OCP term that depend on T alone: an inversion rho(P, T) computes
-/// them once.
+/// The mixture's Coulomb free energy per free electron, phi(Gamma_e) = F_C / (N_e kT) =
+/// sum_j (nu_j / nu_e) f(Z_j^(5/3) Gamma_e), with nu_j / nu_e the ions of species j per electron
+/// of the fully ionised mixture (see the module documentation).
 #[derive(Debug, Clone, Copy, PartialEq)]
-pub struct CoulombAtTemperature {
-    /// S, dS/dln T, d^2S/dln T^2.
-    switch: (f64, f64, f64),
-    /// kT / m_u, erg g^-1.
-    per_mass: f64,
-    /// Gamma_e / rho^(1/3).
-    gamma_coefficient: f64,
+pub struct CoulombMixture {
+    /// (ions per fully ionised electron, Z^(5/3)) of each species with ions.
+    species: IonSpecies,
+    /// ln Z^(5/3) of each species.
+    ln_z53: [f64; 3],
 }
 
-impl CoulombAtTemperature {
-    /// At temperature `t` for `electrons_per_mu` electrons per m_u; `None` where the switch is
-    /// off.
-    pub fn new(t: f64, electrons_per_mu: f64) -> Option<Self> {
-        Self::with_ln(t, t.ln(), electrons_per_mu)
-    }
-
-    /// [`CoulombAtTemperature::new`] with ln T given.
-    pub fn with_ln(t: f64, ln_t: f64, electrons_per_mu: f64) -> Option<Self> {
-        let switch = switch_ln(ln_t);
-        (switch.0 > 0.0).then(|| Self {
-            switch,
-            per_mass: K_B_ERG_K * t / M_U_G,
-            gamma_coefficient: electron_coupling(1.0, t, electrons_per_mu),
-        })
-    }
-
-    /// The term at density `rho` for the fully ionised `ions`. With `energy` false only the
-    /// pressure and its derivatives are complete (U and dU/dln T are left at 0), which skips the
-    /// logarithms of f: enough for the inversion rho(P, T) ([`CoulombAtTemperature::pressure_term`]
-    /// then [`CoulombAtTemperature::with_energy`]).
-    ///
-    /// With Phi = sum nu_j f, Phi_1 = sum nu_j u, Phi_2 = sum nu_j Gamma du/dGamma (nu_j ions
-    /// per m_u) and S' = dS/dln T: P = S (rho kT / m_u) Phi_1 / 3, U = (kT / m_u)(S Phi_1 -
-    /// S' Phi) per gram, and their derivatives follow (dGamma/dln rho = Gamma/3,
-    /// dGamma/dln T = -Gamma).
-    pub fn term(&self, rho: f64, ions: &IonSpecies, energy: bool) -> CoulombTerm {
-        let term = self.pressure_term(rho, ions);
-        if energy {
-            self.with_energy(&term, ions)
-        } else {
-            term
+impl CoulombMixture {
+    /// For the fully ionised `ions` (per m_u) with `electrons_per_mu` electrons per m_u.
+    pub fn new(ions: &IonSpecies, electrons_per_mu: f64) -> Self {
+        let per_electron = |(nu, z53): (f64, f64)| {
+            if nu > 0.0 && electrons_per_mu > 0.0 {
+                (nu / electrons_per_mu, z53)
+            } else {
+                (0.0, z53)
+            }
+        };
+        Self {
+            species: ions.map(per_electron),
+            ln_z53: ions.map(|(_, z53)| z53.ln()),
         }
     }
 
-    /// The pressure terms at density `rho` (U and dU/dln T left at 0; Phi_1 and Phi_2 kept for
-    /// [`CoulombAtTemperature::with_energy`]). Gamma_e from the cube root of
-    /// [`crate::numerics::cube_root`] (2 ulp).
-    pub fn pressure_term(&self, rho: f64, ions: &IonSpecies) -> CoulombTerm {
-        let (s, s1, _) = self.switch;
-        let gamma_e = self.gamma_coefficient * cbrt(rho);
-        let (mut phi1, mut phi2) = (0.0, 0.0);
-        for &(nu, z53) in ions {
-            if nu <= 0.0 {
+    /// The coupling functions at `gamma_e`.
+    pub fn at(&self, gamma_e: f64) -> Coupling {
+        self.at_ln(gamma_e.ln(), gamma_e)
+    }
+
+    /// The coupling functions at ln Gamma_e = `ln_gamma_e` (Gamma_e = `gamma_e`), from the
+    /// table of [`ocp_at_ln`].
+    pub fn at_ln(&self, ln_gamma_e: f64, gamma_e: f64) -> Coupling {
+        let (mut phi, mut u, mut slope) = (0.0, 0.0, 0.0);
+        for (&(w, _), &ln_z53) in self.species.iter().zip(&self.ln_z53) {
+            if w <= 0.0 {
                 continue;
             }
-            let g = z53 * gamma_e;
-            let (u, du) = ocp_energy(g);
-            phi1 += nu * u;
-            phi2 += nu * g * du;
+            let [f_j, u_j, s_j] = ocp_at_ln(ln_gamma_e + ln_z53);
+            phi += w * f_j;
+            u += w * u_j;
+            slope += w * s_j;
         }
-        let per_mass = self.per_mass;
-        CoulombTerm {
-            pressure: rho * per_mass * s * phi1 / 3.0,
-            dp_dln_rho: rho * per_mass * s * (phi1 / 3.0 + phi2 / 9.0),
-            dp_dln_t: rho * per_mass * ((s + s1) * phi1 - s * phi2) / 3.0,
-            energy: 0.0,
-            de_dln_t: 0.0,
+        Coupling {
             gamma_e,
-            ion_energy_sum: phi1,
-            ion_energy_slope_sum: phi2,
-        }
-    }
-
-    /// `term` (from [`CoulombAtTemperature::pressure_term`] at this temperature for the same
-    /// `ions`) with U and dU/dln T. f itself (logarithms, arctangent) enters only through the
-    /// switch's derivatives, so it is evaluated only inside the switch.
-    pub fn with_energy(&self, term: &CoulombTerm, ions: &IonSpecies) -> CoulombTerm {
-        let (s, s1, s2) = self.switch;
-        let (phi1, phi2) = (term.ion_energy_sum, term.ion_energy_slope_sum);
-        let phi: f64 = if s1 > 1e-300 {
-            ions.iter()
-                .filter(|(nu, _)| *nu > 0.0)
-                .map(|&(nu, z53)| nu * ocp_free_energy(z53 * term.gamma_e))
-                .sum()
-        } else {
-            0.0
-        };
-        let per_mass = self.per_mass;
-        CoulombTerm {
-            energy: per_mass * (s * phi1 - s1 * phi),
-            de_dln_t: per_mass * (s * phi1 - s1 * phi + 2.0 * s1 * phi1 - s * phi2 - s2 * phi),
-            ..*term
+            free_energy: phi,
+            energy: u,
+            energy_slope: slope,
         }
     }
 }
 
-/// The switched OCP term at density `rho` and temperature `t` for the fully ionised `ions`
-/// with `electrons_per_mu` electrons per m_u: F = S(T) kT sum_j N_j f(Z_j^(5/3) Gamma_e)
-/// ([`CoulombAtTemperature::term`]; zero where the switch is off).
-pub fn coulomb_term(
-    rho: f64,
-    t: f64,
-    ions: &IonSpecies,
-    electrons_per_mu: f64,
-    energy: bool,
-) -> CoulombTerm {
-    CoulombAtTemperature::new(t, electrons_per_mu)
-        .map_or_else(CoulombTerm::default, |c| c.term(rho, ions, energy))
+/// The Coulomb coupling per free electron at one Gamma_e.
+#[derive(Debug, Clone, Copy, Default, PartialEq)]
+pub struct Coupling {
+    /// Gamma_e at the free-electron density.
+    pub gamma_e: f64,
+    /// phi = F_C / (N_e kT).
+    pub free_energy: f64,
+    /// u_phi = U_C / (N_e kT) = Gamma_e dphi/dGamma_e.
+    pub energy: f64,
+    /// Gamma_e du_phi/dGamma_e.
+    pub energy_slope: f64,
+}
+
+impl Coupling {
+    /// mu_C / kT = d(N_e phi) / dN_e = phi + u_phi / 3 (Gamma_e grows as N_e^(1/3)): the shift of
+    /// the electron chemical potential in the ionisation balance.
+    pub fn chemical_potential(&self) -> f64 {
+        self.free_energy + self.energy / 3.0
+    }
+
+    /// Gamma_e d(mu_C / kT) / dGamma_e = u_phi + (Gamma_e du_phi/dGamma_e) / 3.
+    pub fn chemical_potential_slope(&self) -> f64 {
+        self.energy + self.energy_slope / 3.0
+    }
 }
 
 #[cfg(test)]
@@ -284,29 +299,86 @@ mod tests {
         }
     }
 
-    /// The term's pressure and energy derivatives against central differences in (rho, T),
-    /// including the switch.
+    /// The mixture's phi, u_phi = Gamma dphi/dGamma, its slope, and the chemical potential
+    /// mu_C / kT = d(N_e phi(Gamma(N_e))) / dN_e (Gamma proportional to N_e^(1/3) at fixed
+    /// volume and T) against central differences.
     #[test]
-    fn term_derivatives_match_finite_differences() {
+    fn mixture_energy_and_chemical_potential_are_derivatives_of_the_free_energy() {
         let ions: IonSpecies = [(0.7, 1.0), (0.07, Z53_HELIUM), (0.00125, Z53_METALS)];
-        let ne = 0.7 + 0.14 + 0.00875;
-        for (rho, t) in [(100.0, 1e7), (10.0, 8e5), (1.0, 4e5), (1e3, 3e6)] {
-            let c = coulomb_term(rho, t, &ions, ne, true);
-            let e: f64 = 1e-6;
-            let at = |r: f64, tt: f64| coulomb_term(r, tt, &ions, ne, true);
-            let dr = (at(rho * e.exp(), t).pressure - at(rho * (-e).exp(), t).pressure) / (2.0 * e);
-            let dt = (at(rho, t * e.exp()).pressure - at(rho, t * (-e).exp()).pressure) / (2.0 * e);
-            let de = (at(rho, t * e.exp()).energy - at(rho, t * (-e).exp()).energy) / (2.0 * e);
-            let scale = c.pressure.abs().max(1e-300);
-            assert!((dr - c.dp_dln_rho).abs() < 1e-5 * scale, "{rho} {t}");
-            assert!((dt - c.dp_dln_t).abs() < 1e-5 * scale, "{rho} {t}");
-            assert!((de - c.de_dln_t).abs() < 1e-5 * c.energy.abs().max(1e-300));
-            // P = rho^2 dF/drho and U = F - T dF/dT.
-            let f = |r: f64, tt: f64| coulomb_free_energy(r, tt, &ions, ne);
-            let df_r = (f(rho * e.exp(), t) - f(rho * (-e).exp(), t)) / (2.0 * e);
-            let df_t = (f(rho, t * e.exp()) - f(rho, t * (-e).exp())) / (2.0 * e);
-            assert!((rho * df_r - c.pressure).abs() < 1e-5 * scale);
-            assert!((f(rho, t) - df_t - c.energy).abs() < 1e-5 * c.energy.abs());
+        let mix = CoulombMixture::new(&ions, 0.7 + 0.14 + 0.00875);
+        for g in [1e-3, 0.05, 0.3, 1.0, 2.0, 5.0] {
+            let c = mix.at(g);
+            let e: f64 = 1e-5;
+            let phi = |x: f64| mix.at(x).free_energy;
+            let d_phi = (phi(g * e.exp()) - phi(g * (-e).exp())) / (2.0 * e);
+            assert!(
+                (d_phi - c.energy).abs() < 1e-7 * c.energy.abs() + 1e-12,
+                "{g}"
+            );
+            let u = |x: f64| mix.at(x).energy;
+            let d_u = (u(g * e.exp()) - u(g * (-e).exp())) / (2.0 * e);
+            assert!((d_u - c.energy_slope).abs() < 1e-7 * c.energy_slope.abs() + 1e-12);
+            // N_e phi with N_e = (Gamma / g)^3: d/dN_e at N_e = 1. phi is a difference of O(1)
+            // terms at small Gamma: 1e-10 absolute resolution of the difference quotient.
+            let total = |n: f64| n * phi(g * n.cbrt());
+            let mu = (total(1.0 + e) - total(1.0 - e)) / (2.0 * e);
+            assert!(
+                (mu - c.chemical_potential()).abs() < 1e-7 * mu.abs() + 1e-10,
+                "{g}: {mu} vs {}",
+                c.chemical_potential()
+            );
+            let m = |x: f64| mix.at(x).chemical_potential();
+            let d_m = (m(g * e.exp()) - m(g * (-e).exp())) / (2.0 * e);
+            let slope = c.chemical_potential_slope();
+            assert!((d_m - slope).abs() < 1e-7 * slope.abs() + 1e-12, "{g}");
         }
+    }
+
+    /// The table against the formula from Gamma = 3e-4 to 3e5. The quintic Hermite remainder
+    /// with spacing h = 1/16 bounds the errors of f, u and Gamma du/dGamma by (h/2)^6/6!,
+    /// (h/2)^5/5! and (h/2)^4/4! times max |f^(6)| (in ln Gamma), about 11.4 |f| where f grows as
+    /// Gamma^(3/2): 1.5e-11 of f, 1.9e-9 of u and 2e-7 of Gamma du/dGamma.
+    #[test]
+    fn table_matches_the_fit() {
+        for i in 0..=20_000 {
+            let x = SERIES_LN_GAMMA + (TABLE_TOP_LN_GAMMA - SERIES_LN_GAMMA) * i as f64 / 20_000.0;
+            let g = x.exp();
+            let [f, u, s] = ocp_at_ln(x);
+            let (u0, du0) = ocp_energy(g);
+            let f0 = ocp_free_energy(g);
+            let s0 = g * du0;
+            assert!((f - f0).abs() < 1.5e-11 * f0.abs(), "f at {g}: {f} {f0}");
+            assert!((u - u0).abs() < 1.9e-9 * u0.abs(), "u at {g}: {u} {u0}");
+            assert!((s - s0).abs() < 2e-7 * s0.abs(), "slope at {g}: {s} {s0}");
+        }
+        // The series against the formula below the table (the series to 1e-13), and continuous
+        // with the table at its end.
+        for g in [1e-8, 1e-6, 1e-4, 2e-4, 2.9e-4] {
+            let [f, u, s] = ocp_series(f64::ln(g));
+            let (u0, du0) = ocp_energy(g);
+            assert!((f / ocp_free_energy(g) - 1.0).abs() < 1e-13, "{g}");
+            assert!((u / u0 - 1.0).abs() < 1e-12 && (s / (g * du0) - 1.0).abs() < 1e-12);
+        }
+        let below = ocp_at_ln(SERIES_LN_GAMMA - 1e-12);
+        let above = ocp_at_ln(SERIES_LN_GAMMA + 1e-12);
+        for k in 0..3 {
+            assert!((below[k] / above[k] - 1.0).abs() < 1e-10, "{k}");
+        }
+        // Above the table: the formula.
+        assert!((ocp_at_ln(13.0)[0] / ocp_free_energy(13f64.exp()) - 1.0).abs() < 1e-15);
+    }
+
+    /// Fully ionised hydrogen: phi is the OCP f of the protons, and Gamma_e = 2.2747e5
+    /// (rho Y_e)^(1/3) / T (docs/references.md §8.2, computed from the constants).
+    #[test]
+    fn pure_hydrogen_is_the_one_component_plasma() {
+        let mix = CoulombMixture::new(&[(1.0, 1.0), (0.0, Z53_HELIUM), (0.0, Z53_METALS)], 1.0);
+        for g in [0.01, 1.0, 10.0] {
+            assert!((mix.at(g).free_energy / ocp_free_energy(g) - 1.0).abs() < 2e-11);
+        }
+        let (rho, t) = (100.0, 1e7);
+        let n_e = rho / crate::constants::M_U_G;
+        let expected = 2.2747e5 * rho.cbrt() / t;
+        assert!((electron_coupling(n_e, t) / expected - 1.0).abs() < 1e-4);
     }
 }

@@ -1,9 +1,7 @@
 //! Solving for the state: charge neutrality at given (rho, T), and the inversion rho(P, T) (a
 //! joint Newton iteration on (ln rho, psi), with a bracketed nested iteration as fallback).
 
-use super::electrons::ElectronIntegrals;
-use super::ionisation::Stages;
-use super::point::{AtPsi, Setup};
+use super::point::{AtPsi, Balance, Setup};
 use super::{Plasma, Solved};
 use crate::constants::{A_RAD_CGS, K_B_ERG_K, M_U_G};
 use crate::error::PhysicsError;
@@ -22,18 +20,18 @@ impl Plasma {
         &self,
         setup: &Setup,
         guess: f64,
-    ) -> Result<(f64, Stages, ElectronIntegrals), PhysicsError> {
-        let (inputs, ln_q_over_n, psi_max) = (&setup.inputs, setup.ln_q_over_n, setup.psi_max);
+    ) -> Result<(f64, Balance), PhysicsError> {
+        let (ln_q_over_n, psi_max) = (setup.ln_q_over_n, setup.psi_max);
         let (rho, t) = (setup.rho, setup.t);
         let mut lo = f64::NEG_INFINITY;
         let mut hi = psi_max;
         let mut psi = guess.min(psi_max);
         for _ in 0..300 {
-            let stages = self.stages(inputs, psi);
-            let el = self.integrals(psi);
+            let b = self.balance(setup, psi);
+            let (stages, el) = (&b.stages, &b.el);
             let g = el.ln_f_half + ln_q_over_n - stages.n_e.ln();
             if g.abs() < 1e-12 {
-                return Ok((psi, stages, el));
+                return Ok((psi, b));
             }
             if g > 0.0 {
                 hi = psi;
@@ -43,7 +41,7 @@ impl Plasma {
             let slope = el.slope_half - stages.d_n_e.psi / stages.n_e;
             let step = g / slope;
             if step.abs() < 1e-13 * (1.0 + psi.abs()) {
-                return Ok((psi, stages, el));
+                return Ok((psi, b));
             }
             let newton = psi - step;
             psi = if newton.is_finite() && newton > lo && newton < hi {
@@ -55,7 +53,7 @@ impl Plasma {
                 psi - (2.0 * (hi - psi)).max(10.0)
             };
             if hi - lo < 1e-13 * (1.0 + psi.abs()) {
-                return Ok((psi, self.stages(inputs, psi), self.integrals(psi)));
+                return Ok((psi, self.balance(setup, psi)));
             }
         }
         Err(self.error("charge neutrality not solved in 300 iterations", rho, t))
@@ -219,21 +217,24 @@ impl Plasma {
                 .setup_with(rho.clamp(rlo, rhi), ln_rho, t, comp, &per_t)
                 .ok()?;
             let ps = psi.unwrap_or(setup.psi_full).min(setup.psi_max);
-            let stages = self.stages(&setup.inputs, ps);
-            let el = self.integrals(ps);
+            let b = self.balance(&setup, ps);
+            let (stages, el) = (&b.stages, &b.el);
             let r2 = el.ln_f_half + setup.ln_q_over_n - stages.n_e.ln();
             let p_e = setup.q * setup.kt * (2.0 / 3.0) * el.f_three_halves;
             let p_ion = setup.rho / M_U_G * stages.n_p * setup.kt;
-            let p_tot = p_e + p_ion + p_rad + setup.coulomb.pressure;
+            let p_tot = p_e + p_ion + p_rad + b.coulomb.pressure;
             let r1 = p_tot.ln() - ln_p;
             if r1.abs() < 1e-12 && r2.abs() < 1e-12 {
                 return self
-                    .finish(&AtPsi::new(&setup, ps, &stages, &el), comp, with_entropy)
+                    .finish(&AtPsi::new(&setup, ps, &b), comp, with_entropy)
                     .ok();
             }
-            let a11 = (p_ion * (1.0 + stages.d_n_p.ln_rho / stages.n_p) + setup.coulomb.dp_dln_rho)
+            // At fixed psi the Coulomb pressure depends on T alone (n_e = q F_1/2(psi)).
+            let a11 = p_ion * (1.0 + stages.d_n_p.ln_rho / stages.n_p) / p_tot;
+            let a12 = (p_e * el.slope_three_halves
+                + p_ion * stages.d_n_p.psi / stages.n_p
+                + b.coulomb.dp.0)
                 / p_tot;
-            let a12 = (p_e * el.slope_three_halves + p_ion * stages.d_n_p.psi / stages.n_p) / p_tot;
             let a21 = -1.0 - stages.d_n_e.ln_rho / stages.n_e;
             let a22 = el.slope_half - stages.d_n_e.psi / stages.n_e;
             let det = a11 * a22 - a12 * a21;

@@ -46,6 +46,7 @@
 //! chi_rho, nabla_ad = P chi_T / (rho T c_P chi_rho), Gamma_1 = chi_rho c_P / c_V
 //! (Kippenhahn & Weigert 1990, §13–14), evaluated in forms free of cancellation.
 
+mod coupling;
 mod electrons;
 mod inversion;
 mod ionisation;
@@ -113,22 +114,28 @@ pub const STRONG_COUPLING_GAMMA_E: f64 = 1.0;
 
 impl Plasma {
     /// Where this engine's laws are used beyond what they describe well: strong electron
-    /// coupling (Gamma_e > [`STRONG_COUPLING_GAMMA_E`]), which a law without the Coulomb term
-    /// neglects, and which the Coulomb term meets only in its switch-on range
-    /// ([`super::coulomb::COULOMB_T_OFF_K`] to [`super::coulomb::COULOMB_T_ON_K`]), where
-    /// `molecular` is least certain.
+    /// coupling (Gamma_e > [`STRONG_COUPLING_GAMMA_E`], with Gamma_e of the fully ionised
+    /// mixture), which a law without the Coulomb term neglects; and, in a law with it, strong
+    /// coupling at the actual free-electron density where the electrons are not degenerate
+    /// (psi < 0): there electron screening, left out of the ions' term, is comparable with the
+    /// term itself, and the gas is partly ionised, where the free-electron share of the Coulomb
+    /// energy is this project's approximation (the hydrogen ionisation zone of M dwarfs). Only
+    /// where the fully ionised Gamma_e exceeds 1 is the balance solved to find out.
     pub fn caution(&self, rho: f64, t: f64, comp: &Composition) -> Option<&'static str> {
         let gamma_e = 2.2747e5 * crate::numerics::cube_root::cbrt(rho / comp.mu_e()) / t;
         if gamma_e <= STRONG_COUPLING_GAMMA_E {
             return None;
         }
         if !self.coulomb {
-            Some("strongly coupled plasma (Gamma_e > 1): Coulomb (non-ideal) terms neglected")
-        } else if t > super::coulomb::COULOMB_T_OFF_K && t < super::coulomb::COULOMB_T_ON_K {
-            Some("strongly coupled plasma (Gamma_e > 1) where the Coulomb term is only partly switched on (1e5-2.5e6 K)")
-        } else {
-            None
+            return Some(
+                "strongly coupled plasma (Gamma_e > 1): Coulomb (non-ideal) terms neglected",
+            );
         }
+        let setup = self.setup(rho, t, comp).ok()?;
+        let (psi, balance) = self.solve_neutrality(&setup, setup.psi_full).ok()?;
+        (balance.coulomb.coupling.gamma_e > STRONG_COUPLING_GAMMA_E && psi < 0.0).then_some(
+            "strongly coupled plasma (Gamma_e > 1) with non-degenerate electrons: electron screening and the partly ionised gas's Coulomb energy only approximated",
+        )
     }
 }
 
@@ -183,8 +190,8 @@ impl Plasma {
         let guess = psi_guess
             .filter(|g| g.is_finite())
             .unwrap_or(setup.psi_full);
-        let (psi, stages, el) = self.solve_neutrality(&setup, guess)?;
-        self.finish(&AtPsi::new(&setup, psi, &stages, &el), comp, false)
+        let (psi, balance) = self.solve_neutrality(&setup, guess)?;
+        self.finish(&AtPsi::new(&setup, psi, &balance), comp, false)
     }
 
     /// Specific internal energy at (rho, T), erg g^-1, counted from the fully ionised plasma at

@@ -1,6 +1,7 @@
 //! Everything the balance needs at one (rho, T) apart from psi ([`Setup`]), the parts of it that
 //! depend on T alone ([`PerTemperature`]), and the balance evaluated at one psi ([`AtPsi`]).
 
+use super::coupling::{CouplingAtPsi, CouplingAtTemperature};
 use super::electrons::ElectronIntegrals;
 use super::electrons::SQRT_PI;
 use super::ionisation::{occupation, pressure_volume, StageInputs, Stages};
@@ -8,9 +9,7 @@ use super::{Ionisation, Plasma, CHI_HE1_EV, CHI_HE2_EV, CHI_H_EV};
 use crate::constants::{EV_ERG, H_ERG_S, K_B_ERG_K, M_E_G, M_U_G};
 use crate::error::PhysicsError;
 use crate::physics::composition::{Composition, METAL_MEAN_MASS_NUMBER};
-use crate::physics::eos::coulomb::{
-    CoulombAtTemperature, CoulombTerm, IonSpecies, Z53_HELIUM, Z53_METALS,
-};
+use crate::physics::eos::coulomb::{IonSpecies, Z53_HELIUM, Z53_METALS};
 use crate::physics::eos::molecular::{MolecularAtTemperature, MolecularInputs};
 
 /// ln(m_u / 1 g), so that ln(rho / m_u) costs no logarithm when ln rho is known.
@@ -24,24 +23,31 @@ pub(super) struct Setup {
     pub(super) kt: f64,
     /// n_e = q F_1/2(psi).
     pub(super) q: f64,
+    pub(super) ln_q: f64,
     pub(super) ln_q_over_n: f64,
     pub(super) psi_full: f64,
     pub(super) psi_max: f64,
     pub(super) inputs: StageInputs,
-    /// The Coulomb term (zero unless the law has it; pressure terms only).
-    pub(super) coulomb: CoulombTerm,
-    /// The Coulomb term's parts that depend on T alone (what the energy terms need of
-    /// [`PerTemperature`]; the rest is not kept, to keep the setup small to copy).
-    pub(super) coulomb_at_t: Option<CoulombAtTemperature>,
+    /// The Coulomb term's parts that depend on T alone (`None` unless the law has it).
+    pub(super) coulomb: Option<CouplingAtTemperature>,
 }
 
 /// The parts of a [`Setup`] that depend on T alone.
 #[derive(Debug, Clone, Copy)]
 pub(super) struct PerTemperature {
     pub(super) molecular: Option<MolecularAtTemperature>,
-    pub(super) coulomb: Option<CoulombAtTemperature>,
+    pub(super) coulomb: Option<CouplingAtTemperature>,
     /// ln q, n_e = q F_1/2(psi).
     pub(super) ln_q: f64,
+}
+
+/// The balance at one psi: the stages (their derivatives at fixed psi, the Coulomb shift
+/// included), the electron integrals and the Coulomb term.
+#[derive(Debug, Clone, Copy)]
+pub(super) struct Balance {
+    pub(super) stages: Stages,
+    pub(super) el: ElectronIntegrals,
+    pub(super) coulomb: CouplingAtPsi,
 }
 
 /// The balance evaluated at one psi: what the state and the entropy are read from.
@@ -51,20 +57,17 @@ pub(super) struct AtPsi<'a> {
     pub(super) psi: f64,
     pub(super) stages: &'a Stages,
     pub(super) el: &'a ElectronIntegrals,
+    pub(super) coulomb: &'a CouplingAtPsi,
 }
 
 impl<'a> AtPsi<'a> {
-    pub(super) fn new(
-        setup: &'a Setup,
-        psi: f64,
-        stages: &'a Stages,
-        el: &'a ElectronIntegrals,
-    ) -> Self {
+    pub(super) fn new(setup: &'a Setup, psi: f64, balance: &'a Balance) -> Self {
         Self {
             setup,
             psi,
-            stages,
-            el,
+            stages: &balance.stages,
+            el: &balance.el,
+            coulomb: &balance.coulomb,
         }
     }
 }
@@ -82,17 +85,21 @@ impl Plasma {
 
     /// What this law computes from T alone (an inversion at fixed T does it once).
     pub(super) fn per_temperature(&self, t: f64, comp: &Composition) -> PerTemperature {
-        // One logarithm of T serves the molecules, the electrons and the Coulomb switch.
+        // One logarithm of T serves the molecules, the electrons and the Coulomb term.
         let ln_t = t.ln();
+        let ln_q = Self::electron_density_coefficient().ln() + 1.5 * ln_t;
         PerTemperature {
             molecular: (self.ionisation == Ionisation::Molecular)
                 .then(|| MolecularAtTemperature::new(t, ln_t)),
-            ln_q: Self::electron_density_coefficient().ln() + 1.5 * ln_t,
-            coulomb: if self.coulomb {
-                CoulombAtTemperature::with_ln(t, ln_t, Self::electrons_fully_ionised(comp))
-            } else {
-                None
-            },
+            ln_q,
+            coulomb: self.coulomb.then(|| {
+                CouplingAtTemperature::new(
+                    ln_t,
+                    ln_q,
+                    &Self::coulomb_ions(comp),
+                    Self::electrons_fully_ionised(comp),
+                )
+            }),
         }
     }
 
@@ -105,19 +112,6 @@ impl Plasma {
     /// Electrons per m_u of the fully ionised mixture, X + Y/2 + Z (1/2 - 1/16).
     pub(super) fn electrons_fully_ionised(comp: &Composition) -> f64 {
         comp.x() + 0.5 * comp.y() + comp.z() * (0.5 - 1.0 / METAL_MEAN_MASS_NUMBER)
-    }
-
-    /// The Coulomb term at `rho` from its temperature parts `at_t` (zero if the law has none or
-    /// the switch is off); `energy` as in [`CoulombAtTemperature::term`].
-    pub(super) fn coulomb_at(
-        rho: f64,
-        comp: &Composition,
-        at_t: Option<&CoulombAtTemperature>,
-        energy: bool,
-    ) -> CoulombTerm {
-        at_t.map_or_else(CoulombTerm::default, |c| {
-            c.term(rho, &Self::coulomb_ions(comp), energy)
-        })
     }
 
     /// The ions of the Coulomb term: H+, He++ and metals of charge 7, per m_u, with Z^(5/3).
@@ -175,22 +169,44 @@ impl Plasma {
                 None => MolecularInputs::default(),
             },
         };
-        let coulomb = Self::coulomb_at(rho, comp, per_t.coulomb.as_ref(), false);
         Ok(Setup {
             rho,
             t,
             kt,
             q,
+            ln_q: per_t.ln_q,
             ln_q_over_n,
             psi_full,
             psi_max,
             inputs,
-            coulomb,
-            coulomb_at_t: per_t.coulomb,
+            coulomb: per_t.coulomb,
         })
     }
 
-    pub(super) fn stages(&self, inputs: &StageInputs, psi: f64) -> Stages {
+    /// The balance at `psi`: the electrons, then (in a law with the Coulomb term) the shift
+    /// mu_C / kT of the electron chemical potential at their density, then the stages at
+    /// psi + shift ([`CouplingAtPsi::chain`]).
+    pub(super) fn balance(&self, setup: &Setup, psi: f64) -> Balance {
+        let el = self.integrals(psi);
+        match &setup.coulomb {
+            Some(at_t) => {
+                let coulomb = at_t.at(&el, setup.ln_q, setup.kt);
+                let stages = coulomb.chain(self.stages(&setup.inputs, psi + coulomb.shift));
+                Balance {
+                    stages,
+                    el,
+                    coulomb,
+                }
+            }
+            None => Balance {
+                stages: self.stages(&setup.inputs, psi),
+                el,
+                coulomb: CouplingAtPsi::default(),
+            },
+        }
+    }
+
+    fn stages(&self, inputs: &StageInputs, psi: f64) -> Stages {
         match self.ionisation {
             Ionisation::Saha => inputs.saha(psi),
             Ionisation::Full => inputs.full(),

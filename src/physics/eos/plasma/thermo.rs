@@ -7,7 +7,6 @@ use super::{Plasma, Solved};
 use crate::constants::{A_RAD_CGS, M_U_G};
 use crate::error::PhysicsError;
 use crate::physics::composition::{Composition, METAL_MEAN_MASS_NUMBER};
-use crate::physics::eos::coulomb::coulomb_free_energy;
 use crate::physics::eos::EosState;
 
 impl Plasma {
@@ -31,20 +30,12 @@ impl Plasma {
         );
         self.check(rho, t)?;
         let setup = self.setup(rho, t, comp)?;
-        let stages = self.stages(&setup.inputs, psi);
-        let el = self.integrals(psi);
-        let u_c = Self::coulomb_at(rho, comp, setup.coulomb_at_t.as_ref(), true).energy;
-        self.entropy_at(&AtPsi::new(&setup, psi, &stages, &el), comp, u_c)
+        let balance = self.balance(&setup, psi);
+        self.entropy_at(&AtPsi::new(&setup, psi, &balance), comp)
     }
 
-    /// The entropy ([`Plasma::specific_entropy`]) at a solved psi, with the Coulomb energy
-    /// `u_c` (erg g^-1) there.
-    pub(super) fn entropy_at(
-        &self,
-        at: &AtPsi,
-        comp: &Composition,
-        u_c: f64,
-    ) -> Result<f64, PhysicsError> {
+    /// The entropy ([`Plasma::specific_entropy`]) at a solved psi.
+    pub(super) fn entropy_at(&self, at: &AtPsi, comp: &Composition) -> Result<f64, PhysicsError> {
         let (setup, psi, stages, el) = (at.setup, at.psi, at.stages, at.el);
         use crate::physics::eos::entropy::{radiation, stage_mixing, translational, K_PER_MU};
         use crate::physics::eos::h2::H_ATOM_MASS_U;
@@ -67,17 +58,8 @@ impl Plasma {
         // T S_e = (5/2) P_e V - N_e k T psi, per m_u: P_e m_u / (rho k T) = (2/3) q F_3/2 m_u / rho.
         let electrons =
             2.5 * (2.0 / 3.0) * setup.q * el.f_three_halves * M_U_G / rho - stages.n_e * psi;
-        let coulomb = if setup.coulomb_at_t.is_some() {
-            let f_c = coulomb_free_energy(
-                rho,
-                t,
-                &Self::coulomb_ions(comp),
-                Self::electrons_fully_ionised(comp),
-            );
-            (u_c - f_c) / t
-        } else {
-            0.0
-        };
+        // (U_C - F_C) / T per gram, U_C = 3 P_C / rho.
+        let coulomb = (3.0 * at.coulomb.pressure - at.coulomb.free_energy_density) / (rho * t);
         let s = K_PER_MU * (hydrogen + helium + metals + molecules + electrons)
             + radiation(rho, t)
             + coulomb;
@@ -98,8 +80,7 @@ impl Plasma {
     ) -> Result<Solved, PhysicsError> {
         let (setup, psi, stages, el) = (at.setup, at.psi, at.stages, at.el);
         let Setup { rho, t, kt, q, .. } = *setup;
-        // The inversion carried the Coulomb pressure only; the energy terms are added here.
-        let coul = &Self::coulomb_at(rho, comp, setup.coulomb_at_t.as_ref(), true);
+        let coul = at.coulomb;
         // Implicit derivatives of psi from G = ln F_1/2 + ln q(T) - ln(rho/m_u) - ln N_e = 0.
         let dln_ne = Grad {
             psi: stages.d_n_e.psi / stages.n_e,
@@ -115,18 +96,21 @@ impl Plasma {
         let p_rad = A_RAD_CGS * t.powi(4) / 3.0;
         let p_gas = p_e + p_ion + coul.pressure;
         let p = p_e + p_ion + p_rad + coul.pressure;
+        // The Coulomb pressure is a function of (psi, T): its derivatives at fixed T and rho.
+        let dpc_rho = coul.dp.0 * psi_rho;
+        let dpc_t = coul.dp.1 + coul.dp.0 * psi_t;
         let dpe_t = 2.5 + el.slope_three_halves * psi_t;
         let dpe_rho = el.slope_three_halves * psi_rho;
         // d ln N_p along (ln T, ln rho) with psi following: 0 unless molecules form.
         let dpi_t = 1.0 + (stages.d_n_p.ln_t + psi_t * stages.d_n_p.psi) / stages.n_p;
         let dpi_rho = 1.0 + (stages.d_n_p.ln_rho + psi_rho * stages.d_n_p.psi) / stages.n_p;
-        let chi_rho = (p_ion * dpi_rho + p_e * dpe_rho + coul.dp_dln_rho) / p;
-        let chi_t = (p_ion * dpi_t + p_e * dpe_t + 4.0 * p_rad + coul.dp_dln_t) / p;
+        let chi_rho = (p_ion * dpi_rho + p_e * dpe_rho + dpc_rho) / p;
+        let chi_t = (p_ion * dpi_t + p_e * dpe_t + 4.0 * p_rad + dpc_t) / p;
         let de_ion_t = stages.d_e_ion.ln_t + psi_t * stages.d_e_ion.psi;
         let cv = (1.5 * (p_ion * dpi_t + p_e * dpe_t) / rho
             + 4.0 * A_RAD_CGS * t.powi(4) / rho
             + de_ion_t / M_U_G
-            + coul.de_dln_t)
+            + 3.0 * dpc_t / rho)
             / t;
         // Forms without cancellation when chi_rho -> 0 (radiation-dominated gas):
         // c_P - c_V = P chi_T^2 / (rho T chi_rho), Gamma_1 = chi_rho + P chi_T^2 / (rho T c_V),
@@ -139,7 +123,7 @@ impl Plasma {
         let u = 1.5 * (p_ion + p_e) / rho
             + A_RAD_CGS * t.powi(4) / rho
             + (stages.e_ion - setup.inputs.ionised_energy()) / M_U_G
-            + coul.energy;
+            + 3.0 * coul.pressure / rho;
         let state = EosState {
             density_g_cm3: rho,
             temperature_k: t,
@@ -172,7 +156,7 @@ impl Plasma {
             ));
         }
         let entropy_erg_g_k = if with_entropy {
-            self.entropy_at(at, comp, coul.energy).ok()
+            self.entropy_at(at, comp).ok()
         } else {
             None
         };

@@ -4,7 +4,7 @@
 //! What the published limits say (docs/references.md §7 and §8.5): about 0.072 M_sun at solar
 //! composition (Chabrier & Baraffe 2000, ARA&A 38, 337 [SECONDARY]), 0.07–0.08 in other studies;
 //! higher for metal-poor stars (0.083 at [M/H] = -1 in the same review [SECONDARY]); the limiting
-//! star is degenerate (psi_c of several), with T_eff above about 2000 K. The refined laws put the
+//! star is degenerate (psi_c of several), with T_eff above about 2000 K, R 0.08–0.10 R_sun. The refined laws put the
 //! solar limit at 0.0782 M_sun (a turning point), inside the published 0.072–0.080.
 
 use std::process::Command;
@@ -75,7 +75,13 @@ fn the_limit_is_a_degenerate_turning_point_and_rises_at_low_metallicity() {
         at_solar.mass_msun
     );
     assert!(at_solar.stopped_by.is_none(), "{:?}", at_solar.stopped_by);
-    assert!(at_solar.model.summary.teff_k > 2000.0);
+    let limiting = &at_solar.model.summary;
+    assert!(limiting.teff_k > 2000.0);
+    // Limiting stars of published models (docs/references.md §8.5 [MEMORY], model-dependent):
+    // R 0.08–0.10 R_sun, log L/L_sun -4.3 to -3.9.
+    assert!((0.08..=0.10).contains(&limiting.radius_rsun));
+    let log_l = limiting.luminosity_lsun.log10();
+    assert!((-4.3..=-3.9).contains(&log_l), "log L {log_l}");
     let tabulated = tabulated_refined_limit_msun(0.70, 0.02).unwrap();
     assert!(
         (tabulated / at_solar.mass_msun - 1.0).abs() < 1e-5,

@@ -41,9 +41,10 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 ///   the metals keep their electrons at 2000–6000 K, where the other laws ionise them fully
 ///   (about 1 per cent in mu).
 /// - **Coulomb**: the ions' one-component-plasma free energy of Potekhin & Chabrier (2000) by
-///   linear mixing, for the fully ionised plasma, switched on between 1e5 and 2.5e6 K
-///   ([`super::coulomb`]); it lowers P by about 1 per cent at the solar centre and 3–5 per cent in
-///   the cores of 0.1–0.3 M_sun stars.
+///   linear mixing, carried by the free electrons and minimised with the ionisation balance
+///   ([`super::coulomb`]): it adds mu_C = kT (phi + u/3) to the electron chemical potential of
+///   every Saha equation (ionising dense gas), lowers P by about 1 per cent at the solar centre
+///   and 3–5 per cent in the cores of 0.1–0.3 M_sun stars, and vanishes in neutral gas.
 ///
 /// Everything follows from one free energy (ideal gases, the Coulomb term, and the occupation
 /// probabilities in the equilibria), so P, chi_rho, chi_T, c_P, nabla_ad and Gamma_1 are
@@ -56,11 +57,10 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 /// where pressure ionisation acts (0.01–30 g/cm^3 with bound H or He left).
 ///
 /// Domain: 1e-15 <= rho <= 1e5 g/cm^3, 1e3 <= T <= 1e9 K (non-relativistic electrons; liquid
-/// ions, no electron screening or exchange; no H2+, H- or H3+ in the balance), except dense warm
-/// matter between 1e5 and 2.5e6 K with Gamma_e above 1.1 for pure helium or 2.0 for X = 0.7 (rho
-/// above ~300 and ~1000 g/cm^3 near 1e6 K; a 0.075 M_sun star reaches Gamma_e = 1.7 there),
-/// where the Coulomb switch meets strong coupling: there the law may return an error (c_V or
-/// chi_rho not positive) instead of an unstable state.
+/// ions, no electron screening or exchange; no H2+, H- or H3+ in the balance). Where the free
+/// electrons are strongly coupled but not degenerate (partly ionised hydrogen near 1e4–2e5 K
+/// and 0.01–1 g/cm^3, met in stars below about 0.25 M_sun) the missing electron screening is
+/// as large as the Coulomb term, and the law says so ([`super::Plasma::caution`]).
 #[derive(Debug, Clone, Copy, Default)]
 pub struct MolecularEos;
 

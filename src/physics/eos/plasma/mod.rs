@@ -34,11 +34,14 @@
 //! Electrons: n_e = (4 / sqrt(pi)) (2 pi m_e k T / h^2)^(3/2) F_1/2(psi) and
 //! P_e = (2/3) (4 / sqrt(pi)) (2 pi m_e k T / h^2)^(3/2) k T F_3/2(psi) (non-relativistic), or
 //! their classical limits F_j -> Gamma(j+1) e^psi. Ions are an ideal gas, P_ion = n_nuc k T;
-//! radiation P_rad = a T^4 / 3. Coulomb corrections are not included.
+//! radiation P_rad = a T^4 / 3. Coulomb corrections only in `molecular` (see [`super::coulomb`] and
+//! `coupling.rs`: the ions' term in the balance).
 //!
 //! psi solves charge neutrality n_e(psi) = (rho / m_u) N_e(psi), a monotone equation in psi
-//! (the left side increases, the right side decreases with psi), by safeguarded Newton iteration
-//! inside a bracket whose upper end is the fully ionised solution.
+//! (the left side increases, the right side decreases with psi; with the Coulomb shift of
+//! `molecular` the right side decreases as long as d(psi + mu_C/kT)/dpsi > 0, which fails only
+//! for non-degenerate electrons at Gamma_e above about 2.5, inside that law's caution), by
+//! safeguarded Newton iteration inside a bracket whose upper end is the fully ionised solution.
 //!
 //! Derivatives are analytic: d psi / d ln rho and d psi / d ln T by implicit differentiation of
 //! the neutrality equation, then chi_rho, chi_T and c_V = (du/dT)_rho with the specific energy

@@ -159,24 +159,41 @@ pub fn ocp_series(ln_gamma: f64) -> [f64; 3] {
 /// Hermite table of the fit ([`crate::numerics::quintic`], built once per process) between
 /// Gamma = 2.96e-4 and 3.4e5; below, the fit's series [`ocp_series`]; above, the formula.
 pub fn ocp_at_ln(ln_gamma: f64) -> [f64; 3] {
+    ocp_at_ln_in(ocp_table(), ln_gamma)
+}
+
+/// The table of [`ocp_at_ln`], built on first use (`None` only if it could not be built, when
+/// the formula and the series serve).
+fn ocp_table() -> Option<&'static QuinticTable> {
     static TABLE: OnceLock<Option<QuinticTable>> = OnceLock::new();
-    let formula = |x: f64| {
-        let g = x.exp();
-        let (u, du) = ocp_energy(g);
-        [ocp_free_energy(g), u, g * du]
-    };
+    TABLE
+        .get_or_init(|| {
+            QuinticTable::new(
+                SERIES_LN_GAMMA,
+                TABLE_TOP_LN_GAMMA,
+                TABLE_INTERVALS,
+                ocp_formula,
+            )
+        })
+        .as_ref()
+}
+
+/// (f, u, Gamma du/dGamma) from the formula at x = ln Gamma.
+fn ocp_formula(ln_gamma: f64) -> [f64; 3] {
+    let g = ln_gamma.exp();
+    let (u, du) = ocp_energy(g);
+    [ocp_free_energy(g), u, g * du]
+}
+
+/// [`ocp_at_ln`] with the table given (a mixture looks it up once for all its species).
+#[inline]
+fn ocp_at_ln_in(table: Option<&QuinticTable>, ln_gamma: f64) -> [f64; 3] {
     if ln_gamma <= SERIES_LN_GAMMA {
         return ocp_series(ln_gamma);
     }
-    let table = TABLE.get_or_init(|| {
-        QuinticTable::new(SERIES_LN_GAMMA, TABLE_TOP_LN_GAMMA, TABLE_INTERVALS, |x| {
-            formula(x)
-        })
-    });
     table
-        .as_ref()
         .and_then(|t| t.at(ln_gamma))
-        .unwrap_or_else(|| formula(ln_gamma))
+        .unwrap_or_else(|| ocp_formula(ln_gamma))
 }
 
 /// Ion species for the mixture: (ions per m_u, Z^(5/3) of the charge Z).
@@ -234,11 +251,12 @@ impl CoulombMixture {
     /// table of [`ocp_at_ln`].
     pub fn at_ln(&self, ln_gamma_e: f64, gamma_e: f64) -> Coupling {
         let (mut phi, mut u, mut slope) = (0.0, 0.0, 0.0);
+        let table = ocp_table();
         for (&(w, _), &ln_z53) in self.species.iter().zip(&self.ln_z53) {
             if w <= 0.0 {
                 continue;
             }
-            let [f_j, u_j, s_j] = ocp_at_ln(ln_gamma_e + ln_z53);
+            let [f_j, u_j, s_j] = ocp_at_ln_in(table, ln_gamma_e + ln_z53);
             phi += w * f_j;
             u += w * u_j;
             slope += w * s_j;

@@ -12,6 +12,8 @@ pub(super) struct CouplingAtTemperature {
     mixture: CoulombMixture,
     /// ln Gamma_e - (1/3) ln F_1/2(psi) = ln[e^2 (4 pi/3)^(1/3) / (kT)] + (1/3) ln q.
     ln_gamma_base: f64,
+    /// n_e / Gamma_e^3 = (3 / (4 pi)) (kT / e^2)^3, cm^-3.
+    density_per_gamma_cubed: f64,
 }
 
 /// The Coulomb term at one psi.
@@ -35,22 +37,26 @@ impl CouplingAtTemperature {
     /// At temperature T (`ln_t` = ln T) with `ln_q` = ln q (n_e = q F_1/2), for the fully ionised
     /// `ions` with `electrons_per_mu` electrons per m_u.
     pub(super) fn new(ln_t: f64, ln_q: f64, ions: &IonSpecies, electrons_per_mu: f64) -> Self {
+        let ln_gamma_base = ln_coupling_constant() - ln_t + ln_q / 3.0;
         Self {
             mixture: CoulombMixture::new(ions, electrons_per_mu),
-            ln_gamma_base: ln_coupling_constant() - ln_t + ln_q / 3.0,
+            ln_gamma_base,
+            // Gamma_e = exp(ln_gamma_base) F_1/2^(1/3) and n_e = q F_1/2.
+            density_per_gamma_cubed: (ln_q - 3.0 * ln_gamma_base).exp(),
         }
     }
 
-    /// The term at one psi with electron integrals `el`, `ln_q` = ln q and `kt` = kT (erg).
+    /// The term at one psi with electron integrals `el` and `kt` = kT (erg).
     ///
     /// With n = q F_1/2: d ln n / d psi = s (the slope of ln F_1/2), d ln n / d ln T = 3/2 at
     /// fixed psi, so d ln Gamma_e / d psi = s/3 and d ln Gamma_e / d ln T = -1/2. Then
     /// dP_C/dpsi = (n kT s / 3)(u + G u'/3) and dP_C/dln T = (n kT / 3)(5u/2 - G u'/2).
-    pub(super) fn at(&self, el: &ElectronIntegrals, ln_q: f64, kt: f64) -> CouplingAtPsi {
+    pub(super) fn at(&self, el: &ElectronIntegrals, kt: f64) -> CouplingAtPsi {
         use crate::numerics::exponential::FastExp;
         let ln_gamma_e = self.ln_gamma_base + el.ln_f_half / 3.0;
-        let n_e = (ln_q + el.ln_f_half).fast_exp();
-        let coupling = self.mixture.at_ln(ln_gamma_e, ln_gamma_e.fast_exp());
+        let gamma_e = ln_gamma_e.fast_exp();
+        let n_e = self.density_per_gamma_cubed * gamma_e * gamma_e * gamma_e;
+        let coupling = self.mixture.at_ln(ln_gamma_e, gamma_e);
         let (u, slope) = (coupling.energy, coupling.energy_slope);
         let s = el.slope_half;
         let m_slope = coupling.chemical_potential_slope();

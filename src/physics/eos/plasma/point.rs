@@ -23,7 +23,6 @@ pub(super) struct Setup {
     pub(super) kt: f64,
     /// n_e = q F_1/2(psi).
     pub(super) q: f64,
-    pub(super) ln_q: f64,
     pub(super) ln_q_over_n: f64,
     pub(super) psi_full: f64,
     pub(super) psi_max: f64,
@@ -174,7 +173,6 @@ impl Plasma {
             t,
             kt,
             q,
-            ln_q: per_t.ln_q,
             ln_q_over_n,
             psi_full,
             psi_max,
@@ -190,7 +188,7 @@ impl Plasma {
         let el = self.integrals(psi);
         match &setup.coulomb {
             Some(at_t) => {
-                let coulomb = at_t.at(&el, setup.ln_q, setup.kt);
+                let coulomb = at_t.at(&el, setup.kt);
                 let stages = coulomb.chain(self.stages(&setup.inputs, psi + coulomb.shift));
                 Balance {
                     stages,

@@ -120,6 +120,20 @@ const TABLE_TOP_LN_GAMMA: f64 = 12.75;
 /// Gamma du/dGamma are below 1.5e-11, 1.9e-9 and 2e-7 of them (tested against the formula).
 const TABLE_INTERVALS: usize = 334;
 
+/// The coefficients of G^(3/2), G^2, G^(5/2), ..., G^(9/2) in [`ocp_series`]:
+/// c3 = -1/sqrt(3), d2 = B1/(2 B2) + B3/(2 B4), c5 = -(A1/A2^(3/2) + 2 A3)/5, d3 = -B1/(3 B2^2),
+/// c7 = (3/28) A1/A2^(5/2) + (2/7) A3, d4 = -B3/(4 B4^2), c9 = -(5/72) A1/A2^(7/2) - (2/9) A3
+/// (evaluated in 40-digit arithmetic; a test checks them against these expressions).
+const SERIES_COEFFICIENTS: [f64; 7] = [
+    -0.577_350_269_189_625_8,
+    -0.011_338_116_057_233_704,
+    0.252_814_618_096_275_6,
+    -5.190_311_418_685_121e-8,
+    -0.230_878_797_869_013_2,
+    1.533_966_398_831_263_7,
+    0.258_271_485_344_172_1,
+];
+
 /// The fit's expansion at small Gamma, with its derivatives in ln Gamma:
 /// f = -G^(3/2)/sqrt(3) + c5 G^(5/2) + c7 G^(7/2) + c9 G^(9/2) + d2 G^2 + d3 G^3 + d4 G^4, from
 /// y sqrt(1 + y^2) - asinh y = (2/3) y^3 - y^5/5 + (3/28) y^7 - (5/72) y^9 (y^2 = G/A2),
@@ -127,29 +141,17 @@ const TABLE_INTERVALS: usize = 334;
 /// terms are below 1e-13 of f for Gamma < 3e-4 (checked against 40-digit arithmetic when
 /// written).
 pub fn ocp_series(ln_gamma: f64) -> [f64; 3] {
-    let a3 = a3();
-    let c3 = -1.0 / 3f64.sqrt();
-    let c5 = -(A1 / A2.powf(1.5) + 2.0 * a3) / 5.0;
-    let c7 = 3.0 / 28.0 * A1 / A2.powf(2.5) + 2.0 / 7.0 * a3;
-    let c9 = -5.0 / 72.0 * A1 / A2.powf(3.5) - 2.0 / 9.0 * a3;
-    let d2 = B1 / (2.0 * B2) + B3 / (2.0 * B4);
-    let d3 = -B1 / (3.0 * B2 * B2);
-    let d4 = -B3 / (4.0 * B4 * B4);
-    let terms = [
-        (c3, 1.5),
-        (d2, 2.0),
-        (c5, 2.5),
-        (d3, 3.0),
-        (c7, 3.5),
-        (d4, 4.0),
-        (c9, 4.5),
-    ];
+    // Powers of sqrt(Gamma) by multiplication from one exponential.
+    let r = (0.5 * ln_gamma).exp();
+    let (mut power, mut k) = (r * r * r, 1.5);
     let mut out = [0.0; 3];
-    for (c, k) in terms {
-        let t = c * (k * ln_gamma).exp();
+    for c in SERIES_COEFFICIENTS {
+        let t = c * power;
         out[0] += t;
         out[1] += k * t;
         out[2] += k * k * t;
+        power *= r;
+        k += 0.5;
     }
     out
 }
@@ -384,6 +386,24 @@ mod tests {
         }
         // Above the table: the formula.
         assert!((ocp_at_ln(13.0)[0] / ocp_free_energy(13f64.exp()) - 1.0).abs() < 1e-15);
+    }
+
+    /// The series' coefficients are the expressions of the fit's constants they stand for.
+    #[test]
+    fn series_coefficients_are_those_of_the_fit() {
+        let a3 = a3();
+        let expected = [
+            -1.0 / 3f64.sqrt(),
+            B1 / (2.0 * B2) + B3 / (2.0 * B4),
+            -(A1 / A2.powf(1.5) + 2.0 * a3) / 5.0,
+            -B1 / (3.0 * B2 * B2),
+            3.0 / 28.0 * A1 / A2.powf(2.5) + 2.0 / 7.0 * a3,
+            -B3 / (4.0 * B4 * B4),
+            -5.0 / 72.0 * A1 / A2.powf(3.5) - 2.0 / 9.0 * a3,
+        ];
+        for (c, e) in SERIES_COEFFICIENTS.iter().zip(expected) {
+            assert!((c / e - 1.0).abs() < 1e-14, "{c} vs {e}");
+        }
     }
 
     /// Fully ionised hydrogen: phi is the OCP f of the protons, and Gamma_e = 2.2747e5

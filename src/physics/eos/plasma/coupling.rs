@@ -75,7 +75,7 @@ impl CouplingAtTemperature {
 impl CouplingAtPsi {
     /// The stages found at psi + shift, with their derivatives turned into derivatives at fixed
     /// psi: d/dpsi = (1 + dshift/dpsi) d/dpsi', d/dln T = d/dln T|psi' + (dshift/dln T) d/dpsi'.
-    pub(super) fn chain(&self, mut stages: Stages) -> Stages {
+    pub(super) fn chain(&self, stages: &mut Stages) {
         let (dp, dt) = self.d_shift;
         let turn = |g: &mut Grad| {
             g.ln_t += g.psi * dt;
@@ -84,6 +84,5 @@ impl CouplingAtPsi {
         turn(&mut stages.d_n_e);
         turn(&mut stages.d_n_p);
         turn(&mut stages.d_e_ion);
-        stages
     }
 }

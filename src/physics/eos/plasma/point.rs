@@ -189,7 +189,8 @@ impl Plasma {
         match &setup.coulomb {
             Some(at_t) => {
                 let coulomb = at_t.at(&el, setup.kt);
-                let stages = coulomb.chain(self.stages(&setup.inputs, psi + coulomb.shift));
+                let mut stages = self.stages(&setup.inputs, psi + coulomb.shift);
+                coulomb.chain(&mut stages);
                 Balance {
                     stages,
                     el,

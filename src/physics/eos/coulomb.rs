@@ -35,8 +35,6 @@
 //! than the electrons' own pressure where Gamma_e < 3 (tested over the law's domain).
 
 use crate::constants::{E_ESU, K_B_ERG_K};
-use crate::numerics::quintic::QuinticTable;
-use std::sync::OnceLock;
 
 const A1: f64 = -0.907_347;
 const A2: f64 = 0.628_49;
@@ -111,14 +109,9 @@ pub fn ocp_energy(gamma: f64) -> (f64, f64) {
     (u, du)
 }
 
-/// ln Gamma of the lower end of the table of f ([`ocp_at_ln`]), Gamma = 2.96e-4: below it the
-/// fit's series ([`ocp_series`]), exact to 1e-13 there.
+/// ln Gamma below which [`ocp_exact`] uses the fit's series ([`ocp_series`], exact to 1e-13
+/// there), Gamma = 2.96e-4.
 const SERIES_LN_GAMMA: f64 = -8.125;
-/// ln Gamma of the upper end of the table, Gamma = 3.4e5 (above it, the formula).
-const TABLE_TOP_LN_GAMMA: f64 = 12.75;
-/// Intervals of the table: spacing 1/16 in ln Gamma, where the interpolation errors of f, u and
-/// Gamma du/dGamma are below 1.5e-11, 1.9e-9 and 2e-7 of them (tested against the formula).
-const TABLE_INTERVALS: usize = 334;
 
 /// The coefficients of G^(3/2), G^2, G^(5/2), ..., G^(9/2) in [`ocp_series`]:
 /// c3 = -1/sqrt(3), d2 = B1/(2 B2) + B3/(2 B4), c5 = -(A1/A2^(3/2) + 2 A3)/5, d3 = -B1/(3 B2^2),
@@ -156,46 +149,16 @@ pub fn ocp_series(ln_gamma: f64) -> [f64; 3] {
     out
 }
 
-/// The OCP's (f, u, Gamma du/dGamma) at x = ln Gamma: the value and first two derivatives of f
-/// in ln Gamma, so that the three are derivatives of one function to rounding. From a quintic
-/// Hermite table of the fit ([`crate::numerics::quintic`], built once per process) between
-/// Gamma = 2.96e-4 and 3.4e5; below, the fit's series [`ocp_series`]; above, the formula.
-pub fn ocp_at_ln(ln_gamma: f64) -> [f64; 3] {
-    ocp_at_ln_in(ocp_table(), ln_gamma)
-}
-
-/// The table of [`ocp_at_ln`], built on first use (`None` only if it could not be built, when
-/// the formula and the series serve).
-fn ocp_table() -> Option<&'static QuinticTable> {
-    static TABLE: OnceLock<Option<QuinticTable>> = OnceLock::new();
-    TABLE
-        .get_or_init(|| {
-            QuinticTable::new(
-                SERIES_LN_GAMMA,
-                TABLE_TOP_LN_GAMMA,
-                TABLE_INTERVALS,
-                ocp_formula,
-            )
-        })
-        .as_ref()
-}
-
-/// (f, u, Gamma du/dGamma) from the formula at x = ln Gamma.
-fn ocp_formula(ln_gamma: f64) -> [f64; 3] {
-    let g = ln_gamma.exp();
-    let (u, du) = ocp_energy(g);
-    [ocp_free_energy(g), u, g * du]
-}
-
-/// [`ocp_at_ln`] with the table given (a mixture looks it up once for all its species).
-#[inline]
-fn ocp_at_ln_in(table: Option<&QuinticTable>, ln_gamma: f64) -> [f64; 3] {
+/// The OCP's (f, u, Gamma du/dGamma) at x = ln Gamma: the value and the first two derivatives
+/// of f in ln Gamma, from the fit's series below Gamma = 2.96e-4 ([`ocp_series`]) and its
+/// formula above ([`ocp_free_energy`], [`ocp_energy`]).
+pub fn ocp_exact(ln_gamma: f64) -> [f64; 3] {
     if ln_gamma <= SERIES_LN_GAMMA {
         return ocp_series(ln_gamma);
     }
-    table
-        .and_then(|t| t.at(ln_gamma))
-        .unwrap_or_else(|| ocp_formula(ln_gamma))
+    let g = ln_gamma.exp();
+    let (u, du) = ocp_energy(g);
+    [ocp_free_energy(g), u, g * du]
 }
 
 /// Ion species for the mixture: (ions per m_u, Z^(5/3) of the charge Z).
@@ -249,26 +212,40 @@ impl CoulombMixture {
         self.at_ln(gamma_e.ln(), gamma_e)
     }
 
-    /// The coupling functions at ln Gamma_e = `ln_gamma_e` (Gamma_e = `gamma_e`), from the
-    /// table of [`ocp_at_ln`].
+    /// The coupling functions at ln Gamma_e = `ln_gamma_e` (Gamma_e = `gamma_e`): from this
+    /// mixture's table ([`super::coulomb_table`]) inside its range, else summed from
+    /// [`ocp_exact`].
     pub fn at_ln(&self, ln_gamma_e: f64, gamma_e: f64) -> Coupling {
-        let (mut phi, mut u, mut slope) = (0.0, 0.0, 0.0);
-        let table = ocp_table();
-        for (&(w, _), &ln_z53) in self.species.iter().zip(&self.ln_z53) {
-            if w <= 0.0 {
-                continue;
-            }
-            let [f_j, u_j, s_j] = ocp_at_ln_in(table, ln_gamma_e + ln_z53);
-            phi += w * f_j;
-            u += w * u_j;
-            slope += w * s_j;
-        }
+        let [phi, u, slope] = super::coulomb_table::mixture_at(self, ln_gamma_e)
+            .unwrap_or_else(|| self.exact_at_ln(ln_gamma_e));
         Coupling {
             gamma_e,
             free_energy: phi,
             energy: u,
             energy_slope: slope,
         }
+    }
+
+    /// (phi, u_phi, Gamma_e du_phi/dGamma_e) at ln Gamma_e summed over the species from the
+    /// fit itself (what the table of [`super::coulomb_table`] is built from).
+    pub fn exact_at_ln(&self, ln_gamma_e: f64) -> [f64; 3] {
+        let mut out = [0.0; 3];
+        for (&(w, _), &ln_z53) in self.species.iter().zip(&self.ln_z53) {
+            if w <= 0.0 {
+                continue;
+            }
+            let v = ocp_exact(ln_gamma_e + ln_z53);
+            for k in 0..3 {
+                out[k] += w * v[k];
+            }
+        }
+        out
+    }
+
+    /// The bits of the mixture's weights and charges: what identifies its table.
+    pub fn key(&self) -> [u64; 6] {
+        let [(w0, z0), (w1, z1), (w2, z2)] = self.species;
+        [w0, z0, w1, z1, w2, z2].map(f64::to_bits)
     }
 }
 
@@ -354,38 +331,21 @@ mod tests {
         }
     }
 
-    /// The table against the formula from Gamma = 3e-4 to 3e5. The quintic Hermite remainder
-    /// with spacing h = 1/16 bounds the errors of f, u and Gamma du/dGamma by (h/2)^6/6!,
-    /// (h/2)^5/5! and (h/2)^4/4! times max |f^(6)| (in ln Gamma), about 11.4 |f| where f grows as
-    /// Gamma^(3/2): 1.5e-11 of f, 1.9e-9 of u and 2e-7 of Gamma du/dGamma.
+    /// The series against the formula below 3e-4 (the series to 1e-13), and [`ocp_exact`]
+    /// continuous where it changes from one to the other.
     #[test]
-    fn table_matches_the_fit() {
-        for i in 0..=20_000 {
-            let x = SERIES_LN_GAMMA + (TABLE_TOP_LN_GAMMA - SERIES_LN_GAMMA) * i as f64 / 20_000.0;
-            let g = x.exp();
-            let [f, u, s] = ocp_at_ln(x);
-            let (u0, du0) = ocp_energy(g);
-            let f0 = ocp_free_energy(g);
-            let s0 = g * du0;
-            assert!((f - f0).abs() < 1.5e-11 * f0.abs(), "f at {g}: {f} {f0}");
-            assert!((u - u0).abs() < 1.9e-9 * u0.abs(), "u at {g}: {u} {u0}");
-            assert!((s - s0).abs() < 2e-7 * s0.abs(), "slope at {g}: {s} {s0}");
-        }
-        // The series against the formula below the table (the series to 1e-13), and continuous
-        // with the table at its end.
+    fn series_matches_the_fit() {
         for g in [1e-8, 1e-6, 1e-4, 2e-4, 2.9e-4] {
             let [f, u, s] = ocp_series(f64::ln(g));
             let (u0, du0) = ocp_energy(g);
             assert!((f / ocp_free_energy(g) - 1.0).abs() < 1e-13, "{g}");
             assert!((u / u0 - 1.0).abs() < 1e-12 && (s / (g * du0) - 1.0).abs() < 1e-12);
         }
-        let below = ocp_at_ln(SERIES_LN_GAMMA - 1e-12);
-        let above = ocp_at_ln(SERIES_LN_GAMMA + 1e-12);
+        let below = ocp_exact(SERIES_LN_GAMMA - 1e-12);
+        let above = ocp_exact(SERIES_LN_GAMMA + 1e-12);
         for k in 0..3 {
             assert!((below[k] / above[k] - 1.0).abs() < 1e-10, "{k}");
         }
-        // Above the table: the formula.
-        assert!((ocp_at_ln(13.0)[0] / ocp_free_energy(13f64.exp()) - 1.0).abs() < 1e-15);
     }
 
     /// The series' coefficients are the expressions of the fit's constants they stand for.

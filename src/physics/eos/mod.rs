@@ -9,6 +9,7 @@ use crate::constants::{A_RAD_CGS, K_B_ERG_K, M_U_G};
 use crate::error::PhysicsError;
 
 pub mod coulomb;
+pub mod coulomb_table;
 pub mod degenerate;
 mod entropy;
 pub mod fermi_dirac;

@@ -243,11 +243,20 @@ pub(crate) struct FineSolution<'a> {
 
 impl<'a> FineSolution<'a> {
     /// Integrate both legs of the model with unknowns `u` fitted at mass fraction `q` once
-    /// more, keeping every step's dense output.
-    pub fn new(ctx: &'a LegContext<'a>, u: &Unknowns, q: f64) -> LegResult<Self> {
+    /// more, keeping every step's dense output; from the photosphere `top` if it is known (it
+    /// must be the one at `u` and `ctx.tolerance`), else from one computed here.
+    pub fn new(
+        ctx: &'a LegContext<'a>,
+        u: &Unknowns,
+        q: f64,
+        top: Option<&SurfaceStart>,
+    ) -> LegResult<Self> {
         let mut runner = LegRunner::new(*ctx)?;
         let start = centre::start(ctx, u[0], u[1])?;
-        let top = surface::start(ctx, u[2], u[3])?;
+        let top = match top {
+            Some(top) => top.clone(),
+            None => surface::start(ctx, u[2], u[3])?,
+        };
         let mut out_steps = Vec::new();
         let mut in_steps = Vec::new();
         runner.integrate(

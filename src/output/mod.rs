@@ -8,6 +8,7 @@ pub mod format;
 pub mod limits;
 pub mod meta;
 pub mod modes;
+pub mod number_text;
 pub mod pending;
 pub mod plot;
 pub mod polytrope;

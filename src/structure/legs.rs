@@ -600,6 +600,12 @@ impl LegSolution {
         self.steps.get(i).map(|s| s.dense.evaluate(x))
     }
 
+    /// Component `k` of the state at `x` by the dense output of step `i` (extrapolated outside
+    /// its interval): [`LegSolution::at_step`]'s value of that component.
+    pub fn component_at_step(&self, i: usize, x: f64, k: usize) -> Option<f64> {
+        self.steps.get(i).map(|s| s.dense.evaluate_component(x, k))
+    }
+
     /// The state at `x` by the dense output of the step that holds it (the first or last step
     /// for a point outside the integrated range, which is then extrapolated).
     pub fn at(&self, x: f64) -> Option<State> {

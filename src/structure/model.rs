@@ -6,8 +6,9 @@ use super::legs::{Cautions, LegContext};
 use super::profile::{self, ProfileGrid, ProfileRow};
 use super::shooting::{LegEnds, Unknowns};
 use super::summary::ModelSummary;
+use super::surface::{self, SurfaceStart};
 use super::zones::{convective_zones, extent_from_zones};
-use super::{centre, surface, ZamsSettings};
+use super::{centre, ZamsSettings};
 use crate::constants::{G_CGS, L_SUN_ERG_S, R_SUN_CM, YEAR_S};
 use crate::error::Result;
 use crate::numerics::newton::IterationRecord;
@@ -49,6 +50,10 @@ pub struct ZamsModel {
     /// applied) or the mass range its set of laws has been compared with measured stars on;
     /// empty when neither.
     pub warnings: Vec<String>,
+    /// The photosphere of the converged legs, with the unknowns and the tolerance it was
+    /// computed at: a profile at those starts from it instead of integrating the atmosphere
+    /// again (the same computation, so the same numbers).
+    photosphere: (Unknowns, f64, SurfaceStart),
 }
 
 /// The masses on which the `refined` set has been compared with measured stars and published
@@ -126,12 +131,15 @@ impl ZamsModel {
         let points = profile::check_profile_points(points)?;
         let mut ctx = self.settings.context();
         ctx.tolerance = self.stats.tolerance;
+        let (u, tolerance, top) = &self.photosphere;
+        let known_top = (*u == self.unknowns && *tolerance == ctx.tolerance).then_some(top);
         Ok(profile::profile(
             &ctx,
             &self.unknowns,
             self.fit_mass_fraction(),
             grid,
             points,
+            known_top,
         )?)
     }
 }
@@ -155,6 +163,7 @@ pub(crate) fn build(
             settings.fit_mass_fraction(),
             ProfileGrid::Auto,
             profile::DEFAULT_PROFILE_POINTS,
+            (legs.tolerance == ctx.tolerance).then_some(&legs.top),
         )?;
         profile::convective_extent(&rows)
     } else {
@@ -205,6 +214,7 @@ pub(crate) fn build(
         unknowns: u,
         history,
         warnings: warnings(settings, &legs.cautions),
+        photosphere: (u, legs.tolerance, legs.top.clone()),
     })
 }
 
@@ -234,6 +244,37 @@ mod tests {
         assert_eq!(
             extent_from_zones(&convective_zones(false, &[0.5, 0.9])),
             (0.0, 0.0)
+        );
+    }
+
+    /// The photosphere a model keeps for its profiles is the one computed again at its unknowns
+    /// and tolerance (so a profile from it has the same numbers), and a profile at other
+    /// unknowns does not use it.
+    #[test]
+    fn the_kept_photosphere_is_the_recomputed_one() {
+        let settings = ZamsSettings::new(
+            1.0,
+            Composition::new(0.70, 0.02).unwrap(),
+            crate::physics::PhysicsSet::refined(),
+        )
+        .unwrap();
+        let mut model = crate::structure::solve(&settings).unwrap();
+        let mut ctx = settings.context();
+        ctx.tolerance = model.stats.tolerance;
+        let u = model.unknowns;
+        let (kept_u, kept_tolerance, kept_top) = model.photosphere.clone();
+        assert_eq!((kept_u, kept_tolerance), (u, ctx.tolerance));
+        assert_eq!(kept_top, surface::start(&ctx, u[2], u[3]).unwrap());
+        let rows = model.profile_on(ProfileGrid::Auto, 40).unwrap();
+        // Another radius: the profile's photosphere moves with it.
+        model.unknowns[2] += 1e-3;
+        let moved = model.profile_on(ProfileGrid::Auto, 40).unwrap();
+        // The last row's radius is e^(ln R): the ratio is e^(1e-3) to a few roundings.
+        const ROUNDING: f64 = 1e-14;
+        let (r, moved_r) = (rows[39].radius_cm, moved[39].radius_cm);
+        assert!(
+            (moved_r / r - 1e-3f64.exp()).abs() < ROUNDING,
+            "{r} {moved_r}"
         );
     }
 }

@@ -8,6 +8,7 @@ use super::legs::{LegContext, LegResult};
 pub use super::profile_mesh::ProfileGrid;
 use super::profile_mesh::{FineSolution, Place, Structure};
 use super::shooting::Unknowns;
+use super::surface::SurfaceStart;
 use super::zones::{convective_zones, extent_from_zones};
 use crate::constants::G_CGS;
 use crate::error::{Error, Result};
@@ -251,15 +252,17 @@ pub fn convective_extent(profile: &[ProfileRow]) -> (f64, f64) {
 
 /// The profile of the model with unknowns `u` fitted at mass fraction `q`, on `total` rows
 /// placed by `grid`: each leg is integrated once more, keeping every accepted step's dense
-/// output, and the rows are read off that solution.
+/// output, and the rows are read off that solution; `top` is the photosphere at `u` and
+/// `ctx.tolerance` when it is known (else it is computed).
 pub(crate) fn profile(
     ctx: &LegContext,
     u: &Unknowns,
     q: f64,
     grid: ProfileGrid,
     total: usize,
+    top: Option<&SurfaceStart>,
 ) -> LegResult<Vec<ProfileRow>> {
-    let fine = FineSolution::new(ctx, u, q)?;
+    let fine = FineSolution::new(ctx, u, q, top)?;
     let places = fine.places(grid, total);
     let mut rows = Vec::with_capacity(places.len());
     let mut history = History::default();

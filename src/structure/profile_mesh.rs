@@ -145,11 +145,17 @@ impl LegTrack {
         for i in 0..n {
             if let Some((a, b)) = solution.step_interval(i) {
                 cumulative.push(sum);
-                nodes.push((a, solution.at_step(i, a).map_or(f64::NAN, |y| y[LN_R])));
+                nodes.push((
+                    a,
+                    solution.component_at_step(i, a, LN_R).unwrap_or(f64::NAN),
+                ));
                 sum += Self::gauss(&solution, i, a, b, total_mass_g);
                 if i + 1 == n {
                     cumulative.push(sum);
-                    nodes.push((b, solution.at_step(i, b).map_or(f64::NAN, |y| y[LN_R])));
+                    nodes.push((
+                        b,
+                        solution.component_at_step(i, b, LN_R).unwrap_or(f64::NAN),
+                    ));
                 }
             }
         }
@@ -168,8 +174,8 @@ impl LegTrack {
             .map(|&(t, w)| {
                 let x = mid + half * t;
                 w * solution
-                    .at_step(i, x)
-                    .map_or(f64::NAN, |y| (x - y[LN_R]).exp())
+                    .component_at_step(i, x, LN_R)
+                    .map_or(f64::NAN, |ln_r| (x - ln_r).exp())
             })
             .sum();
         total_mass_g * half * sum
@@ -199,7 +205,11 @@ impl LegTrack {
         let i = k - 1;
         let (a, b) = (self.nodes[i].0, self.nodes[k].0);
         let g = |x: f64| -> std::result::Result<f64, ()> {
-            Ok(self.solution.at_step(i, x).map_or(f64::NAN, |y| y[LN_R]) - ln_r)
+            Ok(self
+                .solution
+                .component_at_step(i, x, LN_R)
+                .unwrap_or(f64::NAN)
+                - ln_r)
         };
         let (ga, gb) = (g(a).unwrap_or(f64::NAN), g(b).unwrap_or(f64::NAN));
         if ga * gb > 0.0 || ga.is_nan() || gb.is_nan() {
@@ -233,11 +243,20 @@ pub(crate) struct FineSolution<'a> {
 
 impl<'a> FineSolution<'a> {
     /// Integrate both legs of the model with unknowns `u` fitted at mass fraction `q` once
-    /// more, keeping every step's dense output.
-    pub fn new(ctx: &'a LegContext<'a>, u: &Unknowns, q: f64) -> LegResult<Self> {
+    /// more, keeping every step's dense output; from the photosphere `top` if it is known (it
+    /// must be the one at `u` and `ctx.tolerance`), else from one computed here.
+    pub fn new(
+        ctx: &'a LegContext<'a>,
+        u: &Unknowns,
+        q: f64,
+        top: Option<&SurfaceStart>,
+    ) -> LegResult<Self> {
         let mut runner = LegRunner::new(*ctx)?;
         let start = centre::start(ctx, u[0], u[1])?;
-        let top = surface::start(ctx, u[2], u[3])?;
+        let top = match top {
+            Some(top) => top.clone(),
+            None => surface::start(ctx, u[2], u[3])?,
+        };
         let mut out_steps = Vec::new();
         let mut in_steps = Vec::new();
         runner.integrate(

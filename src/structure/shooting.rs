@@ -5,7 +5,7 @@
 use super::centre;
 use super::equations::{State, LUM};
 use super::legs::{Cautions, Leg, LegContext, LegEnd, LegResult, LegRunner};
-use super::surface;
+use super::surface::{self, SurfaceStart};
 use crate::error::LegError;
 use crate::numerics::newton::NewtonProblem;
 use nalgebra::{SMatrix, SVector};
@@ -28,6 +28,8 @@ pub struct LegEnds {
     pub boundary_limit_reached: bool,
     /// The laws' cautions met on both legs and in the atmosphere.
     pub cautions: Cautions,
+    /// The photosphere the inward leg started from.
+    pub top: SurfaceStart,
 }
 
 /// The finest integrator tolerance `sharpen` goes to.
@@ -96,6 +98,11 @@ impl<'a> ShootingProblem<'a> {
 
     /// The inward leg at the fitting mass.
     pub fn inward(&mut self, ln_r: f64, ln_l: f64) -> LegResult<LegEnd> {
+        self.inward_with_top(ln_r, ln_l).map(|(end, _)| end)
+    }
+
+    /// The inward leg at the fitting mass and the photosphere it started from.
+    fn inward_with_top(&mut self, ln_r: f64, ln_l: f64) -> LegResult<(LegEnd, SurfaceStart)> {
         self.legs_integrated += 1;
         let start = surface::start(&self.runner.ctx, ln_r, ln_l)?;
         let x1 = (1.0 - self.fit_mass_fraction).ln();
@@ -103,7 +110,7 @@ impl<'a> ShootingProblem<'a> {
             .runner
             .integrate(Leg::Inward, start.x0, x1, start.y0, None)?;
         end.cautions.merge(&start.cautions);
-        Ok(end)
+        Ok((end, start))
     }
 
     /// Relative mismatch: differences of ln r, ln P, ln T, and (L_out - L_in) / L_out.
@@ -185,7 +192,7 @@ impl ShootingProblem<'_> {
             return Ok(l.clone());
         }
         let out = self.outward(u[0], u[1])?;
-        let inn = self.inward(u[2], u[3])?;
+        let (inn, top) = self.inward_with_top(u[2], u[3])?;
         let mut boundaries = out.boundaries;
         boundaries.extend(&inn.boundaries);
         let mut cautions = out.cautions;
@@ -198,6 +205,7 @@ impl ShootingProblem<'_> {
             boundaries,
             boundary_limit_reached: out.boundary_limit_reached || inn.boundary_limit_reached,
             cautions,
+            top,
         };
         self.last = Some(legs.clone());
         Ok(legs)

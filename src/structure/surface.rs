@@ -37,7 +37,7 @@ pub const PHOTOSPHERE_TAU: f64 = 2.0 / 3.0;
 pub const ATMOSPHERE_TOP_TAU: f64 = 1e-6;
 
 /// The start of the inward leg.
-#[derive(Debug, Clone)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct SurfaceStart {
     /// x0 = ln D0 = ln(1 - m_ph / M).
     pub x0: f64,

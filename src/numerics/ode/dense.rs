@@ -37,6 +37,17 @@ impl<const N: usize> DenseOutput<N> {
         let inner = c[4] + (c[5] + (c[6] + c[7] * s) * s1) * s;
         c[0] + (c[1] + (c[2] + (c[3] + inner * s1) * s) * s1) * s
     }
+
+    /// Component `k` (< N) of [`DenseOutput::evaluate`] alone, by the same operations in the
+    /// same order (so the same bits), at an eighth of the cost for N = 8: for quadratures and
+    /// root finding on one component.
+    pub fn evaluate_component(&self, x: f64, k: usize) -> f64 {
+        let s = (x - self.x_old) / self.h;
+        let s1 = 1.0 - s;
+        let c = |j: usize| self.coefficients[j][k];
+        let inner = c(4) + (c(5) + (c(6) + c(7) * s) * s1) * s;
+        c(0) + (c(1) + (c(2) + (c(3) + inner * s1) * s) * s1) * s
+    }
 }
 
 /// One accepted step, as handed to [`super::Observer::on_step`]: its ends and, when it was
@@ -74,5 +85,30 @@ impl<const N: usize> AcceptedStep<'_, N> {
             return None;
         }
         self.dense.map(|d| d.evaluate(x))
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// One component is the same bits as that component of the whole state, inside the step
+    /// and extrapolated beyond it.
+    #[test]
+    fn a_component_is_the_states_component() {
+        let mut dense = DenseOutput::<3> {
+            x_old: -2.5,
+            h: 0.37,
+            coefficients: [SVector::zeros(); 8],
+        };
+        for (j, c) in dense.coefficients.iter_mut().enumerate() {
+            *c = SVector::from([1.0 + j as f64, -0.3 * j as f64, 1e-3 / (1.0 + j as f64)]);
+        }
+        for x in [-2.5, -2.4, -2.3141, -2.13, -2.0] {
+            let y = dense.evaluate(x);
+            for k in 0..3 {
+                assert_eq!(dense.evaluate_component(x, k).to_bits(), y[k].to_bits());
+            }
+        }
     }
 }

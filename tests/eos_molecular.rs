@@ -199,3 +199,39 @@ proptest! {
         check_consistency(rho, t, &c, rho > 30.0)?;
     }
 }
+
+/// Around the cold dense region where the equilibrium is multi-valued (docs:
+/// `coulomb::TRANSITION_BOXES`; the kind of first-order transition Saumon & Chabrier 1992
+/// predicted for dense hydrogen below about 1.5e4 K near 0.35 g/cm^3, memory): everywhere else
+/// on a grid over X = 0–0.98, rho 1e-3–1e3 g/cm^3 and T 1e3–1e7 K the law has a state, and the
+/// inversion rho(P, T) returns that same state (one branch, no van der Waals loop), to 1e-6 in
+/// rho; inside, the law cautions.
+#[test]
+fn one_equilibrium_outside_the_cold_dense_transition() {
+    use starpoise::physics::eos::coulomb::in_transition_region;
+    let e = MolecularEos;
+    for x in [0.0, 0.15, 0.3, 0.5, 0.7, 0.98] {
+        let c = Composition::new(x, 0.02).unwrap();
+        for i in 0..=150 {
+            let rho = 10f64.powf(-3.0 + 6.0 * f64::from(i) / 150.0);
+            for j in 0..=60 {
+                let t = 10f64.powf(3.0 + 4.0 * f64::from(j) / 60.0);
+                if in_transition_region(rho, t) {
+                    assert!(e.caution(rho, t, &c).is_some());
+                    continue;
+                }
+                let s = e
+                    .state(rho, t, &c)
+                    .unwrap_or_else(|er| panic!("X {x} rho {rho:e} T {t:e}: {er}"));
+                let back = e
+                    .state_at_pressure(s.pressure_dyn_cm2, t, &c)
+                    .unwrap_or_else(|er| panic!("X {x} rho {rho:e} T {t:e}: {er}"));
+                assert!(
+                    (back.density_g_cm3 / rho - 1.0).abs() < 1e-6,
+                    "X {x} rho {rho:e} T {t:e}: inversion gives {:e}",
+                    back.density_g_cm3
+                );
+            }
+        }
+    }
+}

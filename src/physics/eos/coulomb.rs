@@ -27,12 +27,22 @@
 //!   each other and with the ideal part, with no terms from a switch.
 //! - No electron screening (electron–ion polarisation) and no exchange–correlation of the
 //!   electrons: exact for a rigid background (degenerate electrons); for non-degenerate
-//!   electrons the Debye–Hückel screening by electrons, left out, adds a comparable term.
+//!   electrons the Debye–Hückel free energy with the electrons' screening is 2.8 times the ions'
+//!   alone for hydrogen (k_D^3 grows by 2^(3/2)), so the term is an underestimate there.
+//! - The weights per free electron are those of the fully ionised mixture: in the hydrogen
+//!   ionisation zone, where helium and the metals still hold their electrons, this overstates
+//!   F_C per electron by a factor of about 1.5 in the Debye–Hückel limit and 1.1 at strong
+//!   coupling; and every stage gets the same lowering, where a charge-dependent one would give
+//!   He II -> He III twice that of hydrogen.
 //! - Liquid at any Gamma (no crystallisation; the solid is stable above Gamma_j ~ 175, reached
-//!   only by metal ions at Gamma_e > 5.5, far above the Gamma_e < 2 of ZAMS stars).
+//!   first by the metal ions at Gamma_e = 6.8; ZAMS stars reach Gamma_e = 4.5 at the
+//!   free-electron density, in the hydrogen ionisation zone of the lowest masses).
+//! - Cold dense gas at the pressure-ionisation transition ([`TRANSITION_BOXES`]): the
+//!   equilibrium is multi-valued there.
 //!
-//! Pressure: P_C = n_e kT u_phi / 3 >= -n_e kT 0.3 Gamma_e (u >= -0.9 Gamma): never more negative
-//! than the electrons' own pressure where Gamma_e < 3 (tested over the law's domain).
+//! Pressure: P_C = n_e kT u_phi / 3, about -0.34 Gamma_e n_e kT at strong coupling (u_phi is
+//! about -1.01 Gamma_e per electron at X = 0.7): larger in size than the pressure of
+//! non-degenerate electrons only above Gamma_e of about 3.
 
 use crate::constants::{E_ESU, K_B_ERG_K};
 
@@ -109,15 +119,16 @@ pub fn ocp_energy(gamma: f64) -> (f64, f64) {
     (u, du)
 }
 
-/// ln Gamma below which [`ocp_exact`] uses the fit's series ([`ocp_series`], exact to 1e-13
+/// ln Gamma below which [`ocp_exact`] uses the fit's series ([`ocp_series`], exact to 1e-14
 /// there), Gamma = 2.96e-4.
 const SERIES_LN_GAMMA: f64 = -8.125;
 
-/// The coefficients of G^(3/2), G^2, G^(5/2), ..., G^(9/2) in [`ocp_series`]:
+/// The coefficients of G^(3/2), G^2, G^(5/2), ..., G^6 in [`ocp_series`]:
 /// c3 = -1/sqrt(3), d2 = B1/(2 B2) + B3/(2 B4), c5 = -(A1/A2^(3/2) + 2 A3)/5, d3 = -B1/(3 B2^2),
-/// c7 = (3/28) A1/A2^(5/2) + (2/7) A3, d4 = -B3/(4 B4^2), c9 = -(5/72) A1/A2^(7/2) - (2/9) A3
+/// c7 = (3/28) A1/A2^(5/2) + (2/7) A3, d4 = -B3/(4 B4^2), c9 = -(5/72) A1/A2^(7/2) - (2/9) A3,
+/// then none at G^5 and G^(11/2) (below 1e-19 of f), d6 = B3/(6 B4^3)
 /// (evaluated in 40-digit arithmetic; a test checks them against these expressions).
-const SERIES_COEFFICIENTS: [f64; 7] = [
+const SERIES_COEFFICIENTS: [f64; 10] = [
     -0.577_350_269_189_625_8,
     -0.011_338_116_057_233_704,
     0.252_814_618_096_275_6,
@@ -125,14 +136,18 @@ const SERIES_COEFFICIENTS: [f64; 7] = [
     -0.230_878_797_869_013_2,
     1.533_966_398_831_263_7,
     0.258_271_485_344_172_1,
+    0.0,
+    0.0,
+    -276.390_342_131_759_2,
 ];
 
 /// The fit's expansion at small Gamma, with its derivatives in ln Gamma:
-/// f = -G^(3/2)/sqrt(3) + c5 G^(5/2) + c7 G^(7/2) + c9 G^(9/2) + d2 G^2 + d3 G^3 + d4 G^4, from
+/// f = -G^(3/2)/sqrt(3) + c5 G^(5/2) + c7 G^(7/2) + c9 G^(9/2) + d2 G^2 + d3 G^3 + d4 G^4 +
+/// d6 G^6, from
 /// y sqrt(1 + y^2) - asinh y = (2/3) y^3 - y^5/5 + (3/28) y^7 - (5/72) y^9 (y^2 = G/A2),
 /// s - arctan s = s^3/3 - s^5/5 + s^7/7 - s^9/9 (s^2 = G) and the logarithms' series; the next
-/// terms are below 1e-13 of f for Gamma < 3e-4 (checked against 40-digit arithmetic when
-/// written).
+/// terms are below 1e-14 of f, u and Gamma du/dGamma for Gamma < 3e-4 (checked against
+/// 40-digit arithmetic when written).
 pub fn ocp_series(ln_gamma: f64) -> [f64; 3] {
     // Powers of sqrt(Gamma) by multiplication from one exponential.
     let r = (0.5 * ln_gamma).exp();
@@ -159,6 +174,32 @@ pub fn ocp_exact(ln_gamma: f64) -> [f64; 3] {
     let g = ln_gamma.exp();
     let (u, du) = ocp_energy(g);
     [ocp_free_energy(g), u, g * du]
+}
+
+/// Cold dense gas where the Coulomb lowering of the ionisation energies makes the equilibrium
+/// multi-valued (several solutions of charge neutrality, P falling with rho at fixed T), as
+/// boxes (T below, rho from, rho to; K and g/cm^3). Found by scanning X = 0–0.98, 1e3–1e7 K,
+/// 1e-3–1e3 g/cm^3 for states refused or inversions rho(P, T) landing on another state:
+/// hydrogen-rich gas from 0.19 g/cm^3 below 1.2e4 K and from 0.5 g/cm^3 up to 2e4 K,
+/// helium-rich gas from 9 g/cm^3 up to 3.7e4 K, all below 310 g/cm^3; outside the boxes the scan
+/// finds one equilibrium everywhere (tests/eos_molecular.rs repeats it). The same kind of
+/// first-order transition (the plasma phase transition of dense hydrogen) was predicted by
+/// Saumon & Chabrier (1992, PRA 46, 2084) below about 1.5e4 K near 0.35 g/cm^3 (numbers from
+/// memory). This law cannot represent the two phases: inside the boxes it returns one of the
+/// solutions, or refuses where c_V or chi_rho is not positive, and cautions. No ZAMS star comes
+/// near: the envelope of the limiting 0.078 M_sun star passes 1e4 K at 0.04 g/cm^3, 2e4 K at
+/// 0.23 and 6e4 K at 2.
+pub const TRANSITION_BOXES: [(f64, f64, f64); 3] = [
+    (1.2e4, 0.15, 400.0),
+    (2.0e4, 0.4, 400.0),
+    (1.0e5, 8.0, 400.0),
+];
+
+/// Whether (rho, T) lies in one of [`TRANSITION_BOXES`].
+pub fn in_transition_region(rho: f64, t: f64) -> bool {
+    TRANSITION_BOXES
+        .iter()
+        .any(|&(t_max, lo, hi)| t < t_max && (lo..=hi).contains(&rho))
 }
 
 /// Ion species for the mixture: (ions per m_u, Z^(5/3) of the charge Z).
@@ -339,7 +380,7 @@ mod tests {
             let [f, u, s] = ocp_series(f64::ln(g));
             let (u0, du0) = ocp_energy(g);
             assert!((f / ocp_free_energy(g) - 1.0).abs() < 1e-13, "{g}");
-            assert!((u / u0 - 1.0).abs() < 1e-12 && (s / (g * du0) - 1.0).abs() < 1e-12);
+            assert!((u / u0 - 1.0).abs() < 1e-13 && (s / (g * du0) - 1.0).abs() < 1e-13);
         }
         let below = ocp_exact(SERIES_LN_GAMMA - 1e-12);
         let above = ocp_exact(SERIES_LN_GAMMA + 1e-12);
@@ -360,9 +401,12 @@ mod tests {
             3.0 / 28.0 * A1 / A2.powf(2.5) + 2.0 / 7.0 * a3,
             -B3 / (4.0 * B4 * B4),
             -5.0 / 72.0 * A1 / A2.powf(3.5) - 2.0 / 9.0 * a3,
+            0.0,
+            0.0,
+            B3 / (6.0 * B4 * B4 * B4),
         ];
         for (c, e) in SERIES_COEFFICIENTS.iter().zip(expected) {
-            assert!((c / e - 1.0).abs() < 1e-14, "{c} vs {e}");
+            assert!((c - e).abs() <= 1e-14 * e.abs(), "{c} vs {e}");
         }
     }
 

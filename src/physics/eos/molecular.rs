@@ -43,8 +43,9 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 /// - **Coulomb**: the ions' one-component-plasma free energy of Potekhin & Chabrier (2000) by
 ///   linear mixing, carried by the free electrons and minimised with the ionisation balance
 ///   ([`super::coulomb`]): it adds mu_C = kT (phi + u/3) to the electron chemical potential of
-///   every Saha equation (ionising dense gas), lowers P by about 1 per cent at the solar centre
-///   and 3–5 per cent in the cores of 0.1–0.3 M_sun stars, and vanishes in neutral gas.
+///   every Saha equation (ionising dense gas), lowers P by 0.5 per cent at the solar centre,
+///   0.85 at the centre of a 0.3 M_sun star and 2.4–3.2 per cent at 0.1–0.08 M_sun, and
+///   vanishes in neutral gas.
 ///
 /// Everything follows from one free energy (ideal gases, the Coulomb term, and the occupation
 /// probabilities in the equilibria), so P, chi_rho, chi_T, c_P, nabla_ad and Gamma_1 are
@@ -53,14 +54,17 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 /// Maxwell relation (du/dln rho)_T = (P/rho)(1 - chi_T)). The exception, as in `refined`: the
 /// pressure of the occupation-probability term is left out (including it consistently makes
 /// the hard-sphere model thermodynamically unstable near 1 g/cm^3 and 1e4 K), so the Maxwell
-/// relation is off by up to 5e-5 of P/rho in ionisation zones at 1e-4 g/cm^3 and by 1e-3..1e-1
-/// where pressure ionisation acts (0.01–30 g/cm^3 with bound H or He left).
+/// relation is off by up to 5e-5 of P/rho in ionisation zones at 1e-4 g/cm^3, by up to several
+/// P/rho where pressure ionisation acts with bound H or He left (7 P/rho at 0.56 g/cm^3 and
+/// 2e4 K), and more in the cold dense gas of [`super::coulomb::TRANSITION_BOXES`].
 ///
 /// Domain: 1e-15 <= rho <= 1e5 g/cm^3, 1e3 <= T <= 1e9 K (non-relativistic electrons; liquid
-/// ions, no electron screening or exchange; no H2+, H- or H3+ in the balance). Where the free
-/// electrons are strongly coupled but not degenerate (partly ionised hydrogen near 1e4–2e5 K
-/// and 0.01–1 g/cm^3, met in stars below about 0.25 M_sun) the missing electron screening is
-/// as large as the Coulomb term, and the law says so ([`super::Plasma::caution`]).
+/// ions, no electron screening or exchange; no H2+, H- or H3+ in the balance), except the cold
+/// dense gas of [`super::coulomb::TRANSITION_BOXES`] (below 1e5 K and between 0.15 and 400
+/// g/cm^3), where the equilibrium is multi-valued and the law returns one solution or refuses.
+/// Where the free electrons are strongly coupled but not degenerate (partly ionised hydrogen
+/// near 1e4–2e5 K and 0.01–1 g/cm^3, met in stars below about 0.25 M_sun) the missing electron
+/// screening is larger than the Coulomb term. Both say so ([`super::Plasma::caution`]).
 #[derive(Debug, Clone, Copy, Default)]
 pub struct MolecularEos;
 

@@ -26,6 +26,9 @@ impl Plasma {
         let mut lo = f64::NEG_INFINITY;
         let mut hi = psi_max;
         let mut psi = guess.min(psi_max);
+        // |G| of the previous iterate: a Newton step that does not halve it is replaced by
+        // bisection (G bent by the Coulomb shift can make Newton cycle inside the bracket).
+        let mut last_g = f64::INFINITY;
         for _ in 0..300 {
             let b = self.balance(setup, psi);
             let (stages, el) = (&b.stages, &b.el);
@@ -44,7 +47,9 @@ impl Plasma {
                 return Ok((psi, b));
             }
             let newton = psi - step;
-            psi = if newton.is_finite() && newton > lo && newton < hi {
+            let stalled = lo.is_finite() && g.abs() > 0.5 * last_g;
+            last_g = g.abs();
+            psi = if !stalled && newton.is_finite() && newton > lo && newton < hi {
                 newton
             } else if lo.is_finite() {
                 0.5 * (lo + hi)

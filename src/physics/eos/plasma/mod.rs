@@ -123,8 +123,14 @@ impl Plasma {
     /// (psi < 0): there electron screening, left out of the ions' term, is comparable with the
     /// term itself, and the gas is partly ionised, where the free-electron share of the Coulomb
     /// energy is this project's approximation (the hydrogen ionisation zone of M dwarfs). Only
-    /// where the fully ionised Gamma_e exceeds 1 is the balance solved to find out.
+    /// where the fully ionised Gamma_e exceeds 1 is the balance solved to find out. And the cold
+    /// dense gas of [`super::coulomb::TRANSITION_BOXES`], where the equilibrium is multi-valued.
     pub fn caution(&self, rho: f64, t: f64, comp: &Composition) -> Option<&'static str> {
+        if self.coulomb && super::coulomb::in_transition_region(rho, t) {
+            return Some(
+                "cold dense gas at the pressure-ionisation transition: the Coulomb lowering makes the equilibrium multi-valued there, and the law returns one of its solutions",
+            );
+        }
         let gamma_e = 2.2747e5 * crate::numerics::cube_root::cbrt(rho / comp.mu_e()) / t;
         if gamma_e <= STRONG_COUPLING_GAMMA_E {
             return None;

@@ -36,21 +36,7 @@ impl QuinticTable {
                 [v, d * step, s * step * step]
             })
             .collect();
-        let segments = nodes
-            .windows(2)
-            .map(|w| {
-                let ([p0, d0, s0], [p1, d1, s1]) = (w[0], w[1]);
-                let dp = p1 - p0;
-                [
-                    p0,
-                    d0,
-                    0.5 * s0,
-                    10.0 * dp - 6.0 * d0 - 4.0 * d1 - 1.5 * s0 + 0.5 * s1,
-                    -15.0 * dp + 8.0 * d0 + 7.0 * d1 + 1.5 * s0 - s1,
-                    6.0 * dp - 3.0 * d0 - 3.0 * d1 - 0.5 * s0 + 0.5 * s1,
-                ]
-            })
-            .collect();
+        let segments = nodes.windows(2).map(|w| segment(w[0], w[1])).collect();
         Some(Self {
             x0: x_min,
             inverse_step: 1.0 / step,
@@ -77,13 +63,36 @@ impl QuinticTable {
         if t > 1.0 + 1e-12 {
             return None;
         }
-        let c = &self.segments[k];
-        let v = c[0] + t * (c[1] + t * (c[2] + t * (c[3] + t * (c[4] + t * c[5]))));
-        let d = c[1] + t * (2.0 * c[2] + t * (3.0 * c[3] + t * (4.0 * c[4] + t * 5.0 * c[5])));
-        let s = 2.0 * c[2] + t * (6.0 * c[3] + t * (12.0 * c[4] + t * 20.0 * c[5]));
+        let [v, d, s] = evaluate(&self.segments[k], t);
         let h = self.inverse_step;
         Some([v, d * h, s * h * h])
     }
+}
+
+/// The coefficients c_0..c_5 in t of the quintic on [0, 1] with value, first and second
+/// derivative (in t: scaled by the interval and its square) `a` at t = 0 and `b` at t = 1.
+pub fn segment(a: [f64; 3], b: [f64; 3]) -> [f64; 6] {
+    let ([p0, d0, s0], [p1, d1, s1]) = (a, b);
+    let dp = p1 - p0;
+    [
+        p0,
+        d0,
+        0.5 * s0,
+        10.0 * dp - 6.0 * d0 - 4.0 * d1 - 1.5 * s0 + 0.5 * s1,
+        -15.0 * dp + 8.0 * d0 + 7.0 * d1 + 1.5 * s0 - s1,
+        6.0 * dp - 3.0 * d0 - 3.0 * d1 - 0.5 * s0 + 0.5 * s1,
+    ]
+}
+
+/// The value, first and second derivative in t of the segment `c` ([`segment`]) at `t`.
+#[inline]
+pub fn evaluate(c: &[f64; 6], t: f64) -> [f64; 3] {
+    let [c0, c1, c2, c3, c4, c5] = *c;
+    [
+        c0 + t * (c1 + t * (c2 + t * (c3 + t * (c4 + t * c5)))),
+        c1 + t * (2.0 * c2 + t * (3.0 * c3 + t * (4.0 * c4 + t * 5.0 * c5))),
+        2.0 * c2 + t * (6.0 * c3 + t * (12.0 * c4 + t * 20.0 * c5)),
+    ]
 }
 
 #[cfg(test)]

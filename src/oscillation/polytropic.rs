@@ -126,39 +126,16 @@ fn theta_power(theta: f64, n: f64) -> f64 {
 }
 
 /// The quintic Hermite interpolant through (f, f', f'') at `a` = [x, f, f', f''] and `b`,
-/// evaluated with its derivative at `x`.
+/// evaluated with its derivative at `x` ([`crate::numerics::quintic::segment`]).
 pub(crate) fn hermite_quintic(a: [f64; 4], b: [f64; 4], x: f64) -> (f64, f64) {
+    use crate::numerics::quintic::{evaluate, segment};
     let h = b[0] - a[0];
-    let t = (x - a[0]) / h;
-    let (t2, t3) = (t * t, t * t * t);
-    let (t4, t5) = (t3 * t, t3 * t2);
-    // Basis on [0, 1]: value, slope and curvature at 0 (h0, h1, h2) and at 1 (h5, h4, h3).
-    let h0 = 1.0 - 10.0 * t3 + 15.0 * t4 - 6.0 * t5;
-    let h1 = t - 6.0 * t3 + 8.0 * t4 - 3.0 * t5;
-    let h2 = 0.5 * (t2 - 3.0 * t3 + 3.0 * t4 - t5);
-    let h3 = 0.5 * (t3 - 2.0 * t4 + t5);
-    let h4 = -4.0 * t3 + 7.0 * t4 - 3.0 * t5;
-    let h5 = 10.0 * t3 - 15.0 * t4 + 6.0 * t5;
-    let d0 = -30.0 * t2 + 60.0 * t3 - 30.0 * t4;
-    let d1 = 1.0 - 18.0 * t2 + 32.0 * t3 - 15.0 * t4;
-    let d2 = 0.5 * (2.0 * t - 9.0 * t2 + 12.0 * t3 - 5.0 * t4);
-    let d3 = 0.5 * (3.0 * t2 - 8.0 * t3 + 5.0 * t4);
-    let d4 = -12.0 * t2 + 28.0 * t3 - 15.0 * t4;
-    let d5 = 30.0 * t2 - 60.0 * t3 + 30.0 * t4;
-    let value = a[1] * h0
-        + h * a[2] * h1
-        + h * h * a[3] * h2
-        + h * h * b[3] * h3
-        + h * b[2] * h4
-        + b[1] * h5;
-    let slope = (a[1] * d0
-        + h * a[2] * d1
-        + h * h * a[3] * d2
-        + h * h * b[3] * d3
-        + h * b[2] * d4
-        + b[1] * d5)
-        / h;
-    (value, slope)
+    let c = segment(
+        [a[1], h * a[2], h * h * a[3]],
+        [b[1], h * b[2], h * h * b[3]],
+    );
+    let [value, slope, _] = evaluate(&c, (x - a[0]) / h);
+    (value, slope / h)
 }
 
 impl Equilibrium for PolytropicModel {

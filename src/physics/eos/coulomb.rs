@@ -257,8 +257,9 @@ impl CoulombMixture {
     /// mixture's table ([`super::coulomb_table`]) inside its range, else summed from
     /// [`ocp_exact`].
     pub fn at_ln(&self, ln_gamma_e: f64, gamma_e: f64) -> Coupling {
-        let [phi, u, slope] = super::coulomb_table::mixture_at(self, ln_gamma_e)
-            .unwrap_or_else(|| self.exact_at_ln(ln_gamma_e));
+        let exact = |x: f64| self.exact_at_ln(x);
+        let [phi, u, slope] = super::coulomb_table::mixture_at(self.key(), exact, ln_gamma_e)
+            .unwrap_or_else(|| exact(ln_gamma_e));
         Coupling {
             gamma_e,
             free_energy: phi,
@@ -386,6 +387,29 @@ mod tests {
         let above = ocp_exact(SERIES_LN_GAMMA + 1e-12);
         for k in 0..3 {
             assert!((below[k] / above[k] - 1.0).abs() < 1e-10, "{k}");
+        }
+    }
+
+    /// A mixture's table ([`super::super::coulomb_table`]) against the fit over its range,
+    /// within the bounds of that module's documentation (1.5e-11, 1.9e-9 and 2e-7 of phi, u_phi
+    /// and Gamma_e du_phi/dGamma_e), for a solar and a helium-only mixture.
+    #[test]
+    fn mixture_table_matches_the_fit() {
+        use crate::physics::eos::coulomb_table::MIXTURE_LN_GAMMA;
+        for (x, z) in [(0.70, 0.02), (0.0, 0.02)] {
+            let y: f64 = 1.0 - x - z;
+            let ions: IonSpecies = [(x, 1.0), (0.25 * y, Z53_HELIUM), (z / 16.0, Z53_METALS)];
+            let m = CoulombMixture::new(&ions, x + 0.5 * y + z * (0.5 - 1.0 / 16.0));
+            let (lo, hi) = MIXTURE_LN_GAMMA;
+            for i in 1..20_000 {
+                let x = lo + (hi - lo) * f64::from(i) / 20_000.0;
+                let c = m.at_ln(x, x.exp());
+                let (f, u, s) = (c.free_energy, c.energy, c.energy_slope);
+                let [f0, u0, s0] = m.exact_at_ln(x);
+                assert!((f - f0).abs() < 1.5e-11 * f0.abs(), "phi at {x}: {f} {f0}");
+                assert!((u - u0).abs() < 1.9e-9 * u0.abs(), "u at {x}: {u} {u0}");
+                assert!((s - s0).abs() < 2e-7 * s0.abs(), "slope at {x}: {s} {s0}");
+            }
         }
     }
 

@@ -1,5 +1,5 @@
 //! The Coulomb functions of one mixture, phi, u_phi and Gamma_e du_phi/dGamma_e of
-//! [`super::coulomb::CoulombMixture`], tabulated in ln Gamma_e by quintic Hermite segments
+//! `coulomb::CoulombMixture`, tabulated in ln Gamma_e by quintic Hermite segments
 //! ([`crate::numerics::quintic`]) and kept per thread for the last few mixtures met.
 //!
 //! Why: the equation of state needs them at every iteration of every inversion; summing the
@@ -15,7 +15,6 @@
 //! them (tested against the fit). The value and the two derivatives are those of one function,
 //! so the thermodynamic quantities derived from them stay consistent to rounding.
 
-use super::coulomb::CoulombMixture;
 use crate::numerics::quintic::QuinticTable;
 use std::cell::RefCell;
 
@@ -37,21 +36,25 @@ thread_local! {
     static TABLES: RefCell<Vec<Entry>> = const { RefCell::new(Vec::new()) };
 }
 
-/// The table of `mixture`, built from [`CoulombMixture::exact_at_ln`].
-fn build(mixture: &CoulombMixture) -> Option<QuinticTable> {
+/// A table of `exact` (value and two derivatives in ln Gamma_e) over [`MIXTURE_LN_GAMMA`].
+fn build(exact: impl Fn(f64) -> [f64; 3]) -> Option<QuinticTable> {
     let (lo, hi) = MIXTURE_LN_GAMMA;
-    QuinticTable::new(lo, hi, MIXTURE_INTERVALS, |x| mixture.exact_at_ln(x))
+    QuinticTable::new(lo, hi, MIXTURE_INTERVALS, exact)
 }
 
-/// (phi, u_phi, Gamma_e du_phi/dGamma_e) of `mixture` at ln Gamma_e = `ln_gamma_e` from its
-/// table (built on first use in this thread); `None` outside the table's range (or if the
-/// thread's storage is gone, during its shutdown): the caller then sums the fit itself.
-pub fn mixture_at(mixture: &CoulombMixture, ln_gamma_e: f64) -> Option<[f64; 3]> {
+/// The mixture's (phi, u_phi, Gamma_e du_phi/dGamma_e) at ln Gamma_e = `ln_gamma_e` from its
+/// table, which is built from `exact` on first use in this thread and found again by `key`
+/// (the bits of the mixture's weights and charges); `None` outside the table's range (or if
+/// the thread's storage is gone, during its shutdown): the caller then uses `exact` itself.
+pub fn mixture_at(
+    key: [u64; 6],
+    exact: impl Fn(f64) -> [f64; 3],
+    ln_gamma_e: f64,
+) -> Option<[f64; 3]> {
     let (lo, hi) = MIXTURE_LN_GAMMA;
     if !(ln_gamma_e > lo && ln_gamma_e < hi) {
         return None;
     }
-    let key = mixture.key();
     TABLES
         .try_with(|tables| {
             let mut tables = tables.borrow_mut();
@@ -63,7 +66,7 @@ pub fn mixture_at(mixture: &CoulombMixture, ln_gamma_e: f64) -> Option<[f64; 3]>
                     }
                     tables.push(Entry {
                         key,
-                        table: build(mixture),
+                        table: build(exact),
                     });
                     tables.len() - 1
                 }
@@ -77,49 +80,32 @@ pub fn mixture_at(mixture: &CoulombMixture, ln_gamma_e: f64) -> Option<[f64; 3]>
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::physics::eos::coulomb::{IonSpecies, Z53_HELIUM, Z53_METALS};
 
-    fn mixture(x: f64, z: f64) -> CoulombMixture {
-        let y = 1.0 - x - z;
-        let ions: IonSpecies = [(x, 1.0), (0.25 * y, Z53_HELIUM), (z / 16.0, Z53_METALS)];
-        CoulombMixture::new(&ions, x + 0.5 * y + z * (0.5 - 1.0 / 16.0))
-    }
-
-    /// The table against the fit over its range, within the bounds of the module documentation,
-    /// for a solar and a helium-rich mixture.
-    #[test]
-    fn table_matches_the_fit() {
-        for m in [mixture(0.70, 0.02), mixture(0.0, 0.02)] {
-            let (lo, hi) = MIXTURE_LN_GAMMA;
-            for i in 1..20_000 {
-                let x = lo + (hi - lo) * i as f64 / 20_000.0;
-                let [f, u, s] = mixture_at(&m, x).unwrap();
-                let [f0, u0, s0] = m.exact_at_ln(x);
-                assert!((f - f0).abs() < 1.5e-11 * f0.abs(), "phi at {x}: {f} {f0}");
-                assert!((u - u0).abs() < 1.9e-9 * u0.abs(), "u at {x}: {u} {u0}");
-                assert!((s - s0).abs() < 2e-7 * s0.abs(), "slope at {x}: {s} {s0}");
-            }
-            assert!(mixture_at(&m, MIXTURE_LN_GAMMA.1 + 0.1).is_none());
-            assert!(mixture_at(&m, MIXTURE_LN_GAMMA.0 - 0.1).is_none());
+    /// A stand-in mixture k: f = k G^(3/2), with its derivatives in ln G.
+    fn stand_in(k: f64) -> impl Fn(f64) -> [f64; 3] {
+        move |x: f64| {
+            let f = k * (1.5 * x).exp();
+            [f, 1.5 * f, 2.25 * f]
         }
     }
 
     /// More mixtures than the cache holds, met in turn: every value is the one a fresh table
-    /// gives, bit for bit.
+    /// gives, bit for bit, and belongs to its own mixture.
     #[test]
     fn cached_values_do_not_depend_on_the_order_of_mixtures() {
-        let mixtures: Vec<CoulombMixture> = (0..CACHED_MIXTURES + 2)
-            .map(|k| mixture(0.6 + 0.02 * k as f64, 0.02))
-            .collect();
+        let count = CACHED_MIXTURES + 2;
+        let key = |k: usize| [k as u64, 0, 0, 0, 0, 0];
         let x = -0.7;
-        let fresh: Vec<[f64; 3]> = mixtures
-            .iter()
-            .map(|m| build(m).unwrap().at(x).unwrap())
+        let fresh: Vec<[f64; 3]> = (0..count)
+            .map(|k| build(stand_in(k as f64 + 1.0)).unwrap().at(x).unwrap())
             .collect();
         for round in 0..3 {
-            for (m, expected) in mixtures.iter().zip(&fresh).rev().skip(round % 2) {
-                assert_eq!(mixture_at(m, x).unwrap(), *expected);
+            for k in (0..count).rev().skip(round % 2) {
+                let v = mixture_at(key(k), stand_in(k as f64 + 1.0), x).unwrap();
+                assert_eq!(v, fresh[k]);
             }
         }
+        assert!(mixture_at(key(0), stand_in(1.0), MIXTURE_LN_GAMMA.1 + 0.1).is_none());
+        assert!(mixture_at(key(0), stand_in(1.0), MIXTURE_LN_GAMMA.0 - 0.1).is_none());
     }
 }

@@ -1,6 +1,6 @@
 //! Checks of whole ZAMS models with the default (`refined`) physics at X = 0.70, Z = 0.02: the
-//! published figures of the ZAMS Sun, the mass–luminosity slope, the virial and energy checks,
-//! and the Tout et al. (1996) fits.
+//! published figures of the ZAMS Sun, the mass–luminosity slope, the hydrogen-burning minimum
+//! mass, the virial and energy checks, and the Tout et al. (1996) fits.
 //!
 //! The two models these checks need (1 and 10 M_sun) are solved at most once per process and
 //! shared; a model that fails to converge fails every check that uses it, with its message.
@@ -9,6 +9,7 @@ use super::{Check, Tolerance};
 use crate::error::Result;
 use crate::physics::{Composition, PhysicsSet};
 use crate::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
+use crate::structure::limits::hydrogen_burning_limit;
 use crate::structure::{solve, ModelSummary, ZamsSettings};
 use std::sync::OnceLock;
 
@@ -102,6 +103,17 @@ pub fn checks() -> Vec<Check> {
             Tolerance::Range(3.8, 4.1),
             mass_luminosity_slope,
         ),
+        // The hydrogen-burning minimum mass at this composition: the published 0.072-0.080
+        // M_sun (Chabrier & Baraffe 2000 and the studies they quote; docs/references.md §8.5).
+        Check::new(
+            "zams.hydrogen-burning-limit",
+            GROUP,
+            "hydrogen-burning minimum mass (turning point of the ZAMS branch), M_sun",
+            "Chabrier & Baraffe 2000, ARA&A 38, 337, and studies quoted there (secondary)",
+            0.076,
+            Tolerance::Range(0.072, 0.080),
+            hydrogen_burning_limit_msun,
+        ),
         // The fit is good to a few per cent of the models it fits; the bounds are those of the
         // ZAMS tests over 0.5-50 M_sun. The refined opacity's guillotine factor was calibrated
         // on this comparison, so it checks consistency rather than independent agreement.
@@ -162,6 +174,11 @@ fn model(i: usize) -> Result<ModelSummary> {
 /// One summary quantity of model `i`.
 fn quantity(i: usize, field: fn(&ModelSummary) -> f64) -> Result<f64> {
     Ok(field(&model(i)?))
+}
+
+fn hydrogen_burning_limit_msun() -> Result<f64> {
+    let comp = Composition::new(X, Z)?;
+    Ok(hydrogen_burning_limit(&comp, &PhysicsSet::refined())?.mass_msun)
 }
 
 fn mass_luminosity_slope() -> Result<f64> {

@@ -4,8 +4,9 @@
 //! Run: `cargo run --release --example guess_table -- refined` (or `analytic`); with a second
 //! argument Z the refined table at that metallicity (`-- refined 0.002`: `REFINED_MODELS_LOW_Z`;
 //! `-- refined 0.04`: `REFINED_MODELS_HIGH_Z`), and with a third X (`-- refined 0.02 0.65`:
-//! `REFINED_MODELS_LOW_X`; `0.75`: `REFINED_MODELS_HIGH_X`), leaving out the masses below the
-//! hydrogen-burning limit there.
+//! `REFINED_MODELS_LOW_X`; `0.75`: `REFINED_MODELS_HIGH_X`; both away from 0.02 and 0.70 for
+//! the corner tables, e.g. `-- refined 0.002 0.75`: `REFINED_MODELS_HIGH_X_LOW_Z`), leaving out
+//! the masses below the hydrogen-burning limit there.
 
 use starpoise::physics::{Composition, PhysicsSet, Preset};
 use starpoise::structure::{guess, solve, ZamsSettings};
@@ -70,17 +71,21 @@ fn main() -> Result<(), Box<dyn std::error::Error>> {
             previous = Some((m, row));
         }
     }
-    let suffix = if x < 0.70 {
+    let x_part = if x < 0.70 {
         "_LOW_X"
     } else if x > 0.70 {
         "_HIGH_X"
-    } else if z == 0.02 {
+    } else {
+        ""
+    };
+    let z_part = if z == 0.02 {
         ""
     } else if z < 0.02 {
         "_LOW_Z"
     } else {
         "_HIGH_Z"
     };
+    let suffix = format!("{x_part}{z_part}");
     println!(
         "pub const {}_MODELS{suffix}: [(f64, GuessRow); {}] = [",
         preset.to_string().to_uppercase(),

@@ -50,8 +50,9 @@ fn warnings_name_the_law_and_where() {
 /// The electron coupling Gamma_e = 2.2747e5 (rho Y_e)^(1/3) / T (docs/references.md §8.2,
 /// computed): 0.067 at the solar centre (no caution), about 2.2 at rho = 1000 g/cm^3 and 1e6 K
 /// (strongly coupled: `refined` neglects the Coulomb terms there; `molecular` has them, and its
-/// electrons are degenerate there, so no caution). `molecular` cautions where the free
-/// electrons are strongly coupled but not degenerate, in partly ionised hydrogen at 0.2 g/cm^3
+/// electrons are degenerate and dense there, r_s = 0.19, so no caution). `molecular` cautions
+/// where the free electrons are strongly coupled but not degenerate or dense (r_s > 1), in
+/// partly ionised hydrogen at 0.2 g/cm^3
 /// and 3e4 K (the ionisation zone of a 0.1 M_sun star), and not in the neutral photosphere of
 /// such a star (1e-5 g/cm^3, 3000 K), where the fully ionised Gamma_e would be 4.5 but few
 /// electrons are free.
@@ -69,7 +70,7 @@ fn strong_coupling_is_flagged() {
     assert!(MolecularEos.caution(1000.0, 1e6, &c).is_none());
     assert!(MolecularEos
         .caution(0.2, 3e4, &c)
-        .is_some_and(|w| w.contains("non-degenerate")));
+        .is_some_and(|w| w.contains("screen the ions")));
     assert!(MolecularEos.caution(1e-5, 3000.0, &c).is_none());
     let low = model(0.1, "");
     assert!(

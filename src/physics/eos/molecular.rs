@@ -62,9 +62,10 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 /// ions, no electron screening or exchange; no H2+, H- or H3+ in the balance), except the cold
 /// dense gas of [`super::coulomb::TRANSITION_BOXES`] (below 1e5 K and between 0.15 and 400
 /// g/cm^3), where the equilibrium is multi-valued and the law returns one solution or refuses.
-/// Where the free electrons are strongly coupled but not degenerate (partly ionised hydrogen
-/// near 1e4–2e5 K and 0.01–1 g/cm^3, met in stars below about 0.25 M_sun) the missing electron
-/// screening is larger than the Coulomb term. Both say so ([`super::Plasma::caution`]).
+/// Where the free electrons are strongly coupled but not degenerate or not dense (r_s > 1:
+/// partly ionised hydrogen near 1e4–2e5 K and 0.05–4 g/cm^3, met in stars below about
+/// 0.25 M_sun) the missing electron screening and exchange are as large as the Coulomb term.
+/// Both say so ([`super::Plasma::caution`]).
 #[derive(Debug, Clone, Copy, Default)]
 pub struct MolecularEos;
 

@@ -59,6 +59,7 @@ mod thermo;
 pub(in crate::physics::eos) use ionisation::{Grad, StageInputs, Stages};
 
 use super::EosState;
+use crate::constants::{E_ESU, K_B_ERG_K};
 use crate::error::PhysicsError;
 use crate::physics::composition::Composition;
 use point::AtPsi;
@@ -120,9 +121,10 @@ impl Plasma {
     /// coupling (Gamma_e > [`STRONG_COUPLING_GAMMA_E`], with Gamma_e of the fully ionised
     /// mixture), which a law without the Coulomb term neglects; and, in a law with it, strong
     /// coupling at the actual free-electron density where the electrons are not degenerate
-    /// (psi < 0): there electron screening, left out of the ions' term, is comparable with the
-    /// term itself, and the gas is partly ionised, where the free-electron share of the Coulomb
-    /// energy is this project's approximation (the hydrogen ionisation zone of M dwarfs). Only
+    /// (psi < 0) or not dense (r_s = a_e / a_0 > 1, below about 2.7 mu_e g/cm^3): there electron
+    /// screening and exchange, left out of the ions' term, are comparable with the term itself,
+    /// and the gas is partly ionised, where the free-electron share of the Coulomb energy is this
+    /// project's approximation (the hydrogen ionisation zones of M dwarfs). Only
     /// where the fully ionised Gamma_e exceeds 1 is the balance solved to find out. And the cold
     /// dense gas of [`super::coulomb::TRANSITION_BOXES`], where the equilibrium is multi-valued.
     pub fn caution(&self, rho: f64, t: f64, comp: &Composition) -> Option<&'static str> {
@@ -142,8 +144,11 @@ impl Plasma {
         }
         let setup = self.setup(rho, t, comp).ok()?;
         let (psi, balance) = self.solve_neutrality(&setup, setup.psi_full).ok()?;
-        (balance.coulomb.coupling.gamma_e > STRONG_COUPLING_GAMMA_E && psi < 0.0).then_some(
-            "strongly coupled plasma (Gamma_e > 1) with non-degenerate electrons: electron screening and the partly ionised gas's Coulomb energy only approximated",
+        let coupling = balance.coulomb.coupling;
+        // r_s = a_e / a_0 from Gamma_e = e^2 / (a_e k T).
+        let r_s = E_ESU * E_ESU / (coupling.gamma_e * K_B_ERG_K * t * BOHR_RADIUS_CM);
+        (coupling.gamma_e > STRONG_COUPLING_GAMMA_E && (psi < 0.0 || r_s > 1.0)).then_some(
+            "strongly coupled plasma (Gamma_e > 1) whose electrons screen the ions (not degenerate, or r_s > 1): electron screening and exchange, and the partly ionised gas's Coulomb energy, only approximated",
         )
     }
 }

@@ -72,8 +72,10 @@ pub struct ZamsArgs {
 fn mass_help() -> String {
     let (lo, hi) = starpoise::structure::MASS_RANGE_MSUN;
     let (vlo, vhi) = starpoise::structure::model::REFINED_VALIDATED_MASS_RANGE_MSUN;
+    let limit = starpoise::structure::limits::tabulated_refined_limit_msun(0.70, 0.02)
+        .map_or_else(String::new, |m| format!(", {m:.3} at X = 0.70, Z = 0.02"));
     format!(
-        "Stellar mass in solar masses ({lo}–{hi}; the refined set is compared with measured stars over {vlo}–{vhi} and refuses masses below its hydrogen-burning limit, about 0.07 at solar composition: see `starpoise limits`)"
+        "Stellar mass in solar masses ({lo}–{hi}; the refined set is compared with measured stars over {vlo}–{vhi} and refuses masses below its hydrogen-burning limit{limit}: see `starpoise limits`)"
     )
 }
 

@@ -11,7 +11,6 @@
 pub struct QuinticTable {
     x0: f64,
     inverse_step: f64,
-    step: f64,
     /// The coefficients c_0..c_5 of each segment in t = (x - x_k) / h.
     segments: Vec<[f64; 6]>,
 }
@@ -40,14 +39,8 @@ impl QuinticTable {
         Some(Self {
             x0: x_min,
             inverse_step: 1.0 / step,
-            step,
             segments,
         })
-    }
-
-    /// The table's range [x_min, x_max].
-    pub fn range(&self) -> (f64, f64) {
-        (self.x0, self.x0 + self.segments.len() as f64 * self.step)
     }
 
     /// The interpolant's value, first and second derivative at `x`; `None` outside the range.

@@ -474,10 +474,27 @@ pub fn initial_guess(mass_msun: f64, comp: &Composition, preset: Preset) -> Unkn
     } else {
         (HIGH_Z, &REFINED_MODELS_HIGH_Z)
     };
-    let z_step = refined
-        .then(|| toward(z_table, &row, lm, zeta / (z_side / 0.02).ln()))
-        .flatten()
-        .unwrap_or_else(|| {
+    // And linear in X between X = 0.70 and the table on the side of X (at Z = 0.02, added to
+    // the step in Z), with the cross term of the bilinear form in (X, ln Z) from the corner
+    // table where the mass lies inside all three tables.
+    let (x_side, x_table): (f64, &[(f64, GuessRow)]) = if comp.x() < 0.70 {
+        (LOW_X, &REFINED_MODELS_LOW_X)
+    } else {
+        (HIGH_X, &REFINED_MODELS_HIGH_X)
+    };
+    let (z_fraction, x_fraction) = (
+        zeta / (z_side / 0.02).ln(),
+        (comp.x() - 0.70) / (x_side - 0.70),
+    );
+    // A table's row at this mass; `None` below its lightest mass (or for the analytic preset).
+    let side_row =
+        |t: &[(f64, GuessRow)]| (refined && lm >= t[0].0.ln()).then(|| interpolated(t, lm));
+    let (z_row, x_row) = (side_row(z_table), side_row(x_table));
+    let toward = |side: &GuessRow, fraction: f64| -> GuessRow {
+        std::array::from_fn(|k| fraction * (side[k] - row[k]))
+    };
+    let z_step = z_row.as_ref().map_or_else(
+        || {
             let w = (lm / 10f64.ln()).clamp(0.0, 1.0);
             let blend = |at1: f64, at10: f64| at1 + w * (at10 - at1);
             [
@@ -486,33 +503,17 @@ pub fn initial_guess(mass_msun: f64, comp: &Composition, preset: Preset) -> Unkn
                 blend(0.035, 0.12) * zeta,
                 blend(-0.22, 0.0) * zeta,
             ]
-        });
-    // And linear in X between X = 0.70 and the table on the side of X (at Z = 0.02, added to
-    // the step in Z).
-    let (x_side, x_table): (f64, &[(f64, GuessRow)]) = if comp.x() < 0.70 {
-        (LOW_X, &REFINED_MODELS_LOW_X)
-    } else {
-        (HIGH_X, &REFINED_MODELS_HIGH_X)
-    };
-    let x_fraction = (comp.x() - 0.70) / (x_side - 0.70);
-    let x_step = refined
-        .then(|| toward(x_table, &row, lm, x_fraction))
-        .flatten()
-        .unwrap_or([0.0; 4]);
-    // And the cross term of the bilinear form in (X, ln Z) from the corner table, where the
-    // mass lies inside all three tables: the corner less the two sides plus the reference.
-    let z_fraction = zeta / (z_side / 0.02).ln();
-    let corner_table = corner_models(comp.x() < 0.70, comp.z() < 0.02);
-    let inside = |t: &[(f64, GuessRow)]| lm >= t[0].0.ln();
-    let cross = if refined && inside(x_table) && inside(z_table) && inside(corner_table) {
-        let (c, xs, zs) = (
-            interpolated(corner_table, lm),
-            interpolated(x_table, lm),
-            interpolated(z_table, lm),
-        );
-        std::array::from_fn(|k| x_fraction * z_fraction * (c[k] - xs[k] - zs[k] + row[k]))
-    } else {
-        [0.0; 4]
+        },
+        |z| toward(z, z_fraction),
+    );
+    let x_step = x_row.as_ref().map_or([0.0; 4], |x| toward(x, x_fraction));
+    // The corner less the two sides plus the reference.
+    let corner = corner_models(comp.x() < 0.70, comp.z() < 0.02);
+    let cross = match (&x_row, &z_row) {
+        (Some(x), Some(z)) => side_row(corner).map_or([0.0; 4], |c| {
+            std::array::from_fn(|k| x_fraction * z_fraction * (c[k] - x[k] - z[k] + row[k]))
+        }),
+        _ => [0.0; 4],
     };
     Unknowns::new(
         row[0] + z_step[0] + x_step[0] + cross[0],
@@ -530,16 +531,6 @@ fn corner_models(low_x: bool, low_z: bool) -> &'static [(f64, GuessRow)] {
         (true, false) => &REFINED_MODELS_LOW_X_HIGH_Z,
         (false, false) => &REFINED_MODELS_HIGH_X_HIGH_Z,
     }
-}
-
-/// The step from `row` (the reference table's row at ln M = `lm`) `fraction` of the way to the
-/// row of the side table `table` there (the guess linear in one composition variable); `None`
-/// below the side table's lightest mass.
-fn toward(table: &[(f64, GuessRow)], row: &GuessRow, lm: f64, fraction: f64) -> Option<GuessRow> {
-    (lm >= table[0].0.ln()).then(|| {
-        let side = interpolated(table, lm);
-        std::array::from_fn(|k| fraction * (side[k] - row[k]))
-    })
 }
 
 /// The row of `table` at ln M = `lm`: monotone cubic (Steffen 1990) inside the table, the end

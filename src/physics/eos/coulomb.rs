@@ -45,6 +45,7 @@
 //! non-degenerate electrons only above Gamma_e of about 3.
 
 use crate::constants::{E_ESU, K_B_ERG_K};
+use crate::numerics::cube_root::cbrt;
 
 const A1: f64 = -0.907_347;
 const A2: f64 = 0.628_49;
@@ -218,7 +219,7 @@ pub fn ln_coupling_constant() -> f64 {
 /// Gamma_e = e^2 / (a_e kT), a_e = (3 / (4 pi n_e))^(1/3), for `n_e_cm3` free electrons per cm^3
 /// at temperature `t` (K).
 pub fn electron_coupling(n_e_cm3: f64, t: f64) -> f64 {
-    (ln_coupling_constant() - t.ln() + n_e_cm3.ln() / 3.0).exp()
+    E_ESU * E_ESU / (K_B_ERG_K * t) * cbrt(4.0 / 3.0 * std::f64::consts::PI * n_e_cm3)
 }
 
 /// The mixture's Coulomb free energy per free electron, phi(Gamma_e) = F_C / (N_e kT) =
@@ -446,5 +447,8 @@ mod tests {
         let n_e = rho / crate::constants::M_U_G;
         let expected = 2.2747e5 * rho.cbrt() / t;
         assert!((electron_coupling(n_e, t) / expected - 1.0).abs() < 1e-4);
+        // The logarithmic form the balance uses is the same coupling.
+        let from_ln = (ln_coupling_constant() - t.ln() + n_e.ln() / 3.0).exp();
+        assert!((from_ln / electron_coupling(n_e, t) - 1.0).abs() < 1e-14);
     }
 }

@@ -133,8 +133,8 @@ impl Plasma {
                 "cold dense gas at the pressure-ionisation transition: the Coulomb lowering makes the equilibrium multi-valued there, and the law returns one of its solutions",
             );
         }
-        let gamma_e = 2.2747e5 * crate::numerics::cube_root::cbrt(rho / comp.mu_e()) / t;
-        if gamma_e <= STRONG_COUPLING_GAMMA_E {
+        let n_full_cm3 = rho / (comp.mu_e() * crate::constants::M_U_G);
+        if super::coulomb::electron_coupling(n_full_cm3, t) <= STRONG_COUPLING_GAMMA_E {
             return None;
         }
         if !self.coulomb {

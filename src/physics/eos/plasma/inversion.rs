@@ -140,8 +140,11 @@ impl Plasma {
         {
             return Ok(solved);
         }
-        // Fallback: nested iteration, slower but bracketed.
+        // Fallback: nested iteration, slower but bracketed. A Newton step that does not halve
+        // |f| is replaced by bisection: across pressure ionisation P(rho) can steepen thirty-fold
+        // within the bracket, and Newton from its ends then creeps in from both sides.
         let mut psi_guess = None;
+        let mut last_f = f64::INFINITY;
         for _ in 0..100 {
             let solved = self.solve(ln_rho.fast_exp().clamp(rlo, rhi), t, comp, psi_guess)?;
             let s = solved.state;
@@ -155,7 +158,9 @@ impl Plasma {
                 lo = ln_rho;
             }
             let newton = ln_rho - f / s.chi_rho.max(1e-6);
-            let next = if newton > lo && newton < hi && (newton - ln_rho).abs() < 3.0 {
+            let stalled = lo > rlo.ln() && hi < rhi.ln() && f.abs() > 0.5 * last_f;
+            last_f = f.abs();
+            let next = if !stalled && newton > lo && newton < hi && (newton - ln_rho).abs() < 3.0 {
                 newton
             } else if (hi - lo) < 6.0 {
                 0.5 * (lo + hi)

@@ -117,7 +117,8 @@ fn check_derivatives(
 }
 
 /// The state at (P, T) of the state at (`rho`, `t`), cold and warm-started from the state at
-/// (P (1 + dp), T (1 + dt)): same state, pressure on the target.
+/// (P (1 + dp), T (1 + dt)), and from that state with the one at (P (1 + 2 dp), T (1 + 2 dt))
+/// before it: same state, pressure on the target.
 fn check_warm_start(
     law: &dyn EquationOfState,
     (rho, t): (f64, f64),
@@ -144,7 +145,14 @@ fn check_warm_start(
         return Ok(());
     };
     let warm = law.state_at_pressure_near(p, t, c, &near).map_err(fail)?;
-    for s in [&cold, &warm] {
+    // The second-order start from two states along the line (the second twice as far).
+    let along = match law.state_at_pressure(p * (1.0 + 2.0 * dp), t * (1.0 + 2.0 * dt), c) {
+        Ok(before) => law
+            .state_at_pressure_along(p, t, c, &near, &before)
+            .map_err(fail)?,
+        Err(_) => warm,
+    };
+    for s in [&cold, &warm, &along] {
         prop_assert!(
             (s.pressure_dyn_cm2 / p).ln().abs() < INVERSION_TOL,
             "{}: P {:e} for {p:e} at {rho:e} g/cm^3, {t:e} K from {dp} {dt}",
@@ -153,17 +161,19 @@ fn check_warm_start(
         );
     }
     let tol = STATE_TOL / cold.chi_rho.min(1.0);
-    for ((name, a), (_, b)) in fields(&cold).into_iter().zip(fields(&warm)) {
-        let close = if a.abs() < 1e-30 {
-            b.abs() < 1e-30
-        } else {
-            ((b - a) / a).abs() < tol
-        };
-        prop_assert!(
-            close,
-            "{}: {name} cold {a:e} warm {b:e} at {rho:e} g/cm^3, {t:e} K",
-            law.name()
-        );
+    for other in [&warm, &along] {
+        for ((name, a), (_, b)) in fields(&cold).into_iter().zip(fields(other)) {
+            let close = if a.abs() < 1e-30 {
+                b.abs() < 1e-30
+            } else {
+                ((b - a) / a).abs() < tol
+            };
+            prop_assert!(
+                close,
+                "{}: {name} cold {a:e} warm {b:e} at {rho:e} g/cm^3, {t:e} K",
+                law.name()
+            );
+        }
     }
     Ok(())
 }

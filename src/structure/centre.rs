@@ -114,6 +114,7 @@ pub fn start(ctx: &LegContext, ln_pc: f64, ln_tc: f64) -> LegResult<CentreStart>
         temperature_k: tc,
         l_over_m: eps_c,
         near: Some(&eos),
+        before: None,
     };
     let centre = local_physics(ctx.physics, ctx.composition, &point).map_err(physics)?;
     let p0 = series(&centre, ln_pc, ln_tc, m0).pressure_dyn_cm2;

@@ -126,6 +126,9 @@ pub struct Point<'a> {
     pub l_over_m: f64,
     /// The equation-of-state result at a nearby point, to start the inversion from.
     pub near: Option<&'a EosState>,
+    /// The result at the point before `near` along the same path (with `near`, a start to
+    /// second order: [`crate::physics::EquationOfState::state_at_pressure_along`]).
+    pub before: Option<&'a EosState>,
 }
 
 /// Evaluate every law at `point`. Inlined, as is [`derivatives_in_mass`]: each returns the
@@ -137,9 +140,10 @@ pub fn local_physics(
     point: &Point,
 ) -> Result<LocalPhysics, PhysicsError> {
     let (p, t) = (point.pressure_dyn_cm2, point.temperature_k);
-    let eos = match point.near {
-        Some(n) => physics.eos().state_at_pressure_near(p, t, comp, n)?,
-        None => physics.eos().state_at_pressure(p, t, comp)?,
+    let eos = match (point.near, point.before) {
+        (Some(n), Some(b)) => physics.eos().state_at_pressure_along(p, t, comp, n, b)?,
+        (Some(n), None) => physics.eos().state_at_pressure_near(p, t, comp, n)?,
+        (None, _) => physics.eos().state_at_pressure(p, t, comp)?,
     };
     local_physics_with_eos(physics, comp, point, eos)
 }
@@ -210,7 +214,7 @@ pub fn derivatives_in_mass(
     mass_g: f64,
     y: &State,
     form: LuminosityForm,
-    near: Option<&EosState>,
+    (near, before): (Option<&EosState>, Option<&EosState>),
 ) -> Result<(State, LocalPhysics), PhysicsError> {
     let r = y[LN_R].fast_exp();
     let p = y[LN_P].fast_exp();
@@ -223,6 +227,7 @@ pub fn derivatives_in_mass(
         temperature_k: t,
         l_over_m: l / mass_g,
         near,
+        before,
     };
     let local = local_physics(physics, comp, &point)?;
     let rho = local.eos.density_g_cm3;

@@ -199,14 +199,15 @@ impl Cautions {
 }
 
 /// The last point at which the local physics was evaluated: its (x, y), the equation-of-state
-/// result there (to warm-start the next inversion) and nabla_rad - nabla_ad there (so that the
-/// event function at the end of an accepted step, where the integrator has just evaluated the
-/// right-hand side, costs nothing).
+/// result there and at the evaluation before (to warm-start the next inversion to second
+/// order) and nabla_rad - nabla_ad there (so that the event function at the end of an accepted
+/// step, where the integrator has just evaluated the right-hand side, costs nothing).
 #[derive(Debug, Clone, Copy)]
 struct LastPoint {
     x: f64,
     y: State,
     eos: EosState,
+    before: Option<EosState>,
     excess: f64,
 }
 
@@ -221,7 +222,9 @@ impl LegSystem<'_, '_> {
     /// dy/dm and nabla_rad - nabla_ad at (x, y), recording the point.
     fn evaluate(&self, x: f64, y: &State) -> Result<(State, f64), PhysicsError> {
         let (m, dm_dx) = self.leg.mass_and_jacobian(x, self.ctx.total_mass_g);
-        let near = self.last.get().map(|p| p.eos);
+        let last = self.last.get();
+        let near = last.map(|p| p.eos);
+        let before = last.and_then(|p| p.before);
         let (d, local) = derivatives_in_mass(
             self.ctx.physics,
             self.ctx.composition,
@@ -229,13 +232,14 @@ impl LegSystem<'_, '_> {
             m,
             y,
             self.leg.luminosity_form(self.ctx),
-            near.as_ref(),
+            (near.as_ref(), before.as_ref()),
         )?;
         let excess = local.nabla_rad - local.eos.nabla_ad;
         self.last.set(Some(LastPoint {
             x,
             y: *y,
             eos: local.eos,
+            before: near,
             excess,
         }));
         Ok((d * dm_dx, excess))

@@ -285,6 +285,7 @@ pub(crate) fn profile(
                 temperature_k: t,
                 l_over_m: s.l_over_m,
                 near: None,
+                before: None,
             };
             ctx.physics
                 .eos()

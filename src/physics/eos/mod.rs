@@ -170,6 +170,22 @@ pub trait EquationOfState: Send + Sync + std::fmt::Debug {
         let _ = near;
         self.state_at_pressure(pressure_dyn_cm2, temperature_k, comp)
     }
+
+    /// As [`EquationOfState::state_at_pressure_near`], knowing also the state `before` of the
+    /// point before `near` along the same path (an integration's previous evaluation), which a
+    /// law may use to start its inversion to second order. The result must agree with
+    /// `state_at_pressure` to the inversion's tolerance.
+    fn state_at_pressure_along(
+        &self,
+        pressure_dyn_cm2: f64,
+        temperature_k: f64,
+        comp: &Composition,
+        near: &EosState,
+        before: &EosState,
+    ) -> Result<EosState, PhysicsError> {
+        let _ = before;
+        self.state_at_pressure_near(pressure_dyn_cm2, temperature_k, comp, near)
+    }
 }
 
 /// The shared inversion rho(P, T) by Newton iteration in ln rho.

@@ -249,6 +249,21 @@ impl Plasma {
             .state)
     }
 
+    /// As [`Plasma::at_pressure_near`], started to second order from the states `near` and
+    /// `before` of the last two points along a path ([`Plasma::start_along`]).
+    pub fn at_pressure_along(
+        &self,
+        p: f64,
+        t: f64,
+        comp: &Composition,
+        near: &EosState,
+        before: &EosState,
+    ) -> Result<EosState, PhysicsError> {
+        Ok(self
+            .at_pressure_from(p, t, comp, Self::start_along(p, t, near, before), false)?
+            .state)
+    }
+
     /// As [`Plasma::at_pressure_near`] (from the fully ionised ideal gas without `near`),
     /// together with the state's specific entropy ([`Plasma::specific_entropy`]; `None` if it
     /// is not finite), computed on the inversion's last evaluation.
@@ -332,6 +347,17 @@ macro_rules! plasma_law {
                 near: &$crate::physics::eos::EosState,
             ) -> Result<$crate::physics::eos::EosState, $crate::error::PhysicsError> {
                 $engine.at_pressure_near(p, t, comp, near)
+            }
+
+            fn state_at_pressure_along(
+                &self,
+                p: f64,
+                t: f64,
+                comp: &$crate::physics::composition::Composition,
+                near: &$crate::physics::eos::EosState,
+                before: &$crate::physics::eos::EosState,
+            ) -> Result<$crate::physics::eos::EosState, $crate::error::PhysicsError> {
+                $engine.at_pressure_along(p, t, comp, near, before)
             }
         }
     };

@@ -226,3 +226,181 @@ fn cno_rate_matches_the_modern_closed_form() {
         assert!((ratio - 1.0).abs() < 0.03, "T6 = {t6}: ratio {ratio}");
     }
 }
+
+/// Unscreened `<sigma v>` of p + p and 3He + 3He, cm^3 s^-1, from the analytic fits of
+/// Caughlan & Fowler 1988 (At. Data Nucl. Data Tables 40, 283; memory, docs/references.md
+/// §4.1): N_A `<sigma v>`_11 = 4.01e-15 T9^(-2/3) exp(-3.380 T9^(-1/3)) (1 + 0.123 T9^(1/3) +
+/// 1.09 T9^(2/3) + 0.938 T9) and N_A `<sigma v>`_33 = 6.04e10 T9^(-2/3) exp(-12.276 T9^(-1/3))
+/// (1 + 0.034 T9^(1/3) - 0.522 T9^(2/3) - 0.124 T9 + 0.353 T9^(4/3) + 0.213 T9^(5/3)).
+fn cf88_pp_and_33(t: f64) -> (f64, f64) {
+    const N_A: f64 = 6.022_140_76e23;
+    let t9 = t * 1e-9;
+    let c = t9.cbrt();
+    let pp =
+        4.01e-15 / (c * c) * (-3.380 / c).exp() * (1.0 + 0.123 * c + 1.09 * c * c + 0.938 * t9);
+    let he33 = 6.04e10 / (c * c)
+        * (-12.276 / c).exp()
+        * (1.0 + 0.034 * c - 0.522 * c * c - 0.124 * t9 + 0.353 * t9 * c + 0.213 * t9 * c * c);
+    (pp / N_A, he33 / N_A)
+}
+
+const YEAR_S: f64 = 365.25 * 86400.0;
+
+/// 3He at equilibrium at the solar-centre conditions of docs/references.md §4 (T6 = 15.7,
+/// rho = 150, X = 0.35, Z = 0.02).
+/// - Textbook magnitudes (docs/references.md §4.1, memory, window a factor 3 each way as befits
+///   memory): the equilibrium number ratio 3He/H is about 1e-5 near T6 = 15 (Clayton 1968,
+///   ch. 5, figure of the equilibrium ratio against T6), and 3He reaches it in about 1e5 yr at
+///   the solar centre (same figure; its "time to reach equilibrium" may be the lifetime
+///   1 / (lambda_33 n_3), which is 2 tau_eq without 3He + 4He: inside the window).
+/// - Against the Caughlan & Fowler 1988 fits (memory): without 3He + 4He (Y = 0, so pure ppI)
+///   and with the law's screening divided out, n_3/n_p = sqrt(<sigma v>_11 / (2 <sigma v>_33))
+///   and tau_eq = 1 / (2 sqrt(<sigma v>_33 r_pp)) agree within 10 per cent: the S-factors of
+///   1988 and of Adelberger et al. 2011 differ by a few per cent, and enter as square roots.
+#[test]
+fn he3_equilibrium_at_the_solar_centre() {
+    use starpoise::constants::M_U_G;
+    let (rho, t) = (150.0, 1.57e7);
+    let law = SFactorRates::default();
+    let sun = Composition::new(0.35, 0.02).unwrap();
+    let e = law.he3_equilibrium_at(rho, t, &sun).unwrap();
+    let n_p = rho * 0.35 / (1.007_825_03 * M_U_G);
+    let ratio = e.number_density_cm3 / n_p;
+    assert!(ratio > 1e-5 / 3.0 && ratio < 3e-5, "3He/H {ratio}");
+    let tau_yr = e.relaxation_time_s / YEAR_S;
+    assert!(tau_yr > 1e5 / 3.0 && tau_yr < 3e5, "tau {tau_yr} yr");
+    let lifetime_yr = 1.0 / (e.he3_he3_cm3_s * e.number_density_cm3) / YEAR_S;
+    assert!(
+        lifetime_yr > 1e5 / 3.0 && lifetime_yr < 3e5,
+        "{lifetime_yr} yr"
+    );
+    // The mass fraction is n_3 m(3He) / rho (3.016029 u less two electrons).
+    let m3 = 3.016_029_32 * M_U_G - 2.0 * 9.109_383_7e-28;
+    assert!((e.mass_fraction / (e.number_density_cm3 * m3 / rho) - 1.0).abs() < 1e-12);
+
+    let pure = Composition::new(0.98, 0.02).unwrap();
+    let e = law.he3_equilibrium_at(rho, t, &pure).unwrap();
+    // Y = 1 - 0.98 - 0.02 is zero to rounding: 3He + 4He is negligible.
+    assert!(e.he3_he4_per_s < 1e-12 * e.he3_he3_cm3_s * e.number_density_cm3);
+    let (f11, _) = screening(1.0, 1.0, rho, t, &pure);
+    let (f33, _) = screening(2.0, 2.0, rho, t, &pure);
+    let (sv11, sv33) = cf88_pp_and_33(t);
+    let (sv11, sv33) = (sv11 * f11.exp(), sv33 * f33.exp());
+    let n_p = rho * 0.98 / (1.007_825_03 * M_U_G);
+    let r = 0.5 * n_p * n_p * sv11;
+    let want_ratio = (sv11 / (2.0 * sv33)).sqrt();
+    let want_tau = 1.0 / (2.0 * (sv33 * r).sqrt());
+    let got_ratio = e.number_density_cm3 / n_p;
+    assert!(
+        (got_ratio / want_ratio - 1.0).abs() < 0.1,
+        "{got_ratio} vs {want_ratio}"
+    );
+    assert!(
+        (e.relaxation_time_s / want_tau - 1.0).abs() < 0.1,
+        "{} vs {want_tau}",
+        e.relaxation_time_s
+    );
+}
+
+/// tau_eq falls steeply with temperature. Without 3He + 4He (Y = 0) tau_eq =
+/// 1 / (2 sqrt(<sigma v>_33 r_pp)), and each rate goes as T^(-2/3) exp(-tau) with tau =
+/// 3 E_0 / kT = B T6^(-1/3) (Clayton 1968, ch. 4), so, calculus only,
+/// d ln tau_eq / d ln T = -((tau_11 - 2)/3 + (tau_33 - 2)/3) / 2, and from T1 to T2
+/// ln(tau_eq(T2)/tau_eq(T1)) = (2/3) ln(T2/T1) + (B_11 + B_33)/2 (T2^(-1/3) - T1^(-1/3)), with
+/// B from the Gamow energies ([`Reaction::tau_times_t6_cbrt`]). At 1e-2 g/cm^3 screening is
+/// below 1e-2 in ln f; what the Gamow form leaves out is the S-factor terms of S_eff
+/// ((S'/S) E_0 for p + p, 5/(12 tau)), below 0.05 in the slope of about -12 here (computed):
+/// tolerance 0.5 per cent in the slope, 0.1 in the logarithm over the octave. Over 8 -> 16 MK
+/// tau_eq falls by more than three orders of magnitude, also at a stellar density with 4He.
+#[test]
+fn he3_equilibrium_time_falls_steeply_with_temperature() {
+    let law = SFactorRates::default();
+    let pure = Composition::new(0.98, 0.02).unwrap();
+    let rho = 1e-2;
+    let ln_tau = |t: f64| {
+        law.he3_equilibrium_at(rho, t, &pure)
+            .unwrap()
+            .relaxation_time_s
+            .ln()
+    };
+    let b11 = Reaction::pp().tau_times_t6_cbrt();
+    let b33 = Reaction::he3_he3().tau_times_t6_cbrt();
+    // Clayton's 42.487 (Z1^2 Z2^2 A)^(1/3) (memory) with A = 1.5075, the reduced mass in u of
+    // two 3He nuclei: 122.75 (docs/references.md §4.1); tolerance the last digit of 42.487.
+    assert!((b33 - 122.75).abs() < 0.01, "B_33 {b33}");
+    let h = 1e-4;
+    for t6 in [8.0, 12.0, 16.0] {
+        let t = t6 * 1e6;
+        let slope = (ln_tau(t * f64::exp(h)) - ln_tau(t * f64::exp(-h))) / (2.0 * h);
+        let tau11 = b11 / f64::cbrt(t6);
+        let tau33 = b33 / f64::cbrt(t6);
+        let want = -((tau11 - 2.0) / 3.0 + (tau33 - 2.0) / 3.0) / 2.0;
+        assert!(
+            (slope / want - 1.0).abs() < 5e-3,
+            "T6 {t6}: slope {slope} vs {want}"
+        );
+    }
+    let (t1, t2): (f64, f64) = (8.0, 16.0);
+    let drop = ln_tau(t2 * 1e6) - ln_tau(t1 * 1e6);
+    let want =
+        2.0 / 3.0 * (t2 / t1).ln() + 0.5 * (b11 + b33) * (t2.cbrt().recip() - t1.cbrt().recip());
+    assert!((drop - want).abs() < 0.1, "{drop} vs {want}");
+    let star = Composition::new(0.70, 0.02).unwrap();
+    let at = |t: f64| {
+        law.he3_equilibrium_at(100.0, t, &star)
+            .unwrap()
+            .relaxation_time_s
+    };
+    assert!(at(8e6) / at(16e6) > 1e3, "{}", at(8e6) / at(16e6));
+}
+
+/// The returned n_3,eq is the balance the law takes: r_pp = lambda_33 n_3^2 + lambda_34 n_3
+/// to 1e-12 (rounding only), tau_eq = 1 / D'(n_3,eq) against a centred difference of D (step
+/// 1e-5 relative: D is quadratic, so only rounding, tolerance 1e-8), and the ppII fraction of
+/// the law's energy, beta = lambda_34 n_3 / r_pp, is the one from these numbers. Outside the
+/// domain: an error; the Scaled wrapper passes the inner law's through, and the laws without
+/// 3He reactions give none.
+#[test]
+fn he3_equilibrium_balances_the_law() {
+    let law = SFactorRates::default();
+    for (x, rho, t6) in [
+        (0.70, 100.0, 8.0),
+        (0.70, 150.0, 15.7),
+        (0.35, 150.0, 15.7),
+        (0.70, 1.0, 30.0),
+        (0.75, 500.0, 4.0),
+        (0.98, 10.0, 12.0),
+    ] {
+        let c = Composition::new(x, 0.02).unwrap();
+        let t = t6 * 1e6;
+        let e = law.he3_equilibrium_at(rho, t, &c).unwrap();
+        let n_3 = e.number_density_cm3;
+        let balance = e.destruction_cm3_s(n_3) / e.production_cm3_s - 1.0;
+        assert!(balance.abs() < 1e-12, "{x} {rho} {t6}: {balance}");
+        let h = 1e-5 * n_3;
+        let slope = (e.destruction_cm3_s(n_3 + h) - e.destruction_cm3_s(n_3 - h)) / (2.0 * h);
+        assert!(
+            (e.relaxation_time_s * slope - 1.0).abs() < 1e-8,
+            "{x} {rho} {t6}"
+        );
+        let (beta, _) = law.pp2_fraction(rho, t, &c);
+        let want = e.he3_he4_per_s * n_3 / e.production_cm3_s;
+        assert!((beta - want).abs() < 1e-12 * (1.0 + want), "{beta} {want}");
+    }
+    let c = Composition::new(0.70, 0.02).unwrap();
+    assert!(law.he3_equilibrium_at(-1.0, 1e7, &c).is_err());
+    assert!(law.he3_equilibrium_at(1.0, f64::NAN, &c).is_err());
+    let base: Arc<dyn EnergyGeneration> = Arc::new(law);
+    let scaled = Scaled::new(base.clone(), 0.509, "--rates-factor").unwrap();
+    assert_eq!(
+        scaled.he3_equilibrium(100.0, 1e7, &c).unwrap(),
+        base.he3_equilibrium(100.0, 1e7, &c).unwrap()
+    );
+    assert!(base.he3_equilibrium(100.0, 1e7, &c).unwrap().is_some());
+    assert_eq!(
+        AnalyticRates::default().he3_equilibrium(100.0, 1e7, &c),
+        Ok(None)
+    );
+    let power = PowerLawRates::new(0.1, 1.5e7, 4.0).unwrap();
+    assert_eq!(power.he3_equilibrium(100.0, 1e7, &c), Ok(None));
+}

@@ -4,7 +4,7 @@ mod common;
 use common::{json, scratch_dir, starpoise, stderr};
 
 /// Keys the summary must carry (issue "ZAMS models by fitting-point shooting").
-const SUMMARY_KEYS: [&str; 23] = [
+const SUMMARY_KEYS: [&str; 24] = [
     "mass_msun",
     "x",
     "z",
@@ -26,6 +26,7 @@ const SUMMARY_KEYS: [&str; 23] = [
     "kelvin_helmholtz_time_yr",
     "dynamical_time_s",
     "nuclear_time_yr",
+    "he3_equilibrium_time_yr",
     "virial_residual",
     "luminosity_residual",
 ];

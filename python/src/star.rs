@@ -51,7 +51,8 @@ const STAR_DOC: &str = "A converged zero-age main-sequence model (made by starpo
 Every key of `starpoise zams --format json` is an attribute, named as in the JSON (units in
 the names, see .units): mass_msun, x, y, z, physics (dict), converged, iterations,
 fit_mismatch, fit_mass_fraction, the summary quantities below (floats; central_degeneracy is
-NaN for a law without electron degeneracy) and rhs_evaluations. summary() gives them as the
+NaN for a law without electron degeneracy, he3_equilibrium_time_yr for a rates law without 3He
+reactions) and rhs_evaluations. summary() gives them as the
 JSON's dict, profile(points=400) the profile as a Table, meta what made the model, history
 the Newton iterations.";
 

@@ -74,6 +74,8 @@ class Star:
     """Dynamical time sqrt(R^3 / (G M)), s."""
     nuclear_time_yr: float
     """Hydrogen-burning lifetime estimate, years."""
+    he3_equilibrium_time_yr: float
+    """Relaxation time of 3He to equilibrium at the centre, years; NaN for rates laws without 3He reactions."""
     virial_residual: float
     """Virial theorem residual (0 when exact)."""
     luminosity_residual: float

@@ -250,6 +250,11 @@ pub fn text_summary(model: &ZamsModel) -> String {
         "yr (10% of H burnt at this L)",
     );
     line(
+        "3He equilibrium time",
+        num(s.he3_equilibrium_time_yr),
+        "yr (relaxation to it at the centre)",
+    );
+    line(
         "virial residual",
         format!("{:.1e}", s.virial_residual),
         "(|3 int P/rho dm / int Gm/r dm - 1|)",

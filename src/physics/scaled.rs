@@ -2,7 +2,7 @@
 //! large"), one wrapper instead of a factor in every law.
 
 use super::composition::Composition;
-use super::nuclear::{EnergyGeneration, EnergyRate};
+use super::nuclear::{EnergyGeneration, EnergyRate, He3Equilibrium};
 use super::opacity::Opacity;
 use crate::error::{Error, PhysicsError, Result};
 use std::sync::Arc;
@@ -60,5 +60,17 @@ impl<L: EnergyGeneration + ?Sized> EnergyGeneration for Scaled<L> {
             eps_cno_erg_g_s: self.factor * r.eps_cno_erg_g_s,
             ..r
         })
+    }
+
+    /// The inner law's: the factor scales the energy released, not the rates of the reactions
+    /// that make and destroy 3He (a factor 0.509 on `sfactor` is the energy of a pp chain that
+    /// stops at 3He, whose 3He reactions run as before).
+    fn he3_equilibrium(
+        &self,
+        rho: f64,
+        t: f64,
+        comp: &Composition,
+    ) -> Result<Option<He3Equilibrium>, PhysicsError> {
+        self.inner.he3_equilibrium(rho, t, comp)
     }
 }

@@ -63,8 +63,33 @@ pub struct ZamsModel {
 /// warning.
 pub const REFINED_VALIDATED_MASS_RANGE_MSUN: (f64, f64) = (0.1, 30.0);
 
-/// The warnings of a model of `settings` whose legs met `cautions`.
-fn warnings(settings: &ZamsSettings, cautions: &Cautions) -> Vec<String> {
+/// A model whose central 3He equilibrium time exceeds this, yr, is cautioned that real stars
+/// of its mass and a few Gyr of age have not reached the 3He equilibrium its rates law takes.
+pub const HE3_CAUTION_TIME_YR: f64 = 1e9;
+
+/// How much fainter and smaller a star is when its pp chain stops at 3He (no 3He burnt at all)
+/// than with 3He in equilibrium: log10 L lower by this, dex, and R smaller by
+/// [`HE3_UNBURNT_RADIUS_PERCENT`], measured on the `refined` set at 0.23 M_sun, X = 0.70,
+/// Z = 0.02 with the `sfactor` rates times 0.509, the energy per pp reaction up to 3He over
+/// that of the whole ppI chain (docs/references.md §4.1; `tests/warnings.rs` measures it again).
+pub const HE3_UNBURNT_LUMINOSITY_DEX: f64 = 0.061;
+/// See [`HE3_UNBURNT_LUMINOSITY_DEX`]: the radius, per cent.
+pub const HE3_UNBURNT_RADIUS_PERCENT: f64 = 6.4;
+
+/// The caution of a model whose central 3He equilibrium time is `time_yr` (none at or below
+/// [`HE3_CAUTION_TIME_YR`], or when the law has no 3He rates: NaN).
+pub fn he3_caution(rates: &str, time_yr: f64) -> Option<String> {
+    (time_yr > HE3_CAUTION_TIME_YR).then(|| {
+        format!(
+            "rates {rates}: 3He is taken in equilibrium, but at the centre it relaxes to equilibrium in {:.2} Gyr (e-folding time): a star of this mass younger than a few times that burns 3He incompletely and is fainter and smaller than this model (with no 3He burnt at all, L is {HE3_UNBURNT_LUMINOSITY_DEX} dex lower and R {HE3_UNBURNT_RADIUS_PERCENT}% smaller at 0.23 M_sun)",
+            time_yr / 1e9
+        )
+    })
+}
+
+/// The warnings of a model of `settings` whose legs met `cautions` and whose central 3He
+/// equilibrium time is `he3_time_yr`.
+fn warnings(settings: &ZamsSettings, cautions: &Cautions, he3_time_yr: f64) -> Vec<String> {
     let spec = settings.physics().spec();
     let mut out: Vec<String> = cautions
         .entries
@@ -92,6 +117,9 @@ fn warnings(settings: &ZamsSettings, cautions: &Cautions) -> Vec<String> {
         out.push(format!(
             "mass {m} M_sun is outside {lo}-{hi} M_sun, the range on which the refined set has been compared with measured stars"
         ));
+    }
+    if let Some(w) = he3_caution(&spec.rates.to_string(), he3_time_yr) {
+        out.push(w);
     }
     out
 }
@@ -184,12 +212,20 @@ pub(crate) fn build(
     let m = ctx.total_mass_g;
     let comp = ctx.composition;
     let centre_eos = start.centre.eos;
+    let central_temperature_k = u[1].exp();
+    // A diagnostic: a law without 3He rates (or whose rates underflow) gives NaN, not an error.
+    let he3 = settings
+        .physics()
+        .rates()
+        .he3_equilibrium(centre_eos.density_g_cm3, central_temperature_k, comp)
+        .ok()
+        .flatten();
     let summary = ModelSummary {
         radius_rsun: radius_cm / R_SUN_CM,
         luminosity_lsun: luminosity / L_SUN_ERG_S,
         teff_k: surface::effective_temperature_k(radius_cm, luminosity),
         log_g_cgs: (G_CGS * m / (radius_cm * radius_cm)).log10(),
-        central_temperature_k: u[1].exp(),
+        central_temperature_k,
         central_density_g_cm3: centre_eos.density_g_cm3,
         central_pressure_dyn_cm2: u[0].exp(),
         central_degeneracy: if centre_eos.degeneracy_psi.is_finite() {
@@ -204,6 +240,7 @@ pub(crate) fn build(
         kelvin_helmholtz_time_yr: G_CGS * m * m / (radius_cm * luminosity) / YEAR_S,
         dynamical_time_s: (radius_cm.powi(3) / (G_CGS * m)).sqrt(),
         nuclear_time_yr: super::nuclear_time_yr(m, comp.x(), luminosity),
+        he3_equilibrium_time_yr: he3.map_or(f64::NAN, |e| e.relaxation_time_s / YEAR_S),
         virial_residual: (thermal / gravity - 1.0).abs(),
         luminosity_residual: (eps_total / luminosity - 1.0).abs(),
     };
@@ -213,7 +250,7 @@ pub(crate) fn build(
         stats,
         unknowns: u,
         history,
-        warnings: warnings(settings, &legs.cautions),
+        warnings: warnings(settings, &legs.cautions, summary.he3_equilibrium_time_yr),
         photosphere: (u, legs.tolerance, legs.top.clone()),
     })
 }

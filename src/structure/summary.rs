@@ -18,7 +18,8 @@ pub struct SummaryField {
 macro_rules! summary_quantities {
     ($( #[doc = $doc:literal] $name:ident ),* $(,)?) => {
         /// The summary quantities of a converged ZAMS model. Non-finite only where documented
-        /// (`central_degeneracy` is NaN for a law without electron degeneracy).
+        /// (`central_degeneracy` is NaN for a law without electron degeneracy,
+        /// `he3_equilibrium_time_yr` for a rates law without 3He reactions).
         #[derive(Debug, Clone, Copy, PartialEq)]
         pub struct ModelSummary {
             $( #[doc = $doc] pub $name: f64, )*
@@ -77,6 +78,8 @@ summary_quantities! {
     dynamical_time_s,
     /// Hydrogen-burning lifetime estimate 0.1 X M (Q / 4 m_H c^2) c^2 / L, years.
     nuclear_time_yr,
+    /// Relaxation time of 3He to its equilibrium abundance at the centre, 1 / (2 lambda_33 n_3,eq + lambda_34) (3He made by pp, destroyed by 3He + 3He and 3He + 4He), years; null (NaN) for rates laws without 3He reactions (analytic, power-law). Above 1e9 the model carries a caution.
+    he3_equilibrium_time_yr,
     /// |integral of 3 P / rho dm / integral of G m / r dm - 1| (virial theorem, 0 when exact).
     virial_residual,
     /// |integral of eps dm / L - 1| (energy conservation, 0 when exact).

@@ -1,7 +1,7 @@
 //! `sfactor`: thermonuclear rates from astrophysical S-factors at the Gamow peak, with
 //! electron screening, equilibrium 3He branching and the energy per 4He of each chain.
 
-use super::{EnergyGeneration, EnergyRate};
+use super::{EnergyGeneration, EnergyRate, He3Equilibrium};
 use crate::constants::{E_ESU, HBAR_ERG_S, K_B_ERG_K, MEV_ERG, M_E_G, M_P_G, M_U_G};
 use crate::error::PhysicsError;
 use crate::numerics::cube_root::cbrt;
@@ -310,7 +310,82 @@ fn screened(r: &Prepared, c: &Conditions) -> (f64, f64) {
     (value, (tau - 2.0) / 3.0 + ds + dln_f)
 }
 
+/// The 3He balance r = a n_3^2 + b n_3 at one (rho, T): production r = n_p^2 `<sigma v>`_11 / 2,
+/// a = `<sigma v>`_33, b = n_4 `<sigma v>`_34 (all screened), and its root n_3.
+#[derive(Debug, Clone, Copy)]
+struct Balance {
+    r: f64,
+    a: f64,
+    b: f64,
+    n_3: f64,
+}
+
 impl SFactorRates {
+    /// The 3He balance with `l11` the screened pp `<sigma v>`, and the temperature exponents of
+    /// a and of `<sigma v>`_34. The root is written 2 r / (b + sqrt(b^2 + 4 a r)), which loses
+    /// no digits when b^2 >> 4 a r.
+    fn balance(
+        &self,
+        rho: f64,
+        comp: &Composition,
+        c: &Conditions,
+        l11: f64,
+    ) -> (Balance, f64, f64) {
+        let n_p = rho * comp.x() / (A_H1 * M_U_G);
+        let n_4 = rho * comp.y() / (A_HE4 * M_U_G);
+        let (l33, nu33) = screened(&self.he33, c);
+        let (l34, nu34) = screened(&self.he34, c);
+        let r = 0.5 * n_p * n_p * l11;
+        let a = l33;
+        let b = n_4 * l34;
+        let root = (b * b + 4.0 * a * r).sqrt();
+        let n_3 = 2.0 * r / (b + root);
+        (Balance { r, a, b, n_3 }, nu33, nu34)
+    }
+
+    /// 3He in equilibrium at (rho, T) from the law's screened rates ([`He3Equilibrium`]: n_3,eq
+    /// solves r_pp = lambda_33 n_3^2 + lambda_34 n_3, the balance this law takes for its pp
+    /// branching, and tau_eq = 1 / (2 lambda_33 n_3,eq + lambda_34)). Errors outside the
+    /// law's domain, and where the pp or 3He + 3He rate underflows to zero (below about
+    /// 1e6 K: no 3He is made, and no equilibrium time is defined).
+    pub fn he3_equilibrium_at(
+        &self,
+        rho: f64,
+        t: f64,
+        comp: &Composition,
+    ) -> Result<He3Equilibrium, PhysicsError> {
+        check_domain(rho, t)?;
+        let c = Conditions::new(rho, t, comp);
+        let (l11, _) = screened(&self.pp, &c);
+        let (Balance { r, a, b, n_3 }, _, _) = self.balance(rho, comp, &c, l11);
+        if !(r > 0.0 && a > 0.0 && n_3 > 0.0) {
+            return Err(PhysicsError::new(
+                "sfactor",
+                "pp or 3He + 3He rate underflows: no 3He equilibrium",
+                rho,
+                t,
+            ));
+        }
+        let out = He3Equilibrium {
+            number_density_cm3: n_3,
+            mass_fraction: n_3 * nuclear_mass_g(A_HE3, 2.0) / rho,
+            relaxation_time_s: 1.0 / (2.0 * a * n_3 + b),
+            production_cm3_s: r,
+            he3_he3_cm3_s: a,
+            he3_he4_per_s: b,
+        };
+        if out.relaxation_time_s.is_finite() && out.mass_fraction.is_finite() {
+            Ok(out)
+        } else {
+            Err(PhysicsError::new(
+                "sfactor",
+                "3He equilibrium not finite",
+                rho,
+                t,
+            ))
+        }
+    }
+
     /// The fraction beta of 3He destroyed by 3He + 4He (ppII) at equilibrium, and d beta / d ln T.
     pub fn pp2_fraction(&self, rho: f64, t: f64, comp: &Composition) -> (f64, f64) {
         let c = Conditions::new(rho, t, comp);
@@ -324,18 +399,10 @@ impl SFactorRates {
         c: &Conditions,
         (l11, nu11): (f64, f64),
     ) -> (f64, f64) {
-        let n_p = rho * comp.x() / (A_H1 * M_U_G);
-        let n_4 = rho * comp.y() / (A_HE4 * M_U_G);
-        let (l33, nu33) = screened(&self.he33, c);
-        let (l34, nu34) = screened(&self.he34, c);
-        let r = 0.5 * n_p * n_p * l11;
-        let a = l33;
-        let b = n_4 * l34;
+        let (Balance { r, a, b, n_3 }, nu33, nu34) = self.balance(rho, comp, c, l11);
         if !(r > 0.0 && b > 0.0 && a > 0.0) {
             return (0.0, 0.0);
         }
-        let root = (b * b + 4.0 * a * r).sqrt();
-        let n_3 = 2.0 * r / (b + root);
         let beta = n_3 * b / r;
         // (2 a n3 + b) dn3 = r nu_r - a n3^2 nu_a - b n3 nu_b   (per d ln T)
         let dln_n3 =
@@ -345,21 +412,36 @@ impl SFactorRates {
     }
 }
 
+/// The law's domain: rho > 0 and 1e3 <= T <= 1e10 K.
+fn check_domain(rho: f64, t: f64) -> Result<(), PhysicsError> {
+    check_point("sfactor", rho, t)?;
+    if !(1e3..=1e10).contains(&t) {
+        return Err(PhysicsError::new(
+            "sfactor",
+            "temperature outside the law's domain 1e3..1e10 K",
+            rho,
+            t,
+        ));
+    }
+    Ok(())
+}
+
 impl EnergyGeneration for SFactorRates {
+    fn he3_equilibrium(
+        &self,
+        rho: f64,
+        t: f64,
+        comp: &Composition,
+    ) -> Result<Option<He3Equilibrium>, PhysicsError> {
+        self.he3_equilibrium_at(rho, t, comp).map(Some)
+    }
+
     fn name(&self) -> String {
         "sfactor".to_string()
     }
 
     fn rate(&self, rho: f64, t: f64, comp: &Composition) -> Result<EnergyRate, PhysicsError> {
-        check_point("sfactor", rho, t)?;
-        if !(1e3..=1e10).contains(&t) {
-            return Err(PhysicsError::new(
-                "sfactor",
-                "temperature outside the law's domain 1e3..1e10 K",
-                rho,
-                t,
-            ));
-        }
+        check_domain(rho, t)?;
         let n_p = rho * comp.x() / (A_H1 * M_U_G);
         let n_14 = rho * comp.x_cno() / (A_N14 * M_U_G);
         let c = Conditions::new(rho, t, comp);

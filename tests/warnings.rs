@@ -9,14 +9,7 @@ use starpoise::physics::{Composition, EquationOfState, PhysicsOverrides, Physics
 use starpoise::structure::{solve, ZamsSettings};
 
 fn model(mass: f64, overrides: &str) -> Vec<String> {
-    let mut o = PhysicsOverrides::default();
-    for item in overrides.split(';').filter(|s| !s.is_empty()) {
-        let (k, v) = item.split_once(':').unwrap();
-        o.set(k, v).unwrap();
-    }
-    let physics = PhysicsSet::from_spec(&o.resolve().unwrap()).unwrap();
-    let s = ZamsSettings::new(mass, Composition::new(0.70, 0.02).unwrap(), physics).unwrap();
-    solve(&s).unwrap().warnings
+    solved(mass, overrides).warnings
 }
 
 /// The Sun's model raises nothing; a 40 M_sun refined model is outside the compared range; the

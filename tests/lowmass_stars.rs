@@ -62,6 +62,49 @@ fn cm_draconis_radii() {
     }
 }
 
+/// The figures the grey-atmosphere caution quotes (`structure::model::grey_atmosphere_caution`),
+/// measured again: against CM Dra A and B (as in `cm_draconis_radii`; T_eff 3130 and 3120 K,
+/// Morales et al. 2009 as quoted, docs/references.md §8.5 [SECONDARY]; L from R and T_eff with
+/// the IAU 2015 nominal T_eff,sun = 5772 K) the models are 0.05 dex too hot (each within 0.005
+/// of it) and 0.19 dex too bright (within 0.01); against Proxima Cen (3042 K) and YY Gem (0.5992
+/// M_sun, 3820 K, Torres & Ribas 2002 [CONFIRMED], solar composition) within 0.015 dex in T_eff.
+/// A change of physics that moves these fails here, and the caution's text must follow.
+#[test]
+fn the_grey_atmosphere_caution_quotes_measured_misses() {
+    use starpoise::structure::model::{
+        grey_atmosphere_caution, CM_DRA_LUMINOSITY_EXCESS_DEX, CM_DRA_TEFF_EXCESS_DEX,
+        GREY_ATMOSPHERE_MIN_TEFF_K, QUIET_M_DWARF_TEFF_DEX,
+    };
+    const T_SUN_K: f64 = 5772.0;
+    for (mass, radius, teff) in [(0.2310, 0.2534, 3130.0), (0.2141, 0.2396, 3120.0)] {
+        let s = model(mass, 0.72, 0.01);
+        let dt = (s.teff_k / teff).log10();
+        let dl = (s.luminosity_lsun / (radius * radius * (teff / T_SUN_K).powi(4))).log10();
+        assert!(
+            (dt - CM_DRA_TEFF_EXCESS_DEX).abs() <= 0.005,
+            "{mass}: dT {dt}"
+        );
+        assert!(
+            (dl - CM_DRA_LUMINOSITY_EXCESS_DEX).abs() <= 0.01,
+            "{mass}: dL {dl}"
+        );
+        assert!(s.teff_k < GREY_ATMOSPHERE_MIN_TEFF_K);
+    }
+    for (mass, teff) in [(0.1221, 3042.0), (0.5992, 3820.0)] {
+        let dt = (model(mass, 0.70, 0.02).teff_k / teff).log10();
+        assert!(dt.abs() < QUIET_M_DWARF_TEFF_DEX, "{mass}: dT {dt}");
+    }
+    // The caution is given below the threshold only, and quotes the figures for `refined` only.
+    assert!(grey_atmosphere_caution("krishna-swamy", 4100.0, true).is_none());
+    let w = grey_atmosphere_caution("krishna-swamy", 3500.0, true).unwrap();
+    assert!(
+        w.contains("0.05 dex too hot") && w.contains("0.19 dex too bright"),
+        "{w}"
+    );
+    let other = grey_atmosphere_caution("eddington", 3500.0, false).unwrap();
+    assert!(!other.contains("CM Dra"), "{other}");
+}
+
 /// Fully convective below about 0.35 M_sun, a radiative core above (Chabrier & Baraffe 1997,
 /// A&A 327, 1039; docs/references.md §8.5 [MEMORY]): fully convective at 0.25 M_sun, a
 /// radiative core at 0.45 and 0.5 M_sun (tested away from the boundary, where models are

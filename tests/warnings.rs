@@ -74,8 +74,9 @@ fn strong_coupling_is_flagged() {
 
 /// A grid carries each converged model's warnings in its `warnings` column (and its text table
 /// points to them), and they read back from the CSV unchanged (as `merge` reads shards): the
-/// 0.1 M_sun row has the strong-coupling warning of `strong_coupling_is_flagged` and the 3He
-/// caution of `he3_equilibrium_caution_for_low_masses`, the Sun's row none.
+/// 0.1 M_sun row has the strong-coupling warning of `strong_coupling_is_flagged`, the
+/// grey-atmosphere caution (T_eff below 4000 K, `tests/lowmass_stars.rs`) and the 3He caution
+/// of `he3_equilibrium_caution_for_low_masses`, the Sun's row none.
 #[test]
 fn sequence_rows_carry_the_warnings() {
     let dir = scratch_dir("warnings");
@@ -89,7 +90,7 @@ fn sequence_rows_carry_the_warnings() {
     ]);
     assert!(out.status.success(), "{}", stderr(&out));
     let text = String::from_utf8_lossy(&out.stdout);
-    assert!(text.contains("converged (2 warnings, below)"), "{text}");
+    assert!(text.contains("converged (3 warnings, below)"), "{text}");
     assert!(text.contains("strongly coupled"), "{text}");
     let table = starpoise::output::sequence::read_table(&csv).unwrap();
     assert!(table.rows[0]

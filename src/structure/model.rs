@@ -87,9 +87,49 @@ pub fn he3_caution(rates: &str, time_yr: f64) -> Option<String> {
     })
 }
 
-/// The warnings of a model of `settings` whose legs met `cautions` and whose central 3He
-/// equilibrium time is `he3_time_yr`.
-fn warnings(settings: &ZamsSettings, cautions: &Cautions, he3_time_yr: f64) -> Vec<String> {
+/// Below this effective temperature, K, a model is cautioned that its atmosphere is grey. Every
+/// atmosphere of this program is: a T(tau) relation (Eddington, Hopf, Krishna Swamy) or the
+/// one-point closure, each with the Rosseland mean opacity. Below about 4000 K, the T_eff of the
+/// early M dwarfs (a fact of the trade), molecules set the photospheric opacity and grey models
+/// are inaccurate (Chabrier & Baraffe 1997, A&A 327, 1039; docs/references.md §8.4).
+pub const GREY_ATMOSPHERE_MIN_TEFF_K: f64 = 4000.0;
+
+/// What the `refined` set's models miss by against measured M dwarfs, as the caution quotes them
+/// (docs/references.md §8.5; `tests/lowmass_stars.rs` measures them again): T_eff too hot by
+/// this, dex, at 0.21-0.23 M_sun (CM Dra A and B, Z = 0.01), and L too bright by
+/// [`CM_DRA_LUMINOSITY_EXCESS_DEX`].
+pub const CM_DRA_TEFF_EXCESS_DEX: f64 = 0.05;
+/// See [`CM_DRA_TEFF_EXCESS_DEX`]: the luminosity, dex.
+pub const CM_DRA_LUMINOSITY_EXCESS_DEX: f64 = 0.19;
+/// The largest T_eff difference, dex, of the `refined` models from Proxima Cen (0.12 M_sun) and
+/// YY Gem (0.60 M_sun), as the caution quotes it (`tests/lowmass_stars.rs`).
+pub const QUIET_M_DWARF_TEFF_DEX: f64 = 0.015;
+
+/// The caution of a model with effective temperature `teff_k` under the atmosphere
+/// `atmosphere` (its name), with the measured misses of the `refined` set if `refined`.
+pub fn grey_atmosphere_caution(atmosphere: &str, teff_k: f64, refined: bool) -> Option<String> {
+    (teff_k < GREY_ATMOSPHERE_MIN_TEFF_K).then(|| {
+        let measured = if refined {
+            format!(
+                "; measured, this set's T_eff is {CM_DRA_TEFF_EXCESS_DEX} dex too hot and L {CM_DRA_LUMINOSITY_EXCESS_DEX} dex too bright at 0.21-0.23 M_sun (CM Dra A and B), within {QUIET_M_DWARF_TEFF_DEX} dex in T_eff at 0.12 M_sun (Proxima Cen) and 0.60 M_sun (YY Gem)"
+            )
+        } else {
+            String::new()
+        };
+        format!(
+            "atmosphere {atmosphere}: T_eff {teff_k:.0} K is below {GREY_ATMOSPHERE_MIN_TEFF_K:.0} K, where molecules set the photospheric opacity and a grey atmosphere (Rosseland mean) is inaccurate (Chabrier & Baraffe 1997){measured}"
+        )
+    })
+}
+
+/// The warnings of a model of `settings` with effective temperature `teff_k`, whose legs met
+/// `cautions` and whose central 3He equilibrium time is `he3_time_yr`.
+fn warnings(
+    settings: &ZamsSettings,
+    cautions: &Cautions,
+    teff_k: f64,
+    he3_time_yr: f64,
+) -> Vec<String> {
     let spec = settings.physics().spec();
     let mut out: Vec<String> = cautions
         .entries
@@ -117,6 +157,10 @@ fn warnings(settings: &ZamsSettings, cautions: &Cautions, he3_time_yr: f64) -> V
         out.push(format!(
             "mass {m} M_sun is outside {lo}-{hi} M_sun, the range on which the refined set has been compared with measured stars"
         ));
+    }
+    let refined = *spec == crate::physics::Preset::Refined.spec();
+    if let Some(w) = grey_atmosphere_caution(&spec.atmosphere.to_string(), teff_k, refined) {
+        out.push(w);
     }
     if let Some(w) = he3_caution(&spec.rates.to_string(), he3_time_yr) {
         out.push(w);
@@ -250,7 +294,12 @@ pub(crate) fn build(
         stats,
         unknowns: u,
         history,
-        warnings: warnings(settings, &legs.cautions, summary.he3_equilibrium_time_yr),
+        warnings: warnings(
+            settings,
+            &legs.cautions,
+            summary.teff_k,
+            summary.he3_equilibrium_time_yr,
+        ),
         photosphere: (u, legs.tolerance, legs.top.clone()),
     })
 }

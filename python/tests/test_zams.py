@@ -69,6 +69,9 @@ def test_summary_fields_are_the_library_quantities(sun_like):
     star = starpoise.zams(10.0, physics="analytic")
     assert math.isnan(star.central_degeneracy)
     assert star.summary()["central_degeneracy"] is None
+    # The analytic rates have no 3He reactions: no 3He equilibrium time.
+    assert math.isnan(star.he3_equilibrium_time_yr)
+    assert star.summary()["he3_equilibrium_time_yr"] is None
 
 
 def test_unknown_attribute_is_an_attribute_error(sun_like):

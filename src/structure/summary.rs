@@ -19,7 +19,8 @@ macro_rules! summary_quantities {
     ($( #[doc = $doc:literal] $name:ident ),* $(,)?) => {
         /// The summary quantities of a converged ZAMS model. Non-finite only where documented
         /// (`central_degeneracy` is NaN for a law without electron degeneracy,
-        /// `he3_equilibrium_time_yr` for a rates law without 3He reactions).
+        /// `he3_equilibrium_time_yr` for a rates law without 3He reactions, or where its rates
+        /// underflow, below about 1e6 K, which no ZAMS centre reaches).
         #[derive(Debug, Clone, Copy, PartialEq)]
         pub struct ModelSummary {
             $( #[doc = $doc] pub $name: f64, )*

@@ -204,7 +204,7 @@ pub fn text_table(t: &GridTable) -> String {
     }
     let warned: Vec<&GridRow> = t.rows.iter().filter(|r| !r.warnings.is_empty()).collect();
     if !warned.is_empty() {
-        out.push_str("\nwarnings (laws used outside their validity):\n");
+        out.push_str("\nwarnings (laws used outside their validity, and cautions):\n");
         for r in warned {
             for w in &r.warnings {
                 out.push_str(&format!(

@@ -191,7 +191,7 @@ pub fn sequence_columns() -> Vec<Column> {
         ),
         ("reason", String, "why the model did not converge (empty when it did)"),
         ("warnings", String,
-            "laws used outside their validity in a converged model, separated by ' | ' (empty: none)",
+            "a converged model's warnings (laws used outside their validity, and cautions: a grey atmosphere below 4000 K, 3He slow to reach equilibrium), separated by ' | ' (empty: none)",
         ),
         ("mass_msun", Float64, "stellar mass"),
         ("x", Float64, "hydrogen mass fraction X"),
@@ -272,7 +272,7 @@ pub fn compare_columns() -> Vec<Column> {
         (
             "warnings",
             String,
-            "laws used outside their validity in a converged model, separated by ' | ' (empty: none)",
+            "a converged model's warnings (laws used outside their validity, and cautions: a grey atmosphere below 4000 K, 3He slow to reach equilibrium), separated by ' | ' (empty: none)",
         ),
         ("luminosity_lsun", Float64, "luminosity"),
         ("radius_rsun", Float64, "radius"),

@@ -37,7 +37,7 @@ pub struct CompareRecord {
     pub status: String,
     /// Why the model did not converge (empty when it did).
     pub reason: String,
-    /// A converged model's warnings (laws used outside their validity), separated by ` | `
+    /// A converged model's warnings (laws used outside their validity, and cautions), separated by ` | `
     /// ([`GridRow::WARNING_SEPARATOR`]); empty if there are none.
     pub warnings: String,
     /// Luminosity, L_sun.

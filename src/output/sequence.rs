@@ -10,7 +10,7 @@
 //!   one row per point (read it with `pandas.read_csv(path, comment="#")`). Numbers are written
 //!   in the shortest form that reads back to the same double; an empty cell means "no value" (a
 //!   model that did not converge has only its identification, status, reason and iteration
-//!   count). `warnings` holds a converged model's warnings (laws used outside their validity),
+//!   count). `warnings` holds a converged model's warnings (laws used outside their validity, and cautions),
 //!   separated by ` | `, empty if there are none.
 //! - ECSV (`.ecsv`): the same columns and metadata with units in the YAML header
 //!   ([`crate::output::tabular`]).

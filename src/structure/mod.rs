@@ -7,6 +7,7 @@
 pub mod centre;
 pub mod equations;
 pub mod guess;
+pub mod he3;
 pub mod legs;
 pub mod limits;
 pub mod model;

@@ -76,16 +76,33 @@ pub const HE3_UNBURNT_LUMINOSITY_DEX: f64 = 0.061;
 /// See [`HE3_UNBURNT_LUMINOSITY_DEX`]: the radius, per cent.
 pub const HE3_UNBURNT_RADIUS_PERCENT: f64 = 6.4;
 
-/// The caution of a model whose central 3He equilibrium time is `time_yr` (none at or below
-/// [`HE3_CAUTION_TIME_YR`], or when the law has no 3He rates: NaN).
-pub fn he3_caution(rates: &str, time_yr: f64) -> Option<String> {
+/// The caution of a model whose central 3He equilibrium time is `central_yr` and, if it is
+/// fully convective, whose 3He mixed through the star relaxes in `mixed_yr`
+/// ([`super::he3::mixed_relaxation_time_s`]): judged on the mixed time where there is one,
+/// else the central one; none at or below [`HE3_CAUTION_TIME_YR`], or when the law has no 3He
+/// rates (NaN).
+pub fn he3_caution(rates: &str, central_yr: f64, mixed_yr: Option<f64>) -> Option<String> {
+    let time_yr = mixed_yr.unwrap_or(central_yr);
     (time_yr > HE3_CAUTION_TIME_YR).then(|| {
+        let where_ = match mixed_yr {
+            Some(mixed) => format!(
+                "mixed through this fully convective star it relaxes to equilibrium in {:.2} Gyr (e-folding time; {:.2} Gyr at the centre alone)",
+                mixed / 1e9,
+                central_yr / 1e9
+            ),
+            None => format!(
+                "at the centre it relaxes to equilibrium in {:.2} Gyr (e-folding time)",
+                central_yr / 1e9
+            ),
+        };
         format!(
-            "rates {rates}: 3He is taken in equilibrium, but at the centre it relaxes to equilibrium in {:.2} Gyr (e-folding time): a star of this mass younger than a few times that burns 3He incompletely and is fainter and smaller than this model (with no 3He burnt at all, L is {HE3_UNBURNT_LUMINOSITY_DEX} dex lower and R {HE3_UNBURNT_RADIUS_PERCENT}% smaller at 0.23 M_sun)",
-            time_yr / 1e9
+            "rates {rates}: 3He is taken in equilibrium, but {where_}: a star of this mass younger than a few times that burns 3He incompletely and is fainter and smaller than this model (with no 3He burnt at all, L is {HE3_UNBURNT_LUMINOSITY_DEX} dex lower and R {HE3_UNBURNT_RADIUS_PERCENT}% smaller at 0.23 M_sun)"
         )
     })
 }
+
+/// A model whose convective core holds all but this fraction of its mass is fully convective.
+const FULLY_CONVECTIVE_SLACK: f64 = 1e-9;
 
 /// Below this effective temperature, K, a model is cautioned that its atmosphere is grey. Every
 /// atmosphere of this program is: a T(tau) relation (Eddington, Hopf, Krishna Swamy) or the
@@ -123,12 +140,13 @@ pub fn grey_atmosphere_caution(atmosphere: &str, teff_k: f64, refined: bool) -> 
 }
 
 /// The warnings of a model of `settings` with effective temperature `teff_k`, whose legs met
-/// `cautions` and whose central 3He equilibrium time is `he3_time_yr`.
+/// `cautions` and whose 3He equilibrium times are `he3_times_yr` (central, and mixed through
+/// the star if it is fully convective).
 fn warnings(
     settings: &ZamsSettings,
     cautions: &Cautions,
     teff_k: f64,
-    he3_time_yr: f64,
+    he3_times_yr: (f64, Option<f64>),
 ) -> Vec<String> {
     let spec = settings.physics().spec();
     let mut out: Vec<String> = cautions
@@ -162,7 +180,7 @@ fn warnings(
     if let Some(w) = grey_atmosphere_caution(&spec.atmosphere.to_string(), teff_k, refined) {
         out.push(w);
     }
-    if let Some(w) = he3_caution(&spec.rates.to_string(), he3_time_yr) {
+    if let Some(w) = he3_caution(&spec.rates.to_string(), he3_times_yr.0, he3_times_yr.1) {
         out.push(w);
     }
     out
@@ -288,6 +306,18 @@ pub(crate) fn build(
         virial_residual: (thermal / gravity - 1.0).abs(),
         luminosity_residual: (eps_total / luminosity - 1.0).abs(),
     };
+    // A fully convective star mixes its 3He through the whole star.
+    let he3_mixed_yr = (core >= 1.0 - FULLY_CONVECTIVE_SLACK)
+        .then(|| {
+            super::he3::mixed_relaxation_time_s(
+                settings.physics().rates(),
+                comp,
+                centre_eos.density_g_cm3,
+                central_temperature_k,
+            )
+        })
+        .flatten()
+        .map(|s| s / YEAR_S);
     Ok(ZamsModel {
         settings: settings.clone(),
         summary,
@@ -298,7 +328,7 @@ pub(crate) fn build(
             settings,
             &legs.cautions,
             summary.teff_k,
-            summary.he3_equilibrium_time_yr,
+            (summary.he3_equilibrium_time_yr, he3_mixed_yr),
         ),
         photosphere: (u, legs.tolerance, legs.top.clone()),
     })

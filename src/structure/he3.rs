@@ -1,0 +1,88 @@
+//! How long the 3He of a fully convective star takes to reach the equilibrium its rates law
+//! takes for granted.
+//!
+//! In a fully convective star 3He is mixed through the whole star (convective turnover in
+//! months to years, against nuclear times of Gyr), so its mass fraction X_3 is the same
+//! everywhere, made where the pp reaction runs and destroyed where 3He + 3He and 3He + 4He run,
+//! both concentrated at the centre. Per gram of star, with n_3 = X_3 rho / m_3:
+//!
+//! dX_3/dt = m_3 (P - A X_3^2 - B X_3), P = <r_pp / rho>, A = <lambda_33 rho / m_3^2>,
+//! B = <lambda_34 / m_3>,
+//!
+//! <f> the mass average over the star; the equilibrium X_3 solves A X_3^2 + B X_3 = P and the
+//! relaxation to it (linearised) takes tau = 1 / (m_3 (2 A X_3 + B)). At one point (no
+//! mixing) this is the local 1 / (2 lambda_33 n_3 + lambda_34) of
+//! [`crate::physics::He3Equilibrium`].
+//!
+//! The averages are taken over an n = 1.5 polytrope with the model's central density and
+//! temperature, rho = rho_c theta^1.5 and T = T_c theta: a fully convective star follows one
+//! adiabat, P proportional to rho^(5/3) for an ideal monatomic gas and for non-relativistic
+//! degenerate electrons alike, so that both rho and T are those of the n = 1.5 polytrope (a
+//! fact of the trade; Chandrasekhar 1939, ch. IV, for the polytrope). The burning region, where
+//! the averages get their weight, is the inner tenth of the mass, where these hold best; the
+//! test `tests/warnings.rs` compares the estimate with the same averages over the model's own
+//! profile.
+
+use crate::physics::{Composition, EnergyGeneration};
+use crate::polytrope::{solve_lane_emden, LaneEmdenSettings, LaneEmdenSolution};
+use std::sync::OnceLock;
+
+/// Points of the n = 1.5 profile the averages are taken on (evenly spaced in xi).
+const POLYTROPE_POINTS: usize = 801;
+
+/// The n = 1.5 Lane–Emden profile, solved once per process.
+fn polytrope() -> Option<&'static LaneEmdenSolution> {
+    static PROFILE: OnceLock<Option<LaneEmdenSolution>> = OnceLock::new();
+    PROFILE
+        .get_or_init(|| {
+            let settings = LaneEmdenSettings::default()
+                .with_points(POLYTROPE_POINTS)
+                .ok()?;
+            solve_lane_emden(1.5, &settings).ok()
+        })
+        .as_ref()
+}
+
+/// The relaxation time, s, of the 3He of a fully convective star with central density
+/// `rho_c` (g/cm^3) and temperature `t_c` (K) to the equilibrium of `rates` (module
+/// documentation). `None` if the law has no 3He reactions or they vanish everywhere.
+pub fn mixed_relaxation_time_s(
+    rates: &dyn EnergyGeneration,
+    comp: &Composition,
+    rho_c: f64,
+    t_c: f64,
+) -> Option<f64> {
+    let profile = &polytrope()?.profile;
+    // Mass-weighted sums (trapezoid rule in xi, weight xi^2 theta^1.5) of 1, P, A and B.
+    let (mut mass, mut p, mut a, mut b) = (0.0, 0.0, 0.0, 0.0);
+    let mut m_3 = f64::NAN;
+    for (k, point) in profile.iter().enumerate() {
+        let theta = point.theta.max(0.0);
+        let end = k == 0 || k + 1 == profile.len();
+        let weight = point.xi * point.xi * theta * theta.sqrt() * if end { 0.5 } else { 1.0 };
+        if weight <= 0.0 {
+            continue;
+        }
+        mass += weight;
+        let rho = rho_c * theta * theta.sqrt();
+        // Where the rates underflow (the cool outer layers) they add nothing.
+        let Ok(Some(e)) = rates.he3_equilibrium(rho, t_c * theta, comp) else {
+            continue;
+        };
+        let m = e.mass_fraction * rho / e.number_density_cm3;
+        if m.is_finite() {
+            m_3 = m;
+        }
+        p += weight * e.production_cm3_s / rho;
+        a += weight * e.he3_he3_cm3_s * rho;
+        b += weight * e.he3_he4_per_s;
+    }
+    if !(mass > 0.0 && p > 0.0 && a > 0.0 && m_3 > 0.0) {
+        return None;
+    }
+    let (p, a, b) = (p / mass, a / mass / (m_3 * m_3), b / mass / m_3);
+    // A X^2 + B X = P, in the form without cancellation.
+    let x_3 = 2.0 * p / (b + (b * b + 4.0 * a * p).sqrt());
+    let tau = 1.0 / (m_3 * (2.0 * a * x_3 + b));
+    tau.is_finite().then_some(tau)
+}

@@ -323,7 +323,8 @@ struct Balance {
 impl SFactorRates {
     /// The 3He balance with `l11` the screened pp `<sigma v>`, and the temperature exponents of
     /// a and of `<sigma v>`_34. The root is written 2 r / (b + sqrt(b^2 + 4 a r)), which loses
-    /// no digits when b^2 >> 4 a r.
+    /// no digits when b^2 >> 4 a r; it is zero, and not computed, where r or a vanishes (the
+    /// cool layers, where the rates underflow: most of the structure's evaluations).
     fn balance(
         &self,
         rho: f64,
@@ -338,8 +339,11 @@ impl SFactorRates {
         let r = 0.5 * n_p * n_p * l11;
         let a = l33;
         let b = n_4 * l34;
-        let root = (b * b + 4.0 * a * r).sqrt();
-        let n_3 = 2.0 * r / (b + root);
+        let n_3 = if r > 0.0 && a > 0.0 {
+            2.0 * r / (b + (b * b + 4.0 * a * r).sqrt())
+        } else {
+            0.0
+        };
         (Balance { r, a, b, n_3 }, nu33, nu34)
     }
 

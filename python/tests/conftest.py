@@ -11,6 +11,7 @@ from __future__ import annotations
 import json
 import math
 import os
+import re
 import subprocess
 from pathlib import Path
 from typing import Any
@@ -18,6 +19,9 @@ from typing import Any
 import pytest
 
 REPO = Path(__file__).resolve().parents[2]
+
+# A number as the README prints it (the README tests compare numbers apart from the text).
+README_NUMBER = re.compile(r"[-+]?(?:\d+\.\d*|\.\d+|\d+)(?:[eE][-+]?\d+)?")
 
 # The module and the program call the same library function on the same machine, so their
 # numbers should agree to the last bit; 1e-12 (relative) is the agreement the module promises,

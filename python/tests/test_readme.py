@@ -11,9 +11,8 @@ import doctest
 import math
 import re
 
+from conftest import README_NUMBER as NUMBER
 from conftest import REPO
-
-NUMBER = re.compile(r"[-+]?(?:\d+\.\d*|\.\d+|\d+)(?:[eE][-+]?\d+)?")
 # Agreement the README's numbers are held to (see the module documentation).
 README_REL = 1e-6
 

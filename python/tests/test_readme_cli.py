@@ -13,14 +13,13 @@ from __future__ import annotations
 
 import math
 import os
-import re
 import subprocess
 
 import pytest
 
+from conftest import README_NUMBER as NUMBER
 from conftest import REPO, program
 
-NUMBER = re.compile(r"[-+]?(?:\d+\.\d*|\.\d+|\d+)(?:[eE][-+]?\d+)?")
 README_REL = 1e-6
 README_ABS = 1e-12
 
@@ -55,7 +54,7 @@ def _same_line(want: str, got: str) -> bool:
 
 def _matches(want: list[str], got: list[str]) -> str | None:
     """None if `got` is `want` with each `...` standing for any lines; else the first miss."""
-    want = [w for w in want]
+    want = list(want)
     while want and not want[-1].strip():
         want.pop()
     while got and not got[-1].strip():
@@ -92,7 +91,6 @@ def test_the_readme_has_command_blocks():
 def test_readme_command_prints_what_the_readme_shows(tmp_path, line, command, expected):
     env = dict(os.environ)
     env["PATH"] = f"{program().parent}{os.pathsep}{env.get('PATH', '')}"
-    env.pop("NO_COLOR", None)
     result = subprocess.run(
         ["bash", "-c", command], cwd=tmp_path, env=env, capture_output=True, text=True
     )

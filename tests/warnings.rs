@@ -253,20 +253,13 @@ fn mixed_he3_time_agrees_with_the_model_profile() {
         )
         .unwrap();
         let rows = model.profile(2000).unwrap();
-        let (mut p, mut a, mut b, mut m_3) = (0.0, 0.0, 0.0, f64::NAN);
-        let term = |r: &starpoise::structure::ProfileRow| match rates.he3_equilibrium(
-            r.density_g_cm3,
-            r.temperature_k,
-            &comp,
-        ) {
-            Ok(Some(e)) => Some(e),
-            _ => None,
-        };
+        // The averages of `structure::he3` in y = X_3 / m_3 (3He nuclei per gram).
+        let (mut p, mut a, mut b) = (0.0, 0.0, 0.0);
         for w in rows.windows(2) {
             let dm = w[1].mass_g - w[0].mass_g;
             for r in w {
-                if let Some(e) = term(r) {
-                    m_3 = e.mass_fraction * r.density_g_cm3 / e.number_density_cm3;
+                if let Ok(Some(e)) = rates.he3_equilibrium(r.density_g_cm3, r.temperature_k, &comp)
+                {
                     p += 0.5 * dm * e.production_cm3_s / r.density_g_cm3;
                     a += 0.5 * dm * e.he3_he3_cm3_s * r.density_g_cm3;
                     b += 0.5 * dm * e.he3_he4_per_s;
@@ -274,9 +267,9 @@ fn mixed_he3_time_agrees_with_the_model_profile() {
             }
         }
         let total = rows.last().unwrap().mass_g;
-        let (p, a, b) = (p / total, a / total / (m_3 * m_3), b / total / m_3);
-        let x_3 = 2.0 * p / (b + (b * b + 4.0 * a * p).sqrt());
-        let exact = 1.0 / (m_3 * (2.0 * a * x_3 + b));
+        let (p, a, b) = (p / total, a / total, b / total);
+        let y = 2.0 * p / (b + (b * b + 4.0 * a * p).sqrt());
+        let exact = 1.0 / (2.0 * a * y + b);
         let central = model.summary.he3_equilibrium_time_yr * starpoise::constants::YEAR_S;
         println!("{mass}: estimate {estimate:e} s, profile {exact:e} s, central {central:e} s");
         assert!(

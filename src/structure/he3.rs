@@ -4,15 +4,14 @@
 //! In a fully convective star 3He is mixed through the whole star (convective turnover in
 //! months to years, against nuclear times of Gyr), so its mass fraction X_3 is the same
 //! everywhere, made where the pp reaction runs and destroyed where 3He + 3He and 3He + 4He run,
-//! both concentrated at the centre. Per gram of star, with n_3 = X_3 rho / m_3:
+//! both concentrated at the centre. With y = X_3 / m_3 the 3He nuclei per gram, the same
+//! everywhere, n_3 = y rho and
 //!
-//! dX_3/dt = m_3 (P - A X_3^2 - B X_3), P = <r_pp / rho>, A = <lambda_33 rho / m_3^2>,
-//! B = <lambda_34 / m_3>,
+//! dy/dt = P - A y^2 - B y, P = <r_pp / rho>, A = <lambda_33 rho>, B = <lambda_34>,
 //!
-//! <f> the mass average over the star; the equilibrium X_3 solves A X_3^2 + B X_3 = P and the
-//! relaxation to it (linearised) takes tau = 1 / (m_3 (2 A X_3 + B)). At one point (no
-//! mixing) this is the local 1 / (2 lambda_33 n_3 + lambda_34) of
-//! [`crate::physics::He3Equilibrium`].
+//! <f> the mass average over the star; the equilibrium y solves A y^2 + B y = P and the
+//! relaxation to it (linearised) takes tau = 1 / (2 A y + B). At one point (no mixing) this
+//! is the local 1 / (2 lambda_33 n_3 + lambda_34) of [`crate::physics::He3Equilibrium`].
 //!
 //! The averages are taken over an n = 1.5 polytrope with the model's central density and
 //! temperature, rho = rho_c theta^1.5 and T = T_c theta: a fully convective star follows one
@@ -63,7 +62,6 @@ pub fn mixed_relaxation_time_s(
     let mass = polytrope.omega_n;
     // Mass-weighted integrals (trapezoid rule in xi, weight xi^2 theta^1.5) of P, A and B.
     let (mut p, mut a, mut b) = (0.0, 0.0, 0.0);
-    let mut m_3 = f64::NAN;
     for (k, point) in profile.iter().enumerate() {
         let theta = point.theta.max(0.0);
         let end = k == 0 || k + 1 == profile.len();
@@ -77,20 +75,16 @@ pub fn mixed_relaxation_time_s(
         let Ok(Some(e)) = rates.he3_equilibrium(rho, t_c * theta, comp) else {
             continue;
         };
-        let m = e.mass_fraction * rho / e.number_density_cm3;
-        if m.is_finite() {
-            m_3 = m;
-        }
         p += weight * e.production_cm3_s / rho;
         a += weight * e.he3_he3_cm3_s * rho;
         b += weight * e.he3_he4_per_s;
     }
-    if !(mass > 0.0 && p > 0.0 && a > 0.0 && m_3 > 0.0) {
+    if !(p > 0.0 && a > 0.0) {
         return None;
     }
-    let (p, a, b) = (p / mass, a / mass / (m_3 * m_3), b / mass / m_3);
-    // A X^2 + B X = P, in the form without cancellation.
-    let x_3 = 2.0 * p / (b + (b * b + 4.0 * a * p).sqrt());
-    let tau = 1.0 / (m_3 * (2.0 * a * x_3 + b));
+    let (p, a, b) = (p / mass, a / mass, b / mass);
+    // A y^2 + B y = P, in the form without cancellation.
+    let y = 2.0 * p / (b + (b * b + 4.0 * a * p).sqrt());
+    let tau = 1.0 / (2.0 * a * y + b);
     tau.is_finite().then_some(tau)
 }

@@ -276,14 +276,19 @@ struct Transition {
 }
 
 impl Transition {
-    /// f at the transition, linear in the cell.
-    fn value(&self, f: &[f64]) -> f64 {
+    /// The quantity `f(k)` of row k at the transition, linear in the cell.
+    fn at(&self, f: impl Fn(usize) -> f64) -> f64 {
         let j = self.row;
         if self.theta > 0.0 {
-            f[j] + self.theta * (f[j + 1] - f[j])
+            f(j) + self.theta * (f(j + 1) - f(j))
         } else {
-            f[j]
+            f(j)
         }
+    }
+
+    /// f at the transition, linear in the cell.
+    fn value(&self, f: &[f64]) -> f64 {
+        self.at(|k| f[k])
     }
 
     /// int_0^m_t f dm by the trapezoid rule: whole cells to `row` (`whole`), then the part of
@@ -504,15 +509,7 @@ pub fn radial_stability(
         nuclear_part_per_s: w_nuclear * scale,
         radiative_part_per_s: w_radiative * scale,
         growth_per_radian: (w_nuclear + w_radiative) * scale / omega,
-        transition_mass_fraction: {
-            let (j, theta) = (transition.row, transition.theta);
-            let below = rows[j].m_over_m;
-            if theta > 0.0 {
-                below + theta * (rows[j + 1].m_over_m - below)
-            } else {
-                below
-            }
-        },
+        transition_mass_fraction: transition.at(|k| rows[k].m_over_m),
     };
     if !(result.growth_rate_per_s.is_finite() && inertia_g_cm2 > 0.0) {
         return Err(Error::ModeSearch {

@@ -63,8 +63,9 @@ pub struct ZamsModel {
 /// warning.
 pub const REFINED_VALIDATED_MASS_RANGE_MSUN: (f64, f64) = (0.1, 30.0);
 
-/// A model whose central 3He equilibrium time exceeds this, yr, is cautioned that real stars
-/// of its mass and a few Gyr of age have not reached the 3He equilibrium its rates law takes.
+/// A model whose 3He relaxation time (the mixed star's if it is fully convective, else the
+/// centre's; [`he3_caution`]) exceeds this, yr, is cautioned that real stars of its mass and a
+/// few Gyr of age have not reached the 3He equilibrium its rates law takes.
 pub const HE3_CAUTION_TIME_YR: f64 = 1e9;
 
 /// How much fainter and smaller a star is when its pp chain stops at 3He (no 3He burnt at all)

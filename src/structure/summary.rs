@@ -79,7 +79,7 @@ summary_quantities! {
     dynamical_time_s,
     /// Hydrogen-burning lifetime estimate 0.1 X M (Q / 4 m_H c^2) c^2 / L, years.
     nuclear_time_yr,
-    /// Relaxation time of 3He to its equilibrium abundance at the centre, 1 / (2 lambda_33 n_3,eq + lambda_34) (3He made by pp, destroyed by 3He + 3He and 3He + 4He), years; null (NaN) for rates laws without 3He reactions (analytic, power-law). Above 1e9 the model carries a caution.
+    /// Relaxation time of 3He to its equilibrium abundance at the centre, 1 / (2 lambda_33 n_3,eq + lambda_34) (3He made by pp, destroyed by 3He + 3He and 3He + 4He), years; null (NaN) for rates laws without 3He reactions (analytic, power-law). Above 1e9 the model carries a caution (a fully convective model is judged on its 3He mixed through the star, which takes longer).
     he3_equilibrium_time_yr,
     /// |integral of 3 P / rho dm / integral of G m / r dm - 1| (virial theorem, 0 when exact).
     virial_residual,

@@ -69,7 +69,7 @@ const LN_DONOR_WEIGHT_RATIO: f64 = std::f64::consts::LN_2;
 #[derive(Debug, Clone, Copy, Default)]
 pub struct MolecularEos;
 
-pub(crate) const ENGINE: Plasma = Plasma {
+pub(super) const ENGINE: Plasma = Plasma {
     law: "molecular",
     ionisation: Ionisation::Molecular,
     electrons: Electrons::FermiDirac,

@@ -202,6 +202,7 @@ impl Plasma {
         // within the bracket, and Newton from its ends then creeps in from both sides.
         let mut psi_guess = None;
         let mut last_f = f64::INFINITY;
+        let domain = (lo, hi);
         for _ in 0..100 {
             let solved = self.solve(ln_rho.fast_exp().clamp(rlo, rhi), t, comp, psi_guess)?;
             let s = solved.state;
@@ -215,7 +216,7 @@ impl Plasma {
                 lo = ln_rho;
             }
             let newton = ln_rho - f / s.chi_rho.max(1e-6);
-            let stalled = lo > rlo.ln() && hi < rhi.ln() && f.abs() > 0.5 * last_f;
+            let stalled = lo > domain.0 && hi < domain.1 && f.abs() > 0.5 * last_f;
             last_f = f.abs();
             let next = if !stalled && newton > lo && newton < hi && (newton - ln_rho).abs() < 3.0 {
                 newton

@@ -292,3 +292,46 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
         cautions,
     })
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::constants::{L_SUN_ERG_S, R_SUN_CM};
+    use crate::physics::opacity::electron_scattering::ElectronScattering;
+    use crate::physics::{AtmosphereSpec, Composition, PhysicsSet};
+    use std::sync::Arc;
+
+    /// With a constant opacity the atmosphere has the exact solution P_gas = tau (g / kappa - F/c)
+    /// whatever T(tau) is, so the weighted integration must give the photospheric pressure
+    /// tau_ph (g / kappa - F/c) + a T_eff^4 / 3 (T = T_eff at tau_ph by definition) to the
+    /// integrator's accuracy, for each T(tau) relation (1e-11 asked, 1e-10 allowed: a few dozen
+    /// steps), and the column mass tau_ph / kappa above it.
+    #[test]
+    fn weighted_integration_reproduces_the_constant_opacity_solution() {
+        let comp = Composition::new(0.70, 0.02).unwrap();
+        let kappa = ElectronScattering::kappa_cm2_g(&comp);
+        for relation in [
+            AtmosphereSpec::Eddington,
+            AtmosphereSpec::Hopf,
+            AtmosphereSpec::KrishnaSwamy,
+        ] {
+            let physics = PhysicsSet::refined()
+                .with_opacity(Arc::new(ElectronScattering))
+                .with_atmosphere(relation);
+            let ctx = super::super::leg_context(1.0, &physics, &comp, 1e-11);
+            let start = start(&ctx, R_SUN_CM.ln(), L_SUN_ERG_S.ln()).unwrap();
+            let tau_ph = physics.atmosphere().relation().unwrap().photosphere_tau();
+            let gravity = G_CGS * ctx.total_mass_g / (R_SUN_CM * R_SUN_CM);
+            let flux_over_c = SIGMA_SB_CGS * start.teff_k.powi(4) / C_CM_S;
+            let expected =
+                tau_ph * (gravity / kappa - flux_over_c) + A_RAD_CGS * start.teff_k.powi(4) / 3.0;
+            let rel = start.pressure_dyn_cm2 / expected - 1.0;
+            assert!(rel.abs() < 1e-10, "{relation:?}: {rel:e}");
+            let column = 4.0 * PI * R_SUN_CM * R_SUN_CM * tau_ph / kappa / ctx.total_mass_g;
+            assert!(
+                (start.x0.exp() / column - 1.0).abs() < 1e-10,
+                "{relation:?}"
+            );
+        }
+    }
+}

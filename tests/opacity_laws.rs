@@ -207,3 +207,16 @@ fn refined_opacity_below_4000_k() {
     let h_minus = HMinus::formula(1e-7, 5000.0, &c);
     assert!(hot < 1.1 * h_minus + 0.01, "{hot} vs H- {h_minus}");
 }
+
+/// The refined law reports the ends of its two switches in temperature (H- off below
+/// 2500-3000 K, molecules off above 4500-5500 K) as its temperature breaks, in increasing order
+/// (what `structure::surface` needs to restart the atmosphere there); the smooth laws report none.
+#[test]
+fn temperature_breaks_are_the_switch_ends_in_increasing_order() {
+    use starpoise::physics::opacity::{ElectronScattering, Kramers, Opacity, RefinedOpacity};
+    let breaks = RefinedOpacity::default().temperature_breaks_k();
+    assert_eq!(breaks, &[2500.0, 3000.0, 4500.0, 5500.0]);
+    assert!(breaks.windows(2).all(|w| w[0] < w[1]));
+    assert!(ElectronScattering.temperature_breaks_k().is_empty());
+    assert!(Kramers::new(1.0).unwrap().temperature_breaks_k().is_empty());
+}

@@ -15,7 +15,7 @@ fn model(mass: f64) -> ModelSummary {
 }
 
 /// A measured component: mass (M_sun), radius and its error (R_sun), T_eff and its error (K)
-/// where published.
+/// where published and checked.
 struct Component {
     name: &'static str,
     mass_msun: f64,
@@ -44,6 +44,10 @@ const YOUNG: [Component; 5] = [
         radius_rsun: (2.29, 0.14),
         teff_k: Some((15000.0, 500.0)),
     },
+    // Its published T_eff, 11 000 +- 500 K, is not checked: with its radius it gives
+    // L = 48 L_sun, half the 100 L_sun of a 3.18 M_sun star on the ZAMS in the fits of Tout et al.
+    // (1996, computed), and a star only brightens on the main sequence; the model is 0.098 dex
+    // hotter (README, Accuracy).
     Component {
         name: "V615 Per B",
         mass_msun: 3.18,
@@ -59,10 +63,12 @@ const YOUNG: [Component; 5] = [
 ];
 
 /// A star's radius only grows on the main sequence, so the ZAMS model of a young star's mass is
-/// not larger than the star beyond two standard deviations, and (these stars being less than
-/// half-way through their main-sequence lives) not smaller by more than 20 per cent
-/// (docs/references.md §8.8, fact of the trade). T_eff: the M-dwarf issue's model window of
-/// 0.03 dex widened by the measurement's two standard deviations (in dex).
+/// not larger than the star beyond two standard deviations (docs/references.md §8.8, fact of
+/// the trade); how much smaller it is (2-15 per cent here) is reported in the README, not
+/// bounded here. T_eff: the M-dwarf issue's model window of 0.03 dex widened by the
+/// measurement's two standard deviations (in dex). At solar composition: V615 Per A's model at
+/// X = 0.72, Z = 0.01 (h Persei is metal-poor) is 0.069 dex hotter than the star, outside its
+/// 0.059 dex (README).
 #[test]
 fn young_eclipsing_binaries() {
     for c in &YOUNG {
@@ -70,7 +76,7 @@ fn young_eclipsing_binaries() {
         let (r_obs, r_err) = c.radius_rsun;
         let ratio = s.radius_rsun / r_obs;
         assert!(
-            ratio <= 1.0 + 2.0 * r_err / r_obs && ratio >= 0.80,
+            ratio <= 1.0 + 2.0 * r_err / r_obs,
             "{}: R model / measured = {ratio}",
             c.name
         );

@@ -43,6 +43,10 @@ impl<L: Opacity + ?Sized> Opacity for Scaled<L> {
         self.inner.caution(rho, t, comp)
     }
 
+    fn temperature_breaks_k(&self) -> &'static [f64] {
+        self.inner.temperature_breaks_k()
+    }
+
     fn kappa(&self, rho: f64, t: f64, comp: &Composition) -> Result<f64, PhysicsError> {
         Ok(self.factor * self.inner.kappa(rho, t, comp)?)
     }

@@ -19,12 +19,21 @@
 //! w = exp(c (x - ln tau_ph)), c = [`TOP_ERROR_WEIGHT`] (w = 1 at the photosphere, 1e-3 or so at
 //! tau0), so that the integrator's absolute tolerance on v lets the error of ln P_gas grow
 //! toward the top as 1/w. The top is where it does not matter: a perturbation of ln P_gas at
-//! optical depth tau decays on the way down as exp(-int f (1 + a) dx), with f = dln P_gas/dln tau
-//! (0.7-1 in the upper atmosphere) and a = dln kappa/dln P (0.5 for H-, 1 for Kramers, 0 for
-//! electron scattering; slightly negative only where scattering by partly ionised hydrogen
-//! dominates), in general faster than the weight grows. The result at the photosphere has the
-//! accuracy of the unweighted integration (measured: the models move by at most a few 1e-9,
-//! the spread of converged answers) for half the right-hand sides in the upper atmosphere.
+//! optical depth tau decays on the way down as exp(-int D dx), D = f + a f_g, with
+//! f = dln P_gas/dln tau, f_g = tau g / (kappa P_gas) (f without the radiative force) and
+//! a = dln kappa/dln P at fixed T (0.5 for H-, 1 for Kramers, 0 for electron scattering;
+//! slightly negative only where scattering by partly ionised hydrogen dominates). D is about 1
+//! in the upper atmosphere (0.8 or more in M dwarfs, 1.0-1.2 for the Sun, 1.0 for hot stars;
+//! it falls to about 0.5 only near the photosphere, where w is close to 1), so errors made
+//! high up are damped faster than the weight grows.
+//!
+//! The integration restarts where T(tau) crosses a temperature at which the opacity is only
+//! twice differentiable ([`crate::physics::Opacity::temperature_breaks_k`]: the ends of the
+//! refined law's switches), since an embedded error estimate does not see such a kink; with
+//! the weight, steps arriving at it are long. Measured over 106 models 0.08-1.6 M_sun at three
+//! compositions (photospheric pressure at tolerance 1e-11 against 1e-13 at fixed R, L): at most
+//! 2.8e-10, against 4.1e-8 unweighted in one piece and 6e-7 weighted in one piece; the atmospheres
+//! of a 1 M_sun solve take 1 239 right-hand sides instead of 1 776.
 //!
 //! The mass above the photosphere, (P_gas + tau_ph F/c) 4 pi R^2 / g, starts the inward leg at
 //! D0 = 1 - m/M; it is about 1e-11 of M for the Sun.
@@ -36,7 +45,7 @@ use crate::error::PhysicsError;
 use crate::error::{LegCause, LegError, LegName};
 use crate::numerics::exponential::FastExp;
 use crate::numerics::ode::{Dop853, Dop853Settings, NoObserver, OdeError, OdeSystem, RhsFailure};
-use crate::numerics::scalar::newton_1d;
+use crate::numerics::scalar::{illinois, newton_1d};
 use crate::physics::atmosphere::TauRelation;
 use crate::physics::EosState;
 use nalgebra::SVector;
@@ -187,6 +196,20 @@ impl OdeSystem<1> for TauAtmosphere<'_> {
     }
 }
 
+/// The ln tau in (`x_top`, `x_ph`) where the relation's T(tau) for `teff_k` equals `t_break`, which lies
+/// strictly between T(tau_top) and T(tau_ph) (T(tau) increases with tau for every relation): by
+/// the Illinois method to 1e-13 in ln tau.
+fn crossing_ln_tau(
+    relation: &dyn TauRelation,
+    teff_k: f64,
+    t_break: f64,
+    (x_top, x_ph): (f64, f64),
+) -> f64 {
+    let g = |x: f64| Ok::<f64, ()>(relation.temperature_k(teff_k, x.exp()) - t_break);
+    let (g_top, g_ph) = (g(x_top).unwrap_or(-1.0), g(x_ph).unwrap_or(1.0));
+    illinois(g, x_top, g_top, x_ph, g_ph, 1e-13).unwrap_or(x_ph)
+}
+
 /// Photospheric state for trial ln R, ln L: the start of the inward leg.
 pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> {
     let r = ln_r.exp();
@@ -238,31 +261,44 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
                 ..Dop853Settings::default()
             };
             let failed = |cause: LegCause, tau: f64| atmosphere_error(ctx, tau, cause);
-            let top_weight = system.weight(ATMOSPHERE_TOP_TAU.ln());
+            let (x_top, x_ph) = (ATMOSPHERE_TOP_TAU.ln(), tau_ph.ln());
             let mut solver = Dop853::<1>::new(settings)
                 .map_err(|e| failed(LegCause::Integrator(e.to_string()), ATMOSPHERE_TOP_TAU))?;
-            let outcome = solver
-                .integrate(
-                    &mut system,
-                    ATMOSPHERE_TOP_TAU.ln(),
-                    &SVector::<f64, 1>::new(top_weight * p_gas_top.ln()),
-                    tau_ph.ln(),
-                    &mut NoObserver,
-                )
-                .map_err(|e| {
-                    let tau = e.x().unwrap_or(ATMOSPHERE_TOP_TAU.ln()).exp();
-                    let cause = match e {
-                        OdeError::Rhs { source, .. } => LegCause::Physics(source),
-                        other => LegCause::Integrator(format!(
-                            "{} atmosphere at T_eff = {teff:.1} K: {other}",
-                            relation.name()
-                        )),
-                    };
-                    failed(cause, tau)
-                })?;
+            // Segment by segment: the integration restarts where T(tau) (increasing with tau)
+            // crosses a temperature at which the opacity is only twice differentiable.
+            let mut x = x_top;
+            let mut y = SVector::<f64, 1>::new(system.weight(x_top) * p_gas_top.ln());
+            let crossings = ctx
+                .physics
+                .opacity()
+                .temperature_breaks_k()
+                .iter()
+                .filter(|&&t_break| t_top < t_break && t_break < teff)
+                .map(|&t_break| crossing_ln_tau(relation, teff, t_break, (x_top, x_ph)));
+            for x_end in crossings.chain(std::iter::once(x_ph)) {
+                let outcome = solver
+                    .integrate(&mut system, x, &y, x_end, &mut NoObserver)
+                    .map_err(|e| {
+                        let tau = e.x().unwrap_or(x).exp();
+                        let cause = match e {
+                            OdeError::Rhs { source, .. } => LegCause::Physics(source),
+                            other => LegCause::Integrator(format!(
+                                "{} atmosphere at T_eff = {teff:.1} K: {other}",
+                                relation.name()
+                            )),
+                        };
+                        failed(cause, tau)
+                    })?;
+                (x, y) = (x_end, outcome.y);
+                // The next segment starts with the step the controller proposes here, rather
+                // than estimating one afresh.
+                solver
+                    .set_initial_step(Some(outcome.next_step))
+                    .map_err(|e| failed(LegCause::Integrator(e.to_string()), x.exp()))?;
+            }
             // The weight is 1 at the photosphere. Column mass: d P_gas = (g - kappa F/c) dm, so
             // m g = P_gas + tau F/c.
-            let p_gas = outcome.y[0].exp();
+            let p_gas = y[0].exp();
             check(p_gas + p_rad_ph, teff);
             (p_gas + p_rad_ph, (p_gas + tau_ph * flux_over_c) / gravity)
         }
@@ -332,6 +368,43 @@ mod tests {
                 (start.x0.exp() / column - 1.0).abs() < 1e-10,
                 "{relation:?}"
             );
+        }
+    }
+
+    /// Where T(tau) crosses the ends of the refined opacity's switches (2500-3000 K, 4500-5500
+    /// K), kappa is only twice differentiable and the error estimate does not see the kink: the
+    /// photospheric pressure at the default tolerance 1e-11 is within 1e-9 of the one at 1e-13
+    /// (this project's measurement over 106 models 0.08-1.6 M_sun: at most 2.8e-10) for two stars
+    /// whose atmospheres cross them (R, L of their models: 0.6241 M_sun at X = 0.75, Z = 0.002,
+    /// T_eff 4704 K; 0.08 M_sun at Z = 0.04, T_eff 2418 K). Integrated across the switches in one
+    /// piece, with the error weight, they were off by 6e-7 and 1e-7.
+    #[test]
+    fn photospheric_pressure_is_accurate_across_the_opacity_switches() {
+        for (mass, x, z, r_rsun, l_lsun) in [
+            (
+                0.6241,
+                0.75,
+                0.002,
+                0.518_609_185_464_880_2,
+                0.118_645_599_792_709_72,
+            ),
+            (
+                0.08,
+                0.70,
+                0.04,
+                0.100_173_318_530_688_75,
+                0.000_308_790_763_349_912_34,
+            ),
+        ] {
+            let comp = Composition::new(x, z).unwrap();
+            let physics = PhysicsSet::refined();
+            let pressure = |tolerance: f64| {
+                let ctx = super::super::leg_context(mass, &physics, &comp, tolerance);
+                let (r, l) = (r_rsun * R_SUN_CM, l_lsun * L_SUN_ERG_S);
+                start(&ctx, r.ln(), l.ln()).unwrap().pressure_dyn_cm2
+            };
+            let rel = pressure(1e-11) / pressure(1e-13) - 1.0;
+            assert!(rel.abs() < 1e-9, "{mass} M_sun: {rel:e}");
         }
     }
 }

@@ -38,6 +38,14 @@ pub trait Opacity: Send + Sync + std::fmt::Debug {
         None
     }
 
+    /// Temperatures (K) where kappa is only twice differentiable in T, whatever the density:
+    /// the ends of the law's smooth switches in temperature. An embedded Runge–Kutta error
+    /// estimate does not see such a kink, so an integration along T(tau) restarts there
+    /// (`structure::surface`), in increasing order. Empty (the default) for a law smooth in T.
+    fn temperature_breaks_k(&self) -> &'static [f64] {
+        &[]
+    }
+
     /// Rosseland-mean opacity kappa, cm^2 g^-1, at density `rho_g_cm3` and temperature
     /// `temperature_k`. Errors (never NaN) outside the law's domain.
     fn kappa(

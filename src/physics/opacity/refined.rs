@@ -46,6 +46,14 @@ pub const H_MINUS_T_OFF_K: (f64, f64) = (2500.0, 3000.0);
 /// opacity takes from Hansen & Kawaler instead.
 pub const MOLECULES_T_OFF_K: (f64, f64) = (4500.0, 5500.0);
 
+/// The ends of the two switches in temperature, K: where kappa is only twice differentiable in T.
+const SWITCH_ENDS_K: [f64; 4] = [
+    H_MINUS_T_OFF_K.0,
+    H_MINUS_T_OFF_K.1,
+    MOLECULES_T_OFF_K.0,
+    MOLECULES_T_OFF_K.1,
+];
+
 /// Smallest and largest temperature accepted, K.
 pub const REFINED_T_RANGE_K: (f64, f64) = (1.0e3, 1.0e10);
 
@@ -181,6 +189,10 @@ impl Opacity for RefinedOpacity {
         (t < grain_evaporation_k(rho)).then_some(
             "below the evaporation temperature of metal grains (about 2000 K, Bell & Lin 1994): grain opacity not included",
         )
+    }
+
+    fn temperature_breaks_k(&self) -> &'static [f64] {
+        &SWITCH_ENDS_K
     }
 
     fn name(&self) -> String {

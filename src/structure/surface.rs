@@ -57,7 +57,7 @@ pub const PHOTOSPHERE_TAU: f64 = 2.0 / 3.0;
 /// Optical depth where the T(tau) integration starts.
 pub const ATMOSPHERE_TOP_TAU: f64 = 1e-6;
 /// Rate c of the error weight w = exp(c (ln tau - ln tau_ph)) of the T(tau) integration (module
-/// doc): below the decay rate f (1 + a) >= 0.7 of perturbations in the upper atmosphere.
+/// doc): below the decay rate D, about 1, of perturbations in the upper atmosphere.
 pub const TOP_ERROR_WEIGHT: f64 = 0.5;
 
 /// The start of the inward leg.
@@ -196,9 +196,9 @@ impl OdeSystem<1> for TauAtmosphere<'_> {
     }
 }
 
-/// The ln tau in (`x_top`, `x_ph`) where the relation's T(tau) for `teff_k` equals `t_break`, which lies
-/// strictly between T(tau_top) and T(tau_ph) (T(tau) increases with tau for every relation): by
-/// the Illinois method to 1e-13 in ln tau.
+/// The ln tau in (`x_top`, `x_ph`) where the relation's T(tau) for `teff_k` equals `t_break`,
+/// which lies strictly between T(tau_top) and T(tau_ph) (T(tau) increases with tau for every
+/// relation): by the Illinois method to 1e-13 in ln tau.
 fn crossing_ln_tau(
     relation: &dyn TauRelation,
     teff_k: f64,
@@ -276,6 +276,9 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
                 .filter(|&&t_break| t_top < t_break && t_break < teff)
                 .map(|&t_break| crossing_ln_tau(relation, teff, t_break, (x_top, x_ph)));
             for x_end in crossings.chain(std::iter::once(x_ph)) {
+                if x_end <= x {
+                    continue;
+                }
                 let outcome = solver
                     .integrate(&mut system, x, &y, x_end, &mut NoObserver)
                     .map_err(|e| {

@@ -124,3 +124,29 @@ fn below_the_limit_is_bad_input_and_limits_prints_it() {
     let out = starpoise(&["limits", "--preset", "analytic"]);
     assert_eq!(out.status.code(), Some(2));
 }
+
+/// Outside the built-in table (Z = 0.0005 here, below its 0.001), a mass below the limit is not
+/// known to be so before the solve; when the solve fails, the limit of these laws and this
+/// composition is computed, and `zams` answers with exit 2, "no hydrogen-burning star of this
+/// mass exists", and the computed limit (the limit rises at low metallicity: above the 0.0861
+/// M_sun tabulated at Z = 0.001, Chabrier & Baraffe 2000 as quoted in docs/references.md §8.5
+/// give 0.083 at [M/H] = -1).
+#[test]
+fn below_a_computed_limit_is_bad_input_too() {
+    let out = starpoise(&["zams", "--mass", "0.079", "--z", "0.0005"]);
+    assert_eq!(out.status.code(), Some(2));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(
+        err.contains("no hydrogen-burning star of this mass exists") && err.contains("computed"),
+        "{err}"
+    );
+    let limit: f64 = err
+        .split("minimum mass of these laws is ")
+        .nth(1)
+        .and_then(|rest| rest.split_whitespace().next())
+        .and_then(|v| v.parse().ok())
+        .unwrap_or_else(|| panic!("no limit in: {err}"));
+    let tabulated = tabulated_refined_limit_msun(0.70, 0.001).unwrap();
+    assert!(limit > tabulated && limit < 0.095, "{limit}");
+    assert!(out.stdout.is_empty());
+}

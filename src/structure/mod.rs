@@ -320,6 +320,9 @@ pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
         }
     }
     if !report.converged() {
+        if let Some(below) = below_the_computed_limit(settings) {
+            return Err(below);
+        }
         return Err(Error::NoConvergence(Box::new(NotConverged {
             mass_msun: settings.mass_msun,
             termination: report.termination,
@@ -346,6 +349,40 @@ pub fn solve(settings: &ZamsSettings) -> Result<ZamsModel> {
         tolerance: problem.ctx().tolerance,
     };
     model::build(settings, problem.ctx(), &legs, report.history, stats)
+}
+
+/// After a failed solve below [`limits::START_MASS_MSUN`]: whether the mass lies below the
+/// hydrogen-burning limit of these laws and this composition, computed
+/// ([`limits::hydrogen_burning_limit`], a few seconds; the built-in table covers only the refined
+/// preset over X = 0.65-0.75, Z = 0.001-0.04, and [`ZamsSettings::new`] refuses below it before
+/// any solve). If so, an [`Error::InvalidInput`] naming the mass and the limit: no
+/// hydrogen-burning star of that mass exists. `None` when the mass is above the limit, the limit
+/// cannot be computed, or the mass is at or above the limit search's starting mass (whose own
+/// solve calls this function).
+fn below_the_computed_limit(settings: &ZamsSettings) -> Option<Error> {
+    if settings.mass_msun >= limits::START_MASS_MSUN {
+        return None;
+    }
+    let (comp, physics) = (&settings.composition, &settings.physics);
+    let limit = limits::hydrogen_burning_limit(comp, physics).ok()?;
+    if settings.mass_msun >= limit.mass_msun {
+        return None;
+    }
+    let what = match &limit.stopped_by {
+        None => format!(
+            "no hydrogen-burning star of this mass exists for X = {}, Z = {}: the hydrogen-burning minimum mass of these laws is {:.4} M_sun there (computed: the turning point of the ZAMS branch; `starpoise limits` shows its model)",
+            comp.x(),
+            comp.z(),
+            limit.mass_msun
+        ),
+        Some(why) => format!(
+            "these laws give no ZAMS model of this mass for X = {}, Z = {}: below {:.4} M_sun they fail before the ZAMS branch turns ({why}); `starpoise limits` shows the lowest model",
+            comp.x(),
+            comp.z(),
+            limit.mass_msun
+        ),
+    };
+    Some(Error::invalid("mass_msun", settings.mass_msun, &what))
 }
 
 /// A starting guess whose legs can be integrated. If `u0` itself cannot be (a poor guess can use

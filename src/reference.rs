@@ -49,6 +49,75 @@ pub fn kjeldsen_bedding_nu_max_uhz(mass_msun: f64, radius_rsun: f64, teff_k: f64
     3050.0 * mass_msun * radius_rsun.powi(-2) * (teff_k / 5777.0).powf(-0.5)
 }
 
+/// A component of a young detached eclipsing binary: mass (M_sun), radius and its error (R_sun),
+/// and T_eff and its error (K) where published and usable as a check.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct YoungComponent {
+    /// The star's name.
+    pub name: &'static str,
+    /// Measured mass, M_sun.
+    pub mass_msun: f64,
+    /// Measured radius and its standard deviation, R_sun.
+    pub radius_rsun: (f64, f64),
+    /// Measured effective temperature and its standard deviation, K (`None`: not published, or
+    /// not usable as a check).
+    pub teff_k: Option<(f64, f64)>,
+}
+
+/// Components of detached eclipsing binaries in very young clusters, near the ZAMS
+/// (docs/references.md §8.8 [CONFIRMED, abstracts]): V578 Mon A/B in NGC 2244 (Garcia et al.
+/// 2014), V615 Per A/B and V618 Per A in h Persei (Southworth, Maxted & Smalley 2004). V615 Per
+/// B's published T_eff, 11 000 +- 500 K, is left out: with its radius it gives L = 48 L_sun, half
+/// the 100 L_sun of a 3.18 M_sun star on the ZAMS in the fits of Tout et al. (1996, computed),
+/// and a star only brightens on the main sequence.
+pub const YOUNG_ECLIPSING_COMPONENTS: [YoungComponent; 5] = [
+    YoungComponent {
+        name: "V578 Mon A",
+        mass_msun: 14.54,
+        radius_rsun: (5.41, 0.04),
+        teff_k: Some((30000.0, 500.0)),
+    },
+    YoungComponent {
+        name: "V578 Mon B",
+        mass_msun: 10.29,
+        radius_rsun: (4.29, 0.05),
+        teff_k: Some((25750.0, 435.0)),
+    },
+    YoungComponent {
+        name: "V615 Per A",
+        mass_msun: 4.08,
+        radius_rsun: (2.29, 0.14),
+        teff_k: Some((15000.0, 500.0)),
+    },
+    YoungComponent {
+        name: "V615 Per B",
+        mass_msun: 3.18,
+        radius_rsun: (1.90, 0.09),
+        teff_k: None,
+    },
+    YoungComponent {
+        name: "V618 Per A",
+        mass_msun: 2.33,
+        radius_rsun: (1.64, 0.07),
+        teff_k: None,
+    },
+];
+
+impl YoungComponent {
+    /// Largest ZAMS radius over the measured one a young star allows: 1 + 2 sigma / R (a star's
+    /// radius only grows on the main sequence; fact of the trade, docs/references.md §8.8).
+    pub fn largest_radius_ratio(&self) -> f64 {
+        1.0 + 2.0 * self.radius_rsun.1 / self.radius_rsun.0
+    }
+
+    /// Window on |log10(T_eff,model / T_eff,measured)|: 0.03 dex (the M-dwarf issue's model
+    /// window) plus the measurement's two standard deviations in dex; `None` without a T_eff.
+    pub fn teff_window_dex(&self) -> Option<f64> {
+        self.teff_k
+            .map(|(t, sigma)| 0.03 + 2.0 * (1.0 + sigma / t).log10())
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;

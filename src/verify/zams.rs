@@ -1,23 +1,38 @@
 //! Checks of whole ZAMS models with the default (`refined`) physics at X = 0.70, Z = 0.02: the
 //! published figures of the ZAMS Sun, the mass–luminosity slope, the hydrogen-burning minimum
-//! mass, the virial and energy checks, and the Tout et al. (1996) fits.
+//! mass, the virial and energy checks, the Tout et al. (1996) fits, and components of young
+//! eclipsing binaries above 2 M_sun.
 //!
-//! The two models these checks need (1 and 10 M_sun) are solved at most once per process and
-//! shared; a model that fails to converge fails every check that uses it, with its message.
+//! The models these checks need (1 and 10 M_sun, and the young components' masses) are solved
+//! at most once per process and shared; a model that fails to converge fails every check that
+//! uses it, with its message.
 
 use super::{Check, Tolerance};
 use crate::error::Result;
 use crate::physics::{Composition, PhysicsSet};
-use crate::reference::{tout1996_luminosity_lsun, tout1996_radius_rsun};
+use crate::reference::{
+    tout1996_luminosity_lsun, tout1996_radius_rsun, YOUNG_ECLIPSING_COMPONENTS as YOUNG,
+};
 use crate::structure::limits::hydrogen_burning_limit;
 use crate::structure::{solve, ModelSummary, ZamsSettings};
 use std::sync::OnceLock;
 
 const GROUP: &str = "zams";
 
-/// The masses the checks use, M_sun; `MODELS[i]` caches the model of `MASSES_MSUN[i]`.
-const MASSES_MSUN: [f64; 2] = [1.0, 10.0];
-static MODELS: [OnceLock<Option<ModelSummary>>; 2] = [OnceLock::new(), OnceLock::new()];
+/// The masses the checks use, M_sun: 1 and 10, then the young components' in the order of
+/// [`YOUNG`]; `MODELS[i]` caches the model of `MASSES_MSUN[i]`.
+const MASSES_MSUN: [f64; 7] = [
+    1.0,
+    10.0,
+    YOUNG[0].mass_msun,
+    YOUNG[1].mass_msun,
+    YOUNG[2].mass_msun,
+    YOUNG[3].mass_msun,
+    YOUNG[4].mass_msun,
+];
+static MODELS: [OnceLock<Option<ModelSummary>>; 7] = [const { OnceLock::new() }; 7];
+/// Index in [`MASSES_MSUN`] of the first young component.
+const FIRST_YOUNG: usize = 2;
 
 /// Hydrogen and metal mass fractions of every model here: Z = 0.02 of the Tout et al. (1996)
 /// fit, whose underlying X = 0.76 - 3Z is 0.70 (docs/references.md §6, memory).
@@ -27,6 +42,8 @@ const Z: f64 = 0.02;
 const ZAMS_SUN_L: &str = "ZAMS Sun L about 0.70 of today's (review of solar evolution; confirmed)";
 const ZAMS_SUN_INTERIOR: &str =
     "ZAMS Sun R about 0.87-0.89, T_c about 13.5 MK, rho_c about 75-90 (memory)";
+const YOUNG_SOURCE: &str =
+    "Garcia et al. 2014 (V578 Mon), Southworth, Maxted & Smalley 2004 (V615, V618 Per); confirmed, abstracts";
 const TOUT: &str =
     "Tout, Pols, Eggleton & Han 1996, MNRAS 281, 257, Z = 0.02 fit (coefficients: memory; the refined opacity and the mixing length were calibrated on it)";
 
@@ -153,7 +170,55 @@ pub fn checks() -> Vec<Check> {
             Tolerance::Absolute(0.085),
             || tout_dlog_r(1),
         ),
+        // A star's radius only grows on the main sequence: the ZAMS model of a young star's mass
+        // is no larger than the star beyond two standard deviations (docs/references.md §8.8);
+        // T_eff within 0.03 dex plus the measurement's two standard deviations. The test
+        // `tests/young_stars.rs` checks the same list.
+        young_radius("zams.young.v578-mon-a.radius", 0, || young_radius_ratio(0)),
+        young_radius("zams.young.v578-mon-b.radius", 1, || young_radius_ratio(1)),
+        young_radius("zams.young.v615-per-a.radius", 2, || young_radius_ratio(2)),
+        young_radius("zams.young.v615-per-b.radius", 3, || young_radius_ratio(3)),
+        young_radius("zams.young.v618-per-a.radius", 4, || young_radius_ratio(4)),
+        young_teff("zams.young.v578-mon-a.teff", 0, || young_teff_dex(0)),
+        young_teff("zams.young.v578-mon-b.teff", 1, || young_teff_dex(1)),
+        young_teff("zams.young.v615-per-a.teff", 2, || young_teff_dex(2)),
     ]
+}
+
+/// The radius check of young component `k`: R_model / R_measured in [0, 1 + 2 sigma / R].
+fn young_radius(id: &'static str, k: usize, compute: fn() -> Result<f64>) -> Check {
+    Check::new(
+        id,
+        GROUP,
+        "R_ZAMS model / R measured of a young eclipsing component (at most 1 + 2 sigma / R)",
+        YOUNG_SOURCE,
+        1.0,
+        Tolerance::Range(0.0, YOUNG[k].largest_radius_ratio()),
+        compute,
+    )
+}
+
+/// The T_eff check of young component `k`: log10(T_eff,model / T_eff,measured) within the
+/// component's window.
+fn young_teff(id: &'static str, k: usize, compute: fn() -> Result<f64>) -> Check {
+    Check::new(
+        id,
+        GROUP,
+        "log10(T_eff model / T_eff measured) of a young eclipsing component",
+        YOUNG_SOURCE,
+        0.0,
+        Tolerance::Absolute(YOUNG[k].teff_window_dex().unwrap_or(0.0)),
+        compute,
+    )
+}
+
+fn young_radius_ratio(k: usize) -> Result<f64> {
+    Ok(quantity(FIRST_YOUNG + k, |s| s.radius_rsun)? / YOUNG[k].radius_rsun.0)
+}
+
+fn young_teff_dex(k: usize) -> Result<f64> {
+    let measured = YOUNG[k].teff_k.map_or(f64::NAN, |(t, _)| t);
+    Ok((quantity(FIRST_YOUNG + k, |s| s.teff_k)? / measured).log10())
 }
 
 fn solve_mass(mass_msun: f64) -> Result<ModelSummary> {

@@ -1,4 +1,4 @@
-//! Published relations used as starting guesses and as outside checks.
+//! Published relations and measurements used as starting guesses and as outside checks.
 
 /// Zero-age main-sequence luminosity (L_sun) at Z = 0.02 for mass `m` (M_sun), from the analytic
 /// fit of Tout, Pols, Eggleton & Han (1996, MNRAS 281, 257), eq. 1 with the Z = 0.02

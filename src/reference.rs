@@ -64,7 +64,8 @@ pub struct YoungComponent {
     pub teff_k: Option<(f64, f64)>,
 }
 
-/// Components of detached eclipsing binaries in very young clusters, near the ZAMS
+/// Components of detached eclipsing binaries in very young clusters, near the ZAMS, checked by
+/// `verify` (zams.young.*)
 /// (docs/references.md §8.8 [CONFIRMED, abstracts]): V578 Mon A/B in NGC 2244 (Garcia et al.
 /// 2014), V615 Per A/B and V618 Per A in h Persei (Southworth, Maxted & Smalley 2004). V615 Per
 /// B's published T_eff, 11 000 +- 500 K, is left out: with its radius it gives L = 48 L_sun, half

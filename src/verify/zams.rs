@@ -172,8 +172,11 @@ pub fn checks() -> Vec<Check> {
         ),
         // A star's radius only grows on the main sequence: the ZAMS model of a young star's mass
         // is no larger than the star beyond two standard deviations (docs/references.md §8.8);
-        // T_eff within 0.03 dex plus the measurement's two standard deviations. The test
-        // `tests/young_stars.rs` checks the same list.
+        // how much smaller it is (2-15 per cent here) is reported in the README, not bounded.
+        // T_eff within 0.03 dex (the M-dwarf issue's model window) plus the measurement's two
+        // standard deviations. At solar composition: V615 Per A's model at X = 0.72, Z = 0.01
+        // (h Persei is metal-poor) is 0.069 dex hotter than the star, outside its 0.059 dex.
+        // V615 Per B's published T_eff is not checked (see the list's doc).
         young_radius("zams.young.v578-mon-a.radius", 0, || young_radius_ratio(0)),
         young_radius("zams.young.v578-mon-b.radius", 1, || young_radius_ratio(1)),
         young_radius("zams.young.v615-per-a.radius", 2, || young_radius_ratio(2)),

@@ -60,6 +60,25 @@ pub struct ZamsSettings {
     newton: NewtonSettings,
 }
 
+/// The refusal of `mass_msun` below the hydrogen-burning limit (`whose` laws', M_sun) of
+/// `composition`, found `how`: an [`Error::InvalidInput`] naming the mass.
+fn no_star_below(
+    mass_msun: f64,
+    composition: &Composition,
+    (whose, limit_msun): (&str, f64),
+    how: &str,
+) -> Error {
+    Error::invalid(
+        "mass_msun",
+        mass_msun,
+        &format!(
+            "no hydrogen-burning star of this mass exists for X = {}, Z = {}: the hydrogen-burning minimum mass of {whose} is {limit_msun:.4} M_sun there ({how})",
+            composition.x(),
+            composition.z()
+        ),
+    )
+}
+
 /// Refuses (as [`Error::InvalidInput`] naming `mass_msun`) a mass below the built-in table of
 /// hydrogen-burning limits of the refined preset ([`limits::tabulated_refined_limit_msun`],
 /// less [`limits::TABLE_MARGIN`]): no hydrogen-burning star of that mass exists.
@@ -72,14 +91,11 @@ fn check_tabulated_limit(
         if let Some(limit) = limits::tabulated_refined_limit_msun(composition.x(), composition.z())
         {
             if mass_msun < limit * (1.0 - limits::TABLE_MARGIN) {
-                return Err(Error::invalid(
-                    "mass_msun",
+                return Err(no_star_below(
                     mass_msun,
-                    &format!(
-                        "no hydrogen-burning star of this mass exists for X = {}, Z = {}: the hydrogen-burning minimum mass of the refined physics is {limit:.4} M_sun there (built-in table; `starpoise limits` computes it, also for other laws)",
-                        composition.x(),
-                        composition.z()
-                    ),
+                    composition,
+                    ("the refined physics", limit),
+                    "built-in table; `starpoise limits` computes it, also for other laws",
                 ));
             }
         }
@@ -364,25 +380,61 @@ fn below_the_computed_limit(settings: &ZamsSettings) -> Option<Error> {
         return None;
     }
     let (comp, physics) = (&settings.composition, &settings.physics);
-    let limit = limits::hydrogen_burning_limit(comp, physics).ok()?;
-    if settings.mass_msun >= limit.mass_msun {
+    let (limit_msun, stopped_by) = computed_limit(comp, physics)?;
+    if settings.mass_msun >= limit_msun {
         return None;
     }
-    let what = match &limit.stopped_by {
-        None => format!(
-            "no hydrogen-burning star of this mass exists for X = {}, Z = {}: the hydrogen-burning minimum mass of these laws is {:.4} M_sun there (computed: the turning point of the ZAMS branch; `starpoise limits` shows its model)",
-            comp.x(),
-            comp.z(),
-            limit.mass_msun
+    Some(match stopped_by {
+        None => no_star_below(
+            settings.mass_msun,
+            comp,
+            ("these laws", limit_msun),
+            "computed: the turning point of the ZAMS branch; `starpoise limits` shows its model",
         ),
-        Some(why) => format!(
-            "these laws give no ZAMS model of this mass for X = {}, Z = {}: below {:.4} M_sun they fail before the ZAMS branch turns ({why}); `starpoise limits` shows the lowest model",
-            comp.x(),
-            comp.z(),
-            limit.mass_msun
+        Some(why) => Error::invalid(
+            "mass_msun",
+            settings.mass_msun,
+            &format!(
+                "these laws give no ZAMS model of this mass for X = {}, Z = {}: below {limit_msun:.4} M_sun they fail before the ZAMS branch turns ({why}); `starpoise limits` shows the lowest model",
+                comp.x(),
+                comp.z()
+            ),
         ),
+    })
+}
+
+/// A computed limit with the reason its search stopped short of the turning point, if it did.
+type ComputedLimit = (f64, Option<String>);
+
+/// The hydrogen-burning limit of these laws and this composition ([`limits::hydrogen_burning_limit`])
+/// once per process: a grid of several masses below it at one composition computes it once.
+/// `None` if it cannot be computed.
+fn computed_limit(comp: &Composition, physics: &PhysicsSet) -> Option<ComputedLimit> {
+    type Known = Vec<(
+        Composition,
+        crate::physics::PhysicsSpec,
+        Option<ComputedLimit>,
+    )>;
+    static KNOWN: std::sync::Mutex<Known> = std::sync::Mutex::new(Vec::new());
+    let lookup = |known: &Known| {
+        known
+            .iter()
+            .find(|(c, spec, _)| c == comp && spec == physics.spec())
+            .map(|(_, _, limit)| limit.clone())
     };
-    Some(Error::invalid("mass_msun", settings.mass_msun, &what))
+    if let Some(limit) = KNOWN.lock().ok().and_then(|known| lookup(&known)) {
+        return limit;
+    }
+    // Computed outside the lock (seconds); two threads may both compute the same limit.
+    let limit = limits::hydrogen_burning_limit(comp, physics)
+        .ok()
+        .map(|l| (l.mass_msun, l.stopped_by));
+    if let Ok(mut known) = KNOWN.lock() {
+        if lookup(&known).is_none() {
+            known.push((*comp, physics.spec().clone(), limit.clone()));
+        }
+    }
+    limit
 }
 
 /// A starting guess whose legs can be integrated. If `u0` itself cannot be (a poor guess can use

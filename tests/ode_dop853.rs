@@ -793,3 +793,52 @@ fn invalid_settings_and_starts_are_errors() {
         .unwrap_err();
     assert!(matches!(err, OdeError::InvalidStart { what: "y0" }));
 }
+
+/// A kink the event watches: y = (x, z) with z' = x - a beyond the falling zero of the convex
+/// g = exp(-3 y_0) - exp(-3 a) and 0 before it (z'' jumps from 0 to 1 there, as nabla's slope
+/// does at a convective boundary). Exact solution z = (x - a)^2 / 2 beyond a. The step that
+/// first crosses the kink is rejected; the steps after it are aimed at the kink through the
+/// bracket that rejection gave, instead of being halved towards it (halving took 16 rejected
+/// steps here; aiming takes 5, the first crossing and four narrowing the bracket of a curved
+/// g), and the solution stays within its error bound.
+#[test]
+fn a_kink_watched_by_an_event_is_crossed_by_aimed_steps() {
+    const A: f64 = 0.737_1;
+    struct Kinked;
+    impl Observer<2, Infallible> for Kinked {
+        fn event_count(&self) -> usize {
+            1
+        }
+        fn event_value(&mut self, _i: usize, _x: f64, y: &V2) -> Result<f64, Infallible> {
+            Ok((-3.0 * y[0]).exp() - (-3.0 * A).exp())
+        }
+        fn event_direction(&self, _i: usize) -> Crossing {
+            Crossing::Falling
+        }
+        fn on_event(&mut self, _i: usize, _x: f64, _y: &V2) -> Control {
+            Control::Continue
+        }
+    }
+    let mut system = FnSystem(|_x: f64, y: &V2, dy: &mut V2| {
+        dy[0] = 1.0;
+        dy[1] = if (-3.0 * y[0]).exp() < (-3.0 * A).exp() {
+            y[0] - A
+        } else {
+            0.0
+        };
+        Ok::<(), Infallible>(())
+    });
+    let (rtol, atol) = (1e-11, 1e-11);
+    let mut s = Dop853::new(settings(rtol, atol)).unwrap();
+    let out = s
+        .integrate(&mut system, 0.0, &V2::from([0.0, 0.0]), 3.0, &mut Kinked)
+        .unwrap();
+    let exact = (3.0 - A).powi(2) / 2.0;
+    let bound = accumulated_bound(out.stats.accepted_steps, rtol, atol, exact);
+    assert!((out.y[1] - exact).abs() < bound, "{:e}", out.y[1] - exact);
+    assert!(
+        out.stats.rejected_steps <= 6,
+        "{} rejected steps",
+        out.stats.rejected_steps
+    );
+}

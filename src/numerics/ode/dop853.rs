@@ -300,6 +300,8 @@ impl<const N: usize> Dop853<N> {
         let mut err_old = MIN_OLD_ERROR;
         let mut last_failure: Option<(f64, S::Error)> = None;
         let (mut stiff_positive, mut stiff_negative) = (0usize, 0usize);
+        let mut kink: Option<Kink> = None;
+        let mut kink_rejections = 0usize;
         loop {
             if self.run.accepted_steps + self.run.rejected_steps >= s.max_steps {
                 return Err(OdeError::TooManySteps {
@@ -313,6 +315,21 @@ impl<const N: usize> Dop853<N> {
                     None => OdeError::StepSizeUnderflow { x, h },
                 });
             }
+            // A known kink ahead: end the step just past its estimated position. The step the
+            // controller wanted is kept for after it (a step shortened to reach a point says
+            // nothing about the solution's smoothness).
+            let h_free = h;
+            let aimed = match &kink {
+                Some(k) => {
+                    let aim = k.aim(x, self.g_old[k.index]);
+                    let aimed = (x + h - aim) * direction > 0.0 && (aim - x) * direction > 0.0;
+                    if aimed {
+                        h = aim - x;
+                    }
+                    aimed
+                }
+                None => false,
+            };
             let mut last = false;
             if (x + 1.01 * h - x_end) * direction > 0.0 {
                 h = x_end - x;
@@ -330,9 +347,19 @@ impl<const N: usize> Dop853<N> {
                 }
             };
             if err > 1.0 {
-                h /= (1.0 / s.min_factor).min(err.powf(expo) / s.safety);
                 reject = true;
                 self.run.rejected_steps += 1;
+                // A step rejected for crossing a kink keeps its length, as the next one is
+                // aimed at the kink instead; but not for long: after a few such rejections in a
+                // row (the step may be too long for the solution short of the kink too), the
+                // controller shortens it as usual.
+                kink_rejections += 1;
+                if !(n_events > 0
+                    && kink_rejections <= MAX_KINK_REJECTIONS
+                    && self.note_kink(observer, &mut kink, x_new))
+                {
+                    h /= (1.0 / s.min_factor).min(err.powf(expo) / s.safety);
+                }
                 continue;
             }
 
@@ -348,6 +375,8 @@ impl<const N: usize> Dop853<N> {
                 .output_points()
                 .get(outputs_done)
                 .is_some_and(|&p| (p - x_new) * direction <= 0.0);
+            kink = kink.and_then(|k| k.after_accepted(x_new, crossing, direction));
+            kink_rejections = 0;
             let need_dense = crossing || output_inside || observer.dense_every_step();
             if need_dense {
                 if let Err(failure) = self.prepare_dense(system, x, &y, h) {
@@ -372,6 +401,9 @@ impl<const N: usize> Dop853<N> {
                 }
                 if reject {
                     h_new = direction * h_new.abs().min(h.abs());
+                }
+                if aimed {
+                    h_new = direction * h_new.abs().max(h_free.abs());
                 }
                 h_new
             };
@@ -551,6 +583,41 @@ impl<const N: usize> Dop853<N> {
             deno = 1.0;
         }
         h.abs() * err5 / (n as f64 * deno).sqrt()
+    }
+
+    /// After a rejected step ending at `x_new`: if an event function changed sign between the
+    /// step's start and the trial's end (judged from the trial's state, whose error does not
+    /// matter for the sign), the step was probably rejected because it crossed a kink of the
+    /// solution there (a switch of the right-hand side's form that the event watches): record
+    /// the bracket, or narrow it, and return true. An event function that cannot be evaluated
+    /// at the trial leaves the bracket as it was.
+    fn note_kink<E, O: Observer<N, E>>(
+        &self,
+        observer: &mut O,
+        kink: &mut Option<Kink>,
+        x_new: f64,
+    ) -> bool {
+        // The first event to change sign, by the line through its two values.
+        let mut first: Option<(f64, usize, f64)> = None;
+        for (index, &g_old) in self.g_old.iter().enumerate() {
+            let Ok(g) = observer.event_value(index, x_new, &self.y_new) else {
+                continue;
+            };
+            if g.is_finite() && crosses(g_old, g, observer.event_direction(index)) {
+                let theta = g_old / (g_old - g);
+                if first.is_none_or(|(t, _, _)| theta < t) {
+                    first = Some((theta, index, g));
+                }
+            }
+        }
+        let Some((_, index, g)) = first else {
+            return false;
+        };
+        *kink = Some(match *kink {
+            Some(k) if k.index == index => k.narrowed_far(x_new, g),
+            _ => Kink::new(index, x_new, g),
+        });
+        true
     }
 
     /// What a failed trial does: with `RejectStep` (and adaptive steps) it counts as a rejected
@@ -791,6 +858,88 @@ fn start_outputs<const N: usize, E, O: Observer<N, E>>(
     }
     done
 }
+
+/// A kink of the solution bracketed by a rejected step: event `index` has the sign of `g_far`
+/// at `x_far` (the rejected trial's end) and the other sign at the current point. The steps
+/// after are aimed at its position estimated by the Illinois variant of regula falsi (Dowell &
+/// Jarratt 1971, BIT 11, 168), just past it, so that the step across it crosses by little and
+/// is accepted; without this, the step-size controller halves its way towards the kink,
+/// alternating rejected steps across it with accepted ones short of it.
+#[derive(Debug, Clone, Copy)]
+struct Kink {
+    index: usize,
+    x_far: f64,
+    g_far: f64,
+    /// Factor on the near end's g in the estimate (the Illinois halving).
+    near_weight: f64,
+    /// Which end the last narrowing moved.
+    moved_far: bool,
+}
+
+impl Kink {
+    /// A kink between the current point and `x_far`, where event `index` is `g_far`.
+    fn new(index: usize, x_far: f64, g_far: f64) -> Self {
+        Self {
+            index,
+            x_far,
+            g_far,
+            near_weight: 1.0,
+            moved_far: true,
+        }
+    }
+
+    /// Where the next step should end: the root of the line through the current point
+    /// (x, near_weight g) and the far end, moved past it towards the far end by
+    /// [`KINK_MARGIN`] of the bracket.
+    fn aim(&self, x: f64, g: f64) -> f64 {
+        let g = self.near_weight * g;
+        let root = x + g / (g - self.g_far) * (self.x_far - x);
+        root + KINK_MARGIN * (self.x_far - x)
+    }
+
+    /// The bracket narrowed by a rejected trial ending at `x_far` with `g_far` of the far
+    /// end's sign: the near end stays, and its weight is halved when it stayed last time too.
+    fn narrowed_far(self, x_far: f64, g_far: f64) -> Self {
+        Self {
+            x_far,
+            g_far,
+            near_weight: if self.moved_far {
+                0.5 * self.near_weight
+            } else {
+                1.0
+            },
+            moved_far: true,
+            ..self
+        }
+    }
+
+    /// The bracket after an accepted step to `x_new`: gone once an event crossed or the step
+    /// reached the far end; else the near end moved (to the new point), and the far value is
+    /// halved when it stayed last time too.
+    fn after_accepted(self, x_new: f64, crossing: bool, direction: f64) -> Option<Self> {
+        if crossing || (x_new - self.x_far) * direction >= 0.0 {
+            return None;
+        }
+        Some(Self {
+            g_far: if self.moved_far {
+                self.g_far
+            } else {
+                0.5 * self.g_far
+            },
+            near_weight: 1.0,
+            moved_far: false,
+            ..self
+        })
+    }
+}
+
+/// How far past the estimated kink an aimed step ends, as a fraction of the bracket: small
+/// against the estimate's error while the bracket is wide, and enough to cross the kink once the
+/// estimate is good.
+const KINK_MARGIN: f64 = 1e-3;
+
+/// Rejected steps in a row that may keep their length for a kink (see `Kink`).
+const MAX_KINK_REJECTIONS: usize = 8;
 
 /// g_index(x, y), its error and non-finite values turned into [`OdeError`]s.
 fn event_value<const N: usize, E, O: Observer<N, E>>(

@@ -106,6 +106,10 @@ pub enum Crossing {
 /// [`Observer::on_event`] decides whether the integration stops there. The located x is the end
 /// of the final bracket on the far side of the root (g has its new sign or is 0 there), within
 /// the event tolerance of the root. Several events in one step are reported in order of x.
+/// They are also evaluated at the end of a rejected trial step: a sign change there marks a
+/// kink of the solution that made the step fail (a switch in the right-hand side that the
+/// event watches), and the next steps are aimed just past it (see the integrator's `Kink`), so
+/// an event function must accept a state from a trial that is about to be thrown away.
 ///
 /// Output points: [`Observer::output_points`] must be sorted along the direction of
 /// integration. Points before x0 are skipped, points equal to x0 get y0, points inside a step

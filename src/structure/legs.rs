@@ -337,6 +337,9 @@ pub struct LegRunner<'a> {
     pub ctx: LegContext<'a>,
     solver: Dop853<STATE_LEN>,
     last: Cell<Option<LastPoint>>,
+    /// The accepted steps of the last integration of each leg (outward, inward) and the
+    /// tolerance it had: the next integration of that leg at that tolerance follows them.
+    plans: [Option<(f64, Vec<f64>)>; 2],
 }
 
 /// The integrator's settings for the legs: the context's tolerance (relative and absolute), a
@@ -386,6 +389,7 @@ impl<'a> LegRunner<'a> {
             ctx,
             solver,
             last: Cell::new(None),
+            plans: [None, None],
         })
     }
 
@@ -404,7 +408,39 @@ impl<'a> LegRunner<'a> {
     /// Integrate `leg` from `x0` to `x1` starting at `y0`; the end state and the convective
     /// boundaries met. With `steps`, every accepted step's dense output is appended to it (for
     /// a profile).
+    ///
+    /// A leg integrated again at the same tolerance (the Jacobian's columns, the next Newton
+    /// trial, the profile's fine solution) follows the steps its last integration accepted
+    /// ([`Dop853::set_step_plan`]): the ends of legs at nearby unknowns then differ smoothly,
+    /// so the Jacobian's differences see the change of the unknowns rather than a changed step
+    /// sequence, and the first integration's rejected steps (some 10 per cent of them) are not
+    /// repeated.
     pub fn integrate(
+        &mut self,
+        leg: Leg,
+        x0: f64,
+        x1: f64,
+        y0: State,
+        steps: Option<&mut Vec<DenseStep>>,
+    ) -> LegResult<LegEnd> {
+        let slot = leg as usize;
+        let plan = match self.plans[slot].take() {
+            Some((tolerance, plan)) if tolerance == self.ctx.tolerance => plan,
+            _ => Vec::new(),
+        };
+        self.solver.set_step_plan(plan);
+        let _ = self.solver.take_record();
+        let result = self.integrate_leg(leg, x0, x1, y0, steps);
+        let record = self.solver.take_record();
+        self.solver.set_step_plan(Vec::new());
+        if result.is_ok() {
+            self.plans[slot] = Some((self.ctx.tolerance, record));
+        }
+        result
+    }
+
+    /// [`LegRunner::integrate`] with the plan set.
+    fn integrate_leg(
         &mut self,
         leg: Leg,
         x0: f64,

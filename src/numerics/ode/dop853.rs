@@ -103,6 +103,8 @@ pub struct Dop853<const N: usize> {
     g_old: Vec<f64>,
     g_new: Vec<f64>,
     roots: Vec<Option<f64>>,
+    plan: Vec<f64>,
+    record: Vec<f64>,
     run: Stats,
     totals: Stats,
 }
@@ -126,6 +128,8 @@ impl<const N: usize> Dop853<N> {
             g_old: Vec::new(),
             g_new: Vec::new(),
             roots: Vec::new(),
+            plan: Vec::new(),
+            record: Vec::new(),
             run: Stats::default(),
             totals: Stats::default(),
         })
@@ -201,6 +205,43 @@ impl<const N: usize> Dop853<N> {
         s.validate()?;
         self.settings = s;
         Ok(())
+    }
+
+    /// Steps to follow in the next integrations: the step ends `plan` (in the direction of
+    /// integration) of an earlier integration of a nearby problem at the same tolerances, as
+    /// [`Dop853::take_record`] gave them. From x, a step is proposed to the first plan point
+    /// more than [`PLAN_MIN_FRACTION`] of its planned step ahead; it is accepted or rejected
+    /// by the error estimate as any step is, and after a rejection the controller chooses the
+    /// steps until one is accepted. Beyond the plan's last point the controller goes on alone.
+    /// The steps then repeat from one integration to the next, so that the ends of nearby
+    /// integrations differ smoothly (not by a changed step sequence), and the rejected steps of
+    /// the first are not taken again. An empty plan (the default) leaves the controller alone.
+    pub fn set_step_plan(&mut self, plan: Vec<f64>) {
+        self.plan = plan;
+    }
+
+    /// The ends of the steps accepted since the last call (the restart points of integrations
+    /// that began inside an earlier one's range drop the points at and beyond them), to be the
+    /// plan of a later integration ([`Dop853::set_step_plan`]); the record starts afresh.
+    pub fn take_record(&mut self) -> Vec<f64> {
+        std::mem::take(&mut self.record)
+    }
+
+    /// The plan's step from `x`, if the plan reaches beyond it; `cursor` is the index of the
+    /// first plan point not yet passed.
+    fn planned_step(&self, cursor: &mut usize, x: f64, direction: f64) -> Option<f64> {
+        while let Some(&p) = self.plan.get(*cursor) {
+            let previous = if *cursor > 0 {
+                self.plan[*cursor - 1]
+            } else {
+                x
+            };
+            if (p - x) * direction > PLAN_MIN_FRACTION * (p - previous) * direction {
+                return Some(p - x);
+            }
+            *cursor += 1;
+        }
+        None
     }
 
     /// Work done by every integration since this integrator was built (failed ones included).
@@ -287,10 +328,26 @@ impl<const N: usize> Dop853<N> {
         }
         let s = self.settings;
         let fixed = s.fixed_step.is_some();
-        let mut h = match (s.fixed_step, s.initial_step) {
-            (Some(hf), _) => direction * hf.abs(),
-            (None, Some(h0)) => direction * h0.abs().min(s.max_step),
-            (None, None) => self.starting_step(system, x0, y0, x_end, direction)?,
+        // The record keeps the steps before x0 (a restart inside an earlier integration's
+        // range replaces what followed it); the plan is followed from its first point beyond.
+        while self
+            .record
+            .last()
+            .is_some_and(|&p| (p - x0) * direction >= 0.0)
+        {
+            self.record.pop();
+        }
+        let mut plan_cursor = self.plan.partition_point(|&p| (p - x0) * direction <= 0.0);
+        let first_planned = if fixed {
+            None
+        } else {
+            self.planned_step(&mut plan_cursor, x0, direction)
+        };
+        let mut h = match (s.fixed_step, first_planned, s.initial_step) {
+            (Some(hf), _, _) => direction * hf.abs(),
+            (None, Some(hp), _) => hp,
+            (None, None, Some(h0)) => direction * h0.abs().min(s.max_step),
+            (None, None, None) => self.starting_step(system, x0, y0, x_end, direction)?,
         };
         // Hairer's DOP853: the current error's exponent 1/8 - 0.2 beta.
         let expo = 0.125 - 0.2 * s.beta;
@@ -314,6 +371,12 @@ impl<const N: usize> Dop853<N> {
                     Some((x, source)) => OdeError::Rhs { x, source },
                     None => OdeError::StepSizeUnderflow { x, h },
                 });
+            }
+            // The plan's step, unless the last trial was rejected.
+            if !fixed && !reject {
+                if let Some(hp) = self.planned_step(&mut plan_cursor, x, direction) {
+                    h = hp;
+                }
             }
             // A known kink ahead: end the step just past its estimated position. The step the
             // controller wanted is kept for after it (a step shortened to reach a point says
@@ -444,6 +507,7 @@ impl<const N: usize> Dop853<N> {
                 dense: need_dense.then_some(&self.dense),
             };
             let control = observer.on_step(&view);
+            self.record.push(x_stop);
             if let Some((index, xe, ye)) = stop_event {
                 return stop_outcome(xe, ye, Stop::Event { index }, outputs_done, h_next);
             }
@@ -937,6 +1001,10 @@ impl Kink {
 /// against the estimate's error while the bracket is wide, and enough to cross the kink once the
 /// estimate is good.
 const KINK_MARGIN: f64 = 1e-3;
+
+/// A plan point closer than this fraction of its planned step is passed over (see
+/// [`Dop853::set_step_plan`]): the step goes to the next one, at most 1.2 planned steps long.
+pub const PLAN_MIN_FRACTION: f64 = 0.2;
 
 /// Rejected steps in a row that may keep their length for a kink (see `Kink`).
 const MAX_KINK_REJECTIONS: usize = 8;

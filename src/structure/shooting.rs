@@ -61,6 +61,9 @@ pub struct ShootingProblem<'a> {
     pub tolerance_floor: f64,
     /// Legs integrated (each outward or inward integration counts one).
     pub legs_integrated: u64,
+    /// The steps of the last T(tau) atmosphere and its tolerance: the next one at that
+    /// tolerance follows them.
+    atmosphere_plan: Option<(f64, Vec<f64>)>,
     /// The last residual evaluation.
     last: Option<LegEnds>,
 }
@@ -78,6 +81,7 @@ impl<'a> ShootingProblem<'a> {
             fit_mass_fraction,
             tolerance_floor,
             legs_integrated: 0,
+            atmosphere_plan: None,
             last: None,
         })
     }
@@ -104,7 +108,13 @@ impl<'a> ShootingProblem<'a> {
     /// The inward leg at the fitting mass and the photosphere it started from.
     fn inward_with_top(&mut self, ln_r: f64, ln_l: f64) -> LegResult<(LegEnd, SurfaceStart)> {
         self.legs_integrated += 1;
-        let start = surface::start(&self.runner.ctx, ln_r, ln_l)?;
+        let tolerance = self.runner.ctx.tolerance;
+        let plan = match self.atmosphere_plan.take() {
+            Some((t, plan)) if t == tolerance => plan,
+            _ => Vec::new(),
+        };
+        let start = surface::start_along(&self.runner.ctx, ln_r, ln_l, plan)?;
+        self.atmosphere_plan = Some((tolerance, start.steps.clone()));
         let x1 = (1.0 - self.fit_mass_fraction).ln();
         let mut end = self
             .runner

@@ -74,6 +74,10 @@ pub struct SurfaceStart {
     /// The laws' cautions at the top of the atmosphere and at the photosphere (its coolest and
     /// its densest point).
     pub cautions: Cautions,
+    /// The ends of the steps the T(tau) atmosphere's integration accepted (ln tau), to be
+    /// followed by the next atmosphere at the same tolerance ([`start_along`]); empty for a
+    /// one-point photosphere.
+    pub steps: Vec<f64>,
 }
 
 /// An error of the atmosphere at optical depth `tau`.
@@ -212,6 +216,19 @@ fn crossing_ln_tau(
 
 /// Photospheric state for trial ln R, ln L: the start of the inward leg.
 pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> {
+    start_along(ctx, ln_r, ln_l, Vec::new())
+}
+
+/// [`start`] with the T(tau) atmosphere integrated along `plan`, the steps of an atmosphere at
+/// nearby (ln R, ln L) and the same tolerance ([`SurfaceStart::steps`];
+/// [`crate::numerics::ode::Dop853::set_step_plan`]): its rejected steps are not repeated, and
+/// the photospheres of nearby trials differ smoothly.
+pub fn start_along(
+    ctx: &LegContext,
+    ln_r: f64,
+    ln_l: f64,
+    plan: Vec<f64>,
+) -> LegResult<SurfaceStart> {
     let r = ln_r.exp();
     let l = ln_l.exp();
     let teff = effective_temperature_k(r, l);
@@ -223,11 +240,11 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
             cautions.check(ctx, s.density_g_cm3, t);
         }
     };
-    let (pressure, column_g_cm2) = match atmosphere.relation() {
+    let (pressure, column_g_cm2, steps) = match atmosphere.relation() {
         None => {
             let p = column_pressure(ctx, PHOTOSPHERE_TAU, teff, gravity, 0.0, 0.0)?;
             check(p, teff);
-            (p, p / gravity)
+            (p, p / gravity, Vec::new())
         }
         Some(relation) => {
             let flux_over_c = SIGMA_SB_CGS * teff.powi(4) / C_CM_S;
@@ -264,6 +281,7 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
             let (x_top, x_ph) = (ATMOSPHERE_TOP_TAU.ln(), tau_ph.ln());
             let mut solver = Dop853::<1>::new(settings)
                 .map_err(|e| failed(LegCause::Integrator(e.to_string()), ATMOSPHERE_TOP_TAU))?;
+            solver.set_step_plan(plan);
             // Segment by segment: the integration restarts where T(tau) (increasing with tau)
             // crosses a temperature at which the opacity is only twice differentiable.
             let mut x = x_top;
@@ -303,7 +321,11 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
             // m g = P_gas + tau F/c.
             let p_gas = y[0].exp();
             check(p_gas + p_rad_ph, teff);
-            (p_gas + p_rad_ph, (p_gas + tau_ph * flux_over_c) / gravity)
+            (
+                p_gas + p_rad_ph,
+                (p_gas + tau_ph * flux_over_c) / gravity,
+                solver.take_record(),
+            )
         }
     };
     let d0 = 4.0 * PI * r * r * column_g_cm2 / ctx.total_mass_g;
@@ -329,6 +351,7 @@ pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> 
         teff_k: teff,
         pressure_dyn_cm2: pressure,
         cautions,
+        steps,
     })
 }
 
@@ -380,7 +403,8 @@ mod tests {
     /// (this project's measurement over 106 models 0.08-1.6 M_sun: at most 2.8e-10) for two stars
     /// whose atmospheres cross them (R, L of their models: 0.6241 M_sun at X = 0.75, Z = 0.002,
     /// T_eff 4704 K; 0.08 M_sun at Z = 0.04, T_eff 2418 K). Integrated across the switches in one
-    /// piece, with the error weight, they were off by 6e-7 and 1e-7.
+    /// piece, with the error weight, they were off by 6e-7 and 1e-7. The same holds along the
+    /// steps of a neighbour's atmosphere, as the solve integrates them.
     #[test]
     fn photospheric_pressure_is_accurate_across_the_opacity_switches() {
         for (mass, x, z, r_rsun, l_lsun) in [
@@ -408,6 +432,15 @@ mod tests {
             };
             let rel = pressure(1e-11) / pressure(1e-13) - 1.0;
             assert!(rel.abs() < 1e-9, "{mass} M_sun: {rel:e}");
+            // Along the steps of the atmosphere at (R, L) 1e-4 larger in their logarithms (a
+            // Jacobian column's neighbour), with its segments ending elsewhere: as accurate.
+            let ctx = super::super::leg_context(mass, &physics, &comp, 1e-11);
+            let (ln_r, ln_l) = ((r_rsun * R_SUN_CM).ln(), (l_lsun * L_SUN_ERG_S).ln());
+            let neighbour = start(&ctx, ln_r + 1e-4, ln_l + 1e-4).unwrap();
+            assert!(!neighbour.steps.is_empty());
+            let along = start_along(&ctx, ln_r, ln_l, neighbour.steps).unwrap();
+            let rel = along.pressure_dyn_cm2 / pressure(1e-13) - 1.0;
+            assert!(rel.abs() < 1e-9, "{mass} M_sun along a plan: {rel:e}");
         }
     }
 }

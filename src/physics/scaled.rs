@@ -77,4 +77,9 @@ impl<L: EnergyGeneration + ?Sized> EnergyGeneration for Scaled<L> {
     ) -> Result<Option<He3Equilibrium>, PhysicsError> {
         self.inner.he3_equilibrium(rho, t, comp)
     }
+
+    /// The inner law's (a factor within the allowed range does not lift 1e-30 to anything).
+    fn negligible_at(&self, rho: f64, t: f64) -> bool {
+        self.inner.negligible_at(rho, t)
+    }
 }

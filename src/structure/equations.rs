@@ -167,7 +167,13 @@ pub fn local_physics_with_eos(
     } = *point;
     let rho = eos.density_g_cm3;
     let opacity = physics.opacity().kappa(rho, temperature_k, comp)?;
-    let rate = physics.rates().rate(rho, temperature_k, comp)?;
+    // Below the rates' negligible temperature (the cool envelope) eps = 0, without evaluating
+    // the law.
+    let rate = if physics.rates().negligible_at(rho, temperature_k) {
+        EnergyRate::default()
+    } else {
+        physics.rates().rate(rho, temperature_k, comp)?
+    };
     // nabla_rad = 3 kappa L P / (16 pi a c G m T^4), written with L/m.
     let nabla_rad = convection::nabla_rad(opacity, l_over_m, pressure_dyn_cm2, 1.0, temperature_k);
     let gravity = if radius_cm > 0.0 {

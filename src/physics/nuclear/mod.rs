@@ -101,4 +101,13 @@ pub trait EnergyGeneration: Send + Sync + std::fmt::Debug {
         let _ = (rho_g_cm3, temperature_k, comp);
         Ok(None)
     }
+
+    /// Whether this law's energy generation at (`rho_g_cm3`, `temperature_k`) is negligible in
+    /// every star (below 1e-30 of the central rate of the coolest hydrogen-burning star): the
+    /// structure equations take eps = 0 there without evaluating the law. False (the
+    /// default): everywhere evaluated.
+    fn negligible_at(&self, rho_g_cm3: f64, temperature_k: f64) -> bool {
+        let _ = (rho_g_cm3, temperature_k);
+        false
+    }
 }

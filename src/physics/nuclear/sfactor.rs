@@ -430,7 +430,24 @@ fn check_domain(rho: f64, t: f64) -> Result<(), PhysicsError> {
     Ok(())
 }
 
+/// Below this temperature and [`NEGLIGIBLE_BELOW_G_CM3`] the law's energy generation is
+/// negligible in every star ([`EnergyGeneration::negligible_at`]): the pp chain's Gamow factor
+/// exp(-3 E_0 / kT) is e^-98.5 = 2e-43 at 4e4 K, against e^-24.3 at the centre of the coolest
+/// hydrogen-burning star (T_c = 2.66e6 K, rho_c = 986 g/cm^3: the limiting model of `starpoise
+/// limits`), and every other reaction's barrier is higher. The density bound keeps strong
+/// screening out of it (at 4e4 K and 986 g/cm^3 the screened pp rate is 1.6e-10 of that
+/// central one; no star has such layers). `negligible_tests` checks the ratio of the rates. In
+/// a ZAMS star these are the layers above the hydrogen ionisation zone, where about half the
+/// structure's evaluations of a solar-mass model fall.
+pub const NEGLIGIBLE_BELOW_K: f64 = 4e4;
+/// The density bound of [`NEGLIGIBLE_BELOW_K`], g/cm^3.
+pub const NEGLIGIBLE_BELOW_G_CM3: f64 = 1.0;
+
 impl EnergyGeneration for SFactorRates {
+    fn negligible_at(&self, rho: f64, t: f64) -> bool {
+        t < NEGLIGIBLE_BELOW_K && rho < NEGLIGIBLE_BELOW_G_CM3
+    }
+
     fn he3_equilibrium(
         &self,
         rho: f64,
@@ -502,6 +519,43 @@ mod bridge_tests {
                 "d ln f at {x}: {fd} vs {df}"
             );
             previous = f;
+        }
+    }
+}
+
+#[cfg(test)]
+mod negligible_tests {
+    use super::*;
+
+    /// Where the law says its rates are negligible, both are below 1e-30 of the pp rate at the
+    /// centre of the coolest hydrogen-burning star (its limiting model, T_c = 2.66e6 K,
+    /// rho_c = 986 g/cm^3, README's `starpoise limits`) for X from 0 to 1 and Z up to 0.04 (at
+    /// the bounds, where they are largest: 9.5e-33 for X = 0.7, Z = 0.02); just outside the
+    /// density bound strong screening lifts them well above it, which is why it is there.
+    #[test]
+    fn negligible_rates_are_negligible() {
+        let law = SFactorRates::default();
+        for (x, z) in [
+            (0.70, 0.02),
+            (0.75, 0.001),
+            (0.65, 0.04),
+            (0.999, 0.0),
+            (0.01, 0.04),
+        ] {
+            let comp = Composition::new(x, z).unwrap();
+            let coolest = Composition::new(0.70, 0.02).unwrap();
+            let centre = law.rate(986.0, 2.66e6, &coolest).unwrap().eps_pp_erg_g_s;
+            let (t, rho) = (NEGLIGIBLE_BELOW_K, NEGLIGIBLE_BELOW_G_CM3);
+            for rho in [1e-12, 1e-6, 1e-3, 0.1, rho * (1.0 - 1e-12)] {
+                assert!(law.negligible_at(rho, t * (1.0 - 1e-12)));
+                let r = law.rate(rho, t, &comp).unwrap();
+                let worst = r.eps_pp_erg_g_s.max(r.eps_cno_erg_g_s) / centre;
+                assert!(worst < 1e-30, "X = {x}, Z = {z}, rho = {rho:e}: {worst:e}");
+            }
+            assert!(!law.negligible_at(rho, t * 0.5));
+            assert!(!law.negligible_at(rho * 0.5, t));
+            let dense = law.rate(100.0 * rho, t, &comp).unwrap().eps_pp_erg_g_s / centre;
+            assert!(x < 0.05 || dense > 1e-25, "X = {x}: {dense:e}");
         }
     }
 }

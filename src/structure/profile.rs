@@ -60,9 +60,10 @@ pub struct ProfileRow {
     pub density_g_cm3: f64,
     /// Luminosity through the shell, erg s^-1.
     pub luminosity_erg_s: f64,
-    /// pp-chain energy generation, erg g^-1 s^-1.
+    /// pp-chain energy generation, erg g^-1 s^-1 (0 where the rate law says it is negligible
+    /// in every star, `EnergyGeneration::negligible_at`, as the structure equations take it).
     pub eps_pp_erg_g_s: f64,
-    /// CNO-cycle energy generation, erg g^-1 s^-1.
+    /// CNO-cycle energy generation, erg g^-1 s^-1 (0 where negligible, as `eps_pp_erg_g_s`).
     pub eps_cno_erg_g_s: f64,
     /// Rosseland-mean opacity, cm^2 g^-1.
     pub opacity_cm2_g: f64,

@@ -843,14 +843,15 @@ fn a_kink_watched_by_an_event_is_crossed_by_aimed_steps() {
     );
 }
 
-/// A step plan (`Dop853::set_step_plan`) from the record of an earlier integration: the same
-/// problem integrated again with its own record as plan takes the same steps, none rejected,
-/// and ends where it did (to the rounding of the step lengths); a nearby problem (Arenstorf's orbit from a start moved by
-/// 1e-7) follows the plan with at most a few rejected steps (none here, where a run of its own
+/// A step plan (`Dop853::set_step_plan`) from the record of an earlier integration
+/// (`Dop853::record_steps`, off by default): the same problem integrated again with its own
+/// record as plan takes the same steps, none rejected, and ends where it did (to the rounding
+/// of the step lengths); a nearby problem (Arenstorf's orbit from a start moved by 1e-7)
+/// follows the plan with at most a few rejected steps (none here, where a run of its own
 /// rejects 61 beside its 176 accepted: 2 113 right-hand sides instead of 2 785) and closes as
-/// well as a run of its own; a plan for another problem (from a start moved by
-/// 1e-2) is only a proposal: its steps are judged by the error estimate, and the orbit is as
-/// accurate as without it.
+/// well as a run of its own; a plan for another problem (from a start moved by 1e-2) is only a
+/// proposal: its steps are judged by the error estimate, and the orbit is as accurate as
+/// without it.
 #[test]
 fn a_step_plan_is_followed_where_it_serves() {
     let tol = 1e-10;
@@ -866,6 +867,10 @@ fn a_step_plan_is_followed_where_it_serves() {
         .unwrap()
     };
     let mut s = Dop853::new(settings(tol, tol)).unwrap();
+    // Without `record_steps` nothing is recorded.
+    run(&mut s, &y0);
+    assert!(s.take_record().is_empty());
+    s.record_steps(true);
     let first = run(&mut s, &y0);
     let record = s.take_record();
     assert_eq!(record.len(), first.stats.accepted_steps);

@@ -379,6 +379,7 @@ impl<'a> LegRunner<'a> {
             cause: LegCause::Integrator(e.to_string()),
         };
         let mut solver = Dop853::new(settings(ctx.tolerance)).map_err(setup_error)?;
+        solver.record_steps(true);
         // The running integrals (energy and virial checks) ride along: they are quadratures of
         // smooth integrands on the steps the structure variables choose, and need not choose
         // the steps themselves.

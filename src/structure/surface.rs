@@ -282,6 +282,7 @@ pub fn start_along(
             let mut solver = Dop853::<1>::new(settings)
                 .map_err(|e| failed(LegCause::Integrator(e.to_string()), ATMOSPHERE_TOP_TAU))?;
             solver.set_step_plan(plan);
+            solver.record_steps(true);
             // Segment by segment: the integration restarts where T(tau) (increasing with tau)
             // crosses a temperature at which the opacity is only twice differentiable.
             let mut x = x_top;

@@ -105,6 +105,7 @@ pub struct Dop853<const N: usize> {
     roots: Vec<Option<f64>>,
     plan: Vec<f64>,
     record: Vec<f64>,
+    recording: bool,
     run: Stats,
     totals: Stats,
 }
@@ -130,6 +131,7 @@ impl<const N: usize> Dop853<N> {
             roots: Vec::new(),
             plan: Vec::new(),
             record: Vec::new(),
+            recording: false,
             run: Stats::default(),
             totals: Stats::default(),
         })
@@ -220,9 +222,16 @@ impl<const N: usize> Dop853<N> {
         self.plan = plan;
     }
 
-    /// The ends of the steps accepted since the last call (the restart points of integrations
-    /// that began inside an earlier one's range drop the points at and beyond them), to be the
-    /// plan of a later integration ([`Dop853::set_step_plan`]); the record starts afresh.
+    /// Record the ends of the accepted steps for [`Dop853::take_record`] (off by default: an
+    /// integrator used without plans keeps no record, which would grow with every integration).
+    pub fn record_steps(&mut self, on: bool) {
+        self.recording = on;
+    }
+
+    /// The ends of the steps accepted since the last call while recording
+    /// ([`Dop853::record_steps`]; the restart points of integrations that began inside an
+    /// earlier one's range drop the points at and beyond them), to be the plan of a later
+    /// integration ([`Dop853::set_step_plan`]); the record starts afresh.
     pub fn take_record(&mut self) -> Vec<f64> {
         std::mem::take(&mut self.record)
     }
@@ -507,7 +516,9 @@ impl<const N: usize> Dop853<N> {
                 dense: need_dense.then_some(&self.dense),
             };
             let control = observer.on_step(&view);
-            self.record.push(x_stop);
+            if self.recording {
+                self.record.push(x_stop);
+            }
             if let Some((index, xe, ye)) = stop_event {
                 return stop_outcome(xe, ye, Stop::Event { index }, outputs_done, h_next);
             }

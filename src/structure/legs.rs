@@ -331,15 +331,35 @@ impl Observer<STATE_LEN, PhysicsError> for LegObserver<'_, '_, '_> {
     }
 }
 
+/// The steps an integration accepted and the tolerance it had: the next integration of the
+/// same kind at that tolerance follows them ([`Dop853::set_step_plan`]).
+#[derive(Debug, Clone, Default)]
+pub(crate) struct KeptSteps(Option<(f64, Vec<f64>)>);
+
+impl KeptSteps {
+    /// The kept steps if they were taken at `tolerance`, else none; either way they are no
+    /// longer kept.
+    pub(crate) fn take_at(&mut self, tolerance: f64) -> Vec<f64> {
+        match self.0.take() {
+            Some((kept_tolerance, steps)) if kept_tolerance == tolerance => steps,
+            _ => Vec::new(),
+        }
+    }
+
+    /// Keep `steps`, taken at `tolerance`.
+    pub(crate) fn keep(&mut self, tolerance: f64, steps: Vec<f64>) {
+        self.0 = Some((tolerance, steps));
+    }
+}
+
 /// Integrates legs: one integrator, reused for every leg of one model.
 pub struct LegRunner<'a> {
     /// Physics, composition, mass and integrator tolerance.
     pub ctx: LegContext<'a>,
     solver: Dop853<STATE_LEN>,
     last: Cell<Option<LastPoint>>,
-    /// The accepted steps of the last integration of each leg (outward, inward) and the
-    /// tolerance it had: the next integration of that leg at that tolerance follows them.
-    plans: [Option<(f64, Vec<f64>)>; 2],
+    /// The accepted steps of the last integration of each leg (outward, inward).
+    plans: [KeptSteps; 2],
 }
 
 /// The integrator's settings for the legs: the context's tolerance (relative and absolute), a
@@ -390,7 +410,7 @@ impl<'a> LegRunner<'a> {
             ctx,
             solver,
             last: Cell::new(None),
-            plans: [None, None],
+            plans: Default::default(),
         })
     }
 
@@ -425,17 +445,14 @@ impl<'a> LegRunner<'a> {
         steps: Option<&mut Vec<DenseStep>>,
     ) -> LegResult<LegEnd> {
         let slot = leg as usize;
-        let plan = match self.plans[slot].take() {
-            Some((tolerance, plan)) if tolerance == self.ctx.tolerance => plan,
-            _ => Vec::new(),
-        };
+        let plan = self.plans[slot].take_at(self.ctx.tolerance);
         self.solver.set_step_plan(plan);
         let _ = self.solver.take_record();
         let result = self.integrate_leg(leg, x0, x1, y0, steps);
         let record = self.solver.take_record();
         self.solver.set_step_plan(Vec::new());
         if result.is_ok() {
-            self.plans[slot] = Some((self.ctx.tolerance, record));
+            self.plans[slot].keep(self.ctx.tolerance, record);
         }
         result
     }

@@ -4,7 +4,7 @@
 
 use super::centre;
 use super::equations::{State, LUM};
-use super::legs::{Cautions, Leg, LegContext, LegEnd, LegResult, LegRunner};
+use super::legs::{Cautions, KeptSteps, Leg, LegContext, LegEnd, LegResult, LegRunner};
 use super::surface::{self, SurfaceStart};
 use crate::error::LegError;
 use crate::numerics::newton::NewtonProblem;
@@ -61,9 +61,8 @@ pub struct ShootingProblem<'a> {
     pub tolerance_floor: f64,
     /// Legs integrated (each outward or inward integration counts one).
     pub legs_integrated: u64,
-    /// The steps of the last T(tau) atmosphere and its tolerance: the next one at that
-    /// tolerance follows them.
-    atmosphere_plan: Option<(f64, Vec<f64>)>,
+    /// The steps of the last T(tau) atmosphere: the next one at its tolerance follows them.
+    atmosphere_steps: KeptSteps,
     /// The last residual evaluation.
     last: Option<LegEnds>,
 }
@@ -81,7 +80,7 @@ impl<'a> ShootingProblem<'a> {
             fit_mass_fraction,
             tolerance_floor,
             legs_integrated: 0,
-            atmosphere_plan: None,
+            atmosphere_steps: KeptSteps::default(),
             last: None,
         })
     }
@@ -109,12 +108,9 @@ impl<'a> ShootingProblem<'a> {
     fn inward_with_top(&mut self, ln_r: f64, ln_l: f64) -> LegResult<(LegEnd, SurfaceStart)> {
         self.legs_integrated += 1;
         let tolerance = self.runner.ctx.tolerance;
-        let plan = match self.atmosphere_plan.take() {
-            Some((t, plan)) if t == tolerance => plan,
-            _ => Vec::new(),
-        };
-        let start = surface::start_along(&self.runner.ctx, ln_r, ln_l, plan)?;
-        self.atmosphere_plan = Some((tolerance, start.steps.clone()));
+        let plan = self.atmosphere_steps.take_at(tolerance);
+        let (start, steps) = surface::start_along(&self.runner.ctx, ln_r, ln_l, plan)?;
+        self.atmosphere_steps.keep(tolerance, steps);
         let x1 = (1.0 - self.fit_mass_fraction).ln();
         let mut end = self
             .runner

@@ -74,10 +74,6 @@ pub struct SurfaceStart {
     /// The laws' cautions at the top of the atmosphere and at the photosphere (its coolest and
     /// its densest point).
     pub cautions: Cautions,
-    /// The ends of the steps the T(tau) atmosphere's integration accepted (ln tau), to be
-    /// followed by the next atmosphere at the same tolerance ([`start_along`]); empty for a
-    /// one-point photosphere.
-    pub steps: Vec<f64>,
 }
 
 /// An error of the atmosphere at optical depth `tau`.
@@ -216,19 +212,20 @@ fn crossing_ln_tau(
 
 /// Photospheric state for trial ln R, ln L: the start of the inward leg.
 pub fn start(ctx: &LegContext, ln_r: f64, ln_l: f64) -> LegResult<SurfaceStart> {
-    start_along(ctx, ln_r, ln_l, Vec::new())
+    start_along(ctx, ln_r, ln_l, Vec::new()).map(|(start, _)| start)
 }
 
 /// [`start`] with the T(tau) atmosphere integrated along `plan`, the steps of an atmosphere at
-/// nearby (ln R, ln L) and the same tolerance ([`SurfaceStart::steps`];
-/// [`crate::numerics::ode::Dop853::set_step_plan`]): its rejected steps are not repeated, and
-/// the photospheres of nearby trials differ smoothly.
+/// nearby (ln R, ln L) and the same tolerance ([`crate::numerics::ode::Dop853::set_step_plan`]):
+/// its rejected steps are not repeated, and the photospheres of nearby trials differ smoothly.
+/// Also returns the ends of the steps this atmosphere accepted (ln tau), the plan of the next
+/// one; empty for a one-point photosphere.
 pub fn start_along(
     ctx: &LegContext,
     ln_r: f64,
     ln_l: f64,
     plan: Vec<f64>,
-) -> LegResult<SurfaceStart> {
+) -> LegResult<(SurfaceStart, Vec<f64>)> {
     let r = ln_r.exp();
     let l = ln_l.exp();
     let teff = effective_temperature_k(r, l);
@@ -346,14 +343,14 @@ pub fn start_along(
     y0[LUM] = super::legs::Leg::Inward
         .luminosity_form(ctx)
         .component(ln_l.exp());
-    Ok(SurfaceStart {
+    let start = SurfaceStart {
         x0: d0.ln(),
         y0,
         teff_k: teff,
         pressure_dyn_cm2: pressure,
         cautions,
-        steps,
-    })
+    };
+    Ok((start, steps))
 }
 
 #[cfg(test)]
@@ -437,9 +434,9 @@ mod tests {
             // Jacobian column's neighbour), with its segments ending elsewhere: as accurate.
             let ctx = super::super::leg_context(mass, &physics, &comp, 1e-11);
             let (ln_r, ln_l) = ((r_rsun * R_SUN_CM).ln(), (l_lsun * L_SUN_ERG_S).ln());
-            let neighbour = start(&ctx, ln_r + 1e-4, ln_l + 1e-4).unwrap();
-            assert!(!neighbour.steps.is_empty());
-            let along = start_along(&ctx, ln_r, ln_l, neighbour.steps).unwrap();
+            let (_, neighbour) = start_along(&ctx, ln_r + 1e-4, ln_l + 1e-4, Vec::new()).unwrap();
+            assert!(!neighbour.is_empty());
+            let (along, _) = start_along(&ctx, ln_r, ln_l, neighbour).unwrap();
             let rel = along.pressure_dyn_cm2 / pressure(1e-13) - 1.0;
             assert!(rel.abs() < 1e-9, "{mass} M_sun along a plan: {rel:e}");
         }

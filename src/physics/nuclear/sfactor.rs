@@ -535,6 +535,8 @@ mod negligible_tests {
     #[test]
     fn negligible_rates_are_negligible() {
         let law = SFactorRates::default();
+        let coolest = Composition::new(0.70, 0.02).unwrap();
+        let centre = law.rate(986.0, 2.66e6, &coolest).unwrap().eps_pp_erg_g_s;
         for (x, z) in [
             (0.70, 0.02),
             (0.75, 0.001),
@@ -543,8 +545,6 @@ mod negligible_tests {
             (0.01, 0.04),
         ] {
             let comp = Composition::new(x, z).unwrap();
-            let coolest = Composition::new(0.70, 0.02).unwrap();
-            let centre = law.rate(986.0, 2.66e6, &coolest).unwrap().eps_pp_erg_g_s;
             let (t, rho) = (NEGLIGIBLE_BELOW_K, NEGLIGIBLE_BELOW_G_CM3);
             for rho in [1e-12, 1e-6, 1e-3, 0.1, rho * (1.0 - 1e-12)] {
                 assert!(law.negligible_at(rho, t * (1.0 - 1e-12)));

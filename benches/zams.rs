@@ -17,6 +17,8 @@ fn zams_models(c: &mut Criterion) {
     let mut group = c.benchmark_group("zams");
     group.sample_size(20);
     let cases = [
+        ("analytic_1msun", 1.0, PhysicsSet::analytic(), None),
+        ("analytic_3msun", 3.0, PhysicsSet::analytic(), None),
         ("analytic_10msun", 10.0, PhysicsSet::analytic(), None),
         ("refined_1msun", 1.0, PhysicsSet::refined(), None),
         (
